@@ -1,0 +1,97 @@
+import "server-only";
+import type { Executor } from "./index";
+
+export interface AuditEntry {
+  actorId: string | null;
+  /** Who did it, as a person reads it: "Dana Ilves <dana@…>", or "anonymous" for failed sign-ins. */
+  actorLabel: string;
+  /** `area.verb`, e.g. `auth.sign-in`, `user.deactivate`. */
+  action: string;
+  entityType?: string;
+  entityId?: string;
+  before?: unknown;
+  after?: unknown;
+  detail?: unknown;
+  address?: string | null;
+}
+
+/** Appends to the audit trail. Call it with the same transaction as the change it records. */
+export async function recordAuditEvent(db: Executor, entry: AuditEntry): Promise<void> {
+  await db
+    .insertInto("audit_event")
+    .values({
+      actor_id: entry.actorId,
+      actor_label: entry.actorLabel,
+      action: entry.action,
+      entity_type: entry.entityType ?? null,
+      entity_id: entry.entityId ?? null,
+      before: toJson(entry.before),
+      after: toJson(entry.after),
+      detail: toJson(entry.detail),
+      address: entry.address ?? null,
+    })
+    .execute();
+}
+
+function toJson(value: unknown): string | null {
+  return value === undefined ? null : JSON.stringify(value);
+}
+
+export interface AuditEventView {
+  id: string;
+  at: Date;
+  actorLabel: string;
+  action: string;
+  entityType: string | null;
+  entityId: string | null;
+  /** A readable name for the record where one is known (a user's name). */
+  entityLabel: string | null;
+  before: unknown;
+  after: unknown;
+  detail: unknown;
+  address: string | null;
+}
+
+export async function listAuditEvents(
+  db: Executor,
+  filter: { action?: string; entityType?: string; entityId?: string; limit?: number; beforeId?: string },
+): Promise<AuditEventView[]> {
+  let q = db
+    .selectFrom("audit_event")
+    .leftJoin("app_user as subject", (j) =>
+      j.onRef("subject.id", "=", "audit_event.entity_id").on("audit_event.entity_type", "=", "user"),
+    )
+    .select([
+      "audit_event.id",
+      "audit_event.at",
+      "audit_event.actor_label",
+      "audit_event.action",
+      "audit_event.entity_type",
+      "audit_event.entity_id",
+      "audit_event.before",
+      "audit_event.after",
+      "audit_event.detail",
+      "audit_event.address",
+      "subject.display_name as entity_label",
+    ])
+    .orderBy("audit_event.id", "desc")
+    .limit(filter.limit ?? 100);
+  if (filter.action) q = q.where("audit_event.action", "like", `${filter.action}%`);
+  if (filter.entityType) q = q.where("audit_event.entity_type", "=", filter.entityType);
+  if (filter.entityId) q = q.where("audit_event.entity_id", "=", filter.entityId);
+  if (filter.beforeId) q = q.where("audit_event.id", "<", filter.beforeId);
+  const rows = await q.execute();
+  return rows.map((r) => ({
+    id: String(r.id),
+    at: r.at,
+    actorLabel: r.actor_label,
+    action: r.action,
+    entityType: r.entity_type,
+    entityId: r.entity_id,
+    entityLabel: r.entity_label,
+    before: r.before,
+    after: r.after,
+    detail: r.detail,
+    address: r.address,
+  }));
+}

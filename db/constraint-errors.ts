@@ -1,0 +1,29 @@
+import { DomainError } from "@/lib/errors";
+
+/** PostgreSQL error codes we can explain to a person (see the PostgreSQL manual, appendix A). */
+const UNIQUE_VIOLATION = "23505";
+const FOREIGN_KEY_VIOLATION = "23503";
+const CHECK_VIOLATION = "23514";
+const RAISED_EXCEPTION = "P0001";
+
+const UNIQUE_MESSAGES: Record<string, string> = {
+  app_user_email_key: "A user with this e-mail address already exists.",
+};
+
+/** Turns a constraint error from pg into a DomainError with a plain message, or returns null. */
+export function translateConstraintError(error: unknown): DomainError | null {
+  if (typeof error !== "object" || error === null || !("code" in error)) return null;
+  const { code, constraint, message } = error as { code?: string; constraint?: string; message?: string };
+  switch (code) {
+    case UNIQUE_VIOLATION:
+      return new DomainError("conflict", UNIQUE_MESSAGES[constraint ?? ""] ?? "This record already exists.");
+    case FOREIGN_KEY_VIOLATION:
+      return new DomainError("conflict", "This record is still referenced by another record, or refers to one that does not exist.");
+    case CHECK_VIOLATION:
+      return new DomainError("invalid", `A value breaks a rule of the database (${constraint ?? "check"}).`);
+    case RAISED_EXCEPTION:
+      return new DomainError("conflict", message ?? "The database refused this change.");
+    default:
+      return null;
+  }
+}

@@ -1,0 +1,65 @@
+import { hash } from "@node-rs/argon2";
+import { generateIdFromEntropySize } from "lucia";
+import { Kysely, PostgresDialect } from "kysely";
+import pg from "pg";
+import type { Database } from "../db/schema";
+import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
+
+/**
+ * Seeds the demo lab. Idempotent: existing users keep their passwords and roles, so running the
+ * demo twice never undoes what someone changed in it.
+ */
+export async function seedDemo(databaseUrl: string): Promise<{ created: string[] }> {
+  const db = new Kysely<Database>({
+    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: databaseUrl, max: 2 }) }),
+  });
+  const created: string[] = [];
+  try {
+    await db.transaction().execute(async (tx) => {
+      await tx
+        .insertInto("lab")
+        .values({ id: 1, ...DEMO_LAB })
+        .onConflict((oc) => oc.column("id").doNothing())
+        .execute();
+      for (const u of DEMO_USERS) {
+        const exists = await tx.selectFrom("app_user").select("id").where("email", "=", u.email).executeTakeFirst();
+        if (exists) continue;
+        const id = generateIdFromEntropySize(10);
+        await tx
+          .insertInto("app_user")
+          .values({ id, email: u.email, display_name: u.displayName, role: u.role, password_hash: await hash(u.password) })
+          .execute();
+        await tx
+          .insertInto("audit_event")
+          .values({
+            actor_id: null,
+            actor_label: "demo seed",
+            action: "user.create",
+            entity_type: "user",
+            entity_id: id,
+            after: JSON.stringify({ email: u.email, displayName: u.displayName, role: u.role, active: true }),
+          })
+          .execute();
+        created.push(u.email);
+      }
+    });
+  } finally {
+    await db.destroy();
+  }
+  return { created };
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const url = process.env.DATABASE_URL;
+  if (!url) {
+    console.error("DATABASE_URL is not set");
+    process.exit(1);
+  }
+  seedDemo(url).then(
+    ({ created }) => console.log(created.length ? `seeded: ${created.join(", ")}` : "demo data already present"),
+    (err: unknown) => {
+      console.error("seeding failed:", err);
+      process.exit(1);
+    },
+  );
+}
