@@ -1,0 +1,37 @@
+/**
+ * A failure the domain expects and can explain: it carries a stable code, an HTTP status and a
+ * message a lab technician can act on. Anything else is a bug and is reported generically.
+ */
+export type DomainErrorCode =
+  | "unauthenticated"
+  | "forbidden"
+  | "not-found"
+  | "conflict"
+  | "invalid"
+  | "rate-limited"
+  | "foreign-origin";
+
+const STATUS: Record<DomainErrorCode, number> = {
+  unauthenticated: 401,
+  forbidden: 403,
+  "not-found": 404,
+  conflict: 409,
+  invalid: 422,
+  "rate-limited": 429,
+  "foreign-origin": 403,
+};
+
+export class DomainError extends Error {
+  readonly code: DomainErrorCode;
+  readonly status: number;
+  constructor(code: DomainErrorCode, message: string) {
+    super(message);
+    this.name = "DomainError";
+    this.code = code;
+    this.status = STATUS[code];
+  }
+}
+
+export function isDomainError(error: unknown): error is DomainError {
+  return error instanceof DomainError;
+}
