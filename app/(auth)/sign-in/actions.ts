@@ -1,0 +1,27 @@
+"use server";
+
+import { redirect } from "next/navigation";
+import { getRequestAddress } from "@/lib/auth/request-info";
+import { setSessionCookie } from "@/lib/auth/session";
+import { signIn, signInSchema } from "@/lib/auth/sign-in";
+import { toActionState, type ActionState } from "@/lib/forms/action-state";
+
+/** Public by nature: the caller is who they claim only once this succeeds. */
+export async function signInAction(_prev: ActionState, formData: FormData): Promise<ActionState> {
+  const parsed = signInSchema.safeParse({ email: formData.get("email"), password: formData.get("password") });
+  if (!parsed.success) return toActionState(parsed.error);
+  let result;
+  try {
+    result = await signIn({ ...parsed.data, address: await getRequestAddress() });
+  } catch (error) {
+    return toActionState(error);
+  }
+  if (!result.ok) return { ok: false, message: result.message };
+  await setSessionCookie(result.sessionId);
+  redirect(safeNext(formData.get("next")));
+}
+
+/** Only local paths: a sign-in link must not be able to send someone to another site. */
+function safeNext(value: FormDataEntryValue | null): string {
+  return typeof value === "string" && value.startsWith("/") && !value.startsWith("//") ? value : "/";
+}

@@ -1,0 +1,34 @@
+"use client";
+
+import { useActionState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { initialActionState } from "@/lib/forms/action-state";
+import { signInAction } from "./actions";
+
+export function SignInForm({ next }: { next?: string }) {
+  const [state, action, pending] = useActionState(signInAction, initialActionState);
+  return (
+    <form action={action} className="flex flex-col gap-4" noValidate>
+      {state.message && (
+        <Notice tone="problem" role="alert" title="Not signed in">
+          {state.message}
+        </Notice>
+      )}
+      <input type="hidden" name="next" value={next ?? ""} />
+      <Field label="E-mail" name="email" type="email" autoComplete="username" required errors={state.fieldErrors?.email} />
+      <Field
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="current-password"
+        required
+        errors={state.fieldErrors?.password}
+      />
+      <Button type="submit" disabled={pending}>
+        {pending ? "Signing in…" : "Sign in"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,52 @@
+"use client";
+
+import { useActionState, useEffect, useRef } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { ROLE_LABELS, ROLES } from "@/lib/auth/permissions";
+import { initialActionState } from "@/lib/forms/action-state";
+import { createUserAction } from "./actions";
+
+export function CreateUserForm() {
+  const [state, action, pending] = useActionState(createUserAction, initialActionState);
+  const formRef = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (state.ok) formRef.current?.reset();
+  }, [state]);
+  return (
+    <form ref={formRef} action={action} className="grid gap-3 sm:grid-cols-2" aria-label="Add a person" noValidate>
+      {state.message && (
+        <div className="sm:col-span-2">
+          <Notice tone={state.ok ? "done" : "problem"} role={state.ok ? "status" : "alert"}>
+            {state.message}
+          </Notice>
+        </div>
+      )}
+      <Field label="Name" name="displayName" autoComplete="off" errors={state.fieldErrors?.displayName} />
+      <Field label="E-mail" name="email" type="email" autoComplete="off" errors={state.fieldErrors?.email} />
+      <Field label="Role" name="role" errors={state.fieldErrors?.role}>
+        <select id="field-role" name="role" defaultValue="operator" className="rounded border border-rule bg-white px-2 py-1.5">
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_LABELS[r]}
+            </option>
+          ))}
+        </select>
+      </Field>
+      <Field
+        label="First password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters. Hand it over in person."
+        errors={state.fieldErrors?.password}
+      />
+      <div className="sm:col-span-2">
+        <Button type="submit" disabled={pending}>
+          {pending ? "Adding…" : "Add person"}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,3 @@
+export default function Loading() {
+  return <p className="text-ink-soft" role="status">Loading the audit trail…</p>;
+}

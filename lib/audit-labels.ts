@@ -1,0 +1,48 @@
+/** Audit actions in plain words for the trail's readers. Unknown actions show their code. */
+export const AUDIT_ACTION_LABELS: Record<string, string> = {
+  "auth.sign-in": "signed in",
+  "auth.sign-out": "signed out",
+  "auth.sign-in-failed": "failed sign-in",
+  "auth.sign-in-refused": "sign-in refused (too many failures)",
+  "user.create": "added a user",
+  "user.change-role": "changed a role",
+  "user.deactivate": "deactivated a user",
+  "user.reactivate": "reactivated a user",
+  "security.foreign-origin-refused": "refused a request from another site",
+};
+
+export function describeAuditAction(action: string): string {
+  return AUDIT_ACTION_LABELS[action] ?? action;
+}
+
+/**
+ * What changed, as short lines a reader can scan: "active: yes → no". A creation lists the new
+ * values; details (reasons, counts) follow.
+ */
+export function summariseAuditChange(before: unknown, after: unknown, detail: unknown): string[] {
+  const lines: string[] = [];
+  const b = isRecord(before) ? before : null;
+  const a = isRecord(after) ? after : null;
+  if (a && !b) {
+    for (const [k, v] of Object.entries(a)) lines.push(`${k}: ${show(v)}`);
+  } else if (a && b) {
+    for (const k of new Set([...Object.keys(b), ...Object.keys(a)])) {
+      if (JSON.stringify(b[k]) !== JSON.stringify(a[k])) lines.push(`${k}: ${show(b[k])} → ${show(a[k])}`);
+    }
+  }
+  if (isRecord(detail)) {
+    for (const [k, v] of Object.entries(detail)) lines.push(`${k}: ${show(v)}`);
+  }
+  return lines;
+}
+
+function isRecord(v: unknown): v is Record<string, unknown> {
+  return typeof v === "object" && v !== null && !Array.isArray(v);
+}
+
+function show(v: unknown): string {
+  if (v === true) return "yes";
+  if (v === false) return "no";
+  if (v === null || v === undefined) return "—";
+  return typeof v === "string" ? v : JSON.stringify(v);
+}
