@@ -1,0 +1,56 @@
+import { expect, test } from "@playwright/test";
+import { DEMO_USERS } from "../../scripts/demo-scenario";
+
+// Only this spec signs in through the form; the others start with a session (fixtures.ts).
+const NAV: Record<string, string[]> = {
+  admin: ["Home", "Audit trail", "Users"],
+  engineer: ["Home"],
+  operator: ["Home"],
+  auditor: ["Home", "Audit trail"],
+};
+
+for (const user of DEMO_USERS.filter((u, i, all) => all.findIndex((x) => x.role === u.role) === i)) {
+  test(`${user.role} signs in through the form and sees their own navigation`, async ({ page }) => {
+    await page.goto("/");
+    await expect(page).toHaveURL(/\/sign-in/);
+    await page.getByLabel("E-mail").fill(user.email);
+    await page.getByLabel("Password").fill(user.password);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect(page.getByTestId("signed-in-name")).toHaveText(user.displayName);
+    const nav = page.getByRole("navigation", { name: "Workbench sections" });
+    await expect(nav.getByRole("link")).toHaveText(NAV[user.role]!);
+  });
+}
+
+test("a wrong password is refused with a plain message and no session", async ({ page, context }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill("auditor@brackwater.example");
+  await page.getByLabel("Password").fill("not the password");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("alert").filter({ hasText: "Not signed in" })).toContainText("The e-mail address or the password is not right.");
+  const cookies = await context.cookies();
+  expect(cookies.find((c) => c.name === "cellwright_session")?.value ?? "").toBe("");
+});
+
+test("sign-out ends the session: the back button does not bring the workbench back", async ({ page }) => {
+  const operator = DEMO_USERS.find((u) => u.role === "operator")!;
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(operator.email);
+  await page.getByLabel("Password").fill(operator.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByTestId("signed-in-name")).toBeVisible();
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page.getByText("You have signed out.")).toBeVisible();
+  await page.goto("/");
+  await expect(page).toHaveURL(/\/sign-in/);
+});
+
+test("a sign-in link cannot send the user to another site", async ({ page }) => {
+  const engineer = DEMO_USERS.find((u) => u.role === "engineer")!;
+  await page.goto("/sign-in?next=//evil.example/");
+  await page.getByLabel("E-mail").fill(engineer.email);
+  await page.getByLabel("Password").fill(engineer.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByTestId("signed-in-name")).toBeVisible();
+  expect(new URL(page.url()).host).toBe(new URL(test.info().project.use.baseURL!).host);
+});

@@ -1,0 +1,2 @@
+// Vitest runs outside React's server environment; the marker package would throw there.
+export {};
