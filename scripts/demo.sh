@@ -1,0 +1,36 @@
+#!/usr/bin/env bash
+# `npm run demo`: dependencies, PostgreSQL, migrations, demo data, a production build, then the app
+# on http://localhost:3000. Safe to run again: each step checks what is already there.
+set -euo pipefail
+source "$(dirname "$0")/env.sh"
+cd "$ROOT"
+PORT="${PORT:-3000}"
+
+ensure_dependencies
+bash scripts/db.sh start demo
+cw_profile demo
+log "migrating"; npx tsx scripts/migrate.ts
+log "seeding the demo lab"; npx tsx scripts/seed.ts
+
+# A previous demo still running would hold the port: stop its whole process group.
+if [ -f .data/app.pid ] && kill -0 "$(cat .data/app.pid)" 2>/dev/null; then
+  log "stopping the previous demo app"
+  kill -- -"$(cat .data/app.pid)" 2>/dev/null || true
+  sleep 1
+fi
+
+log "building the app"; npx next build >.data/next-build.log 2>&1 || { tail -40 .data/next-build.log; exit 1; }
+
+log "starting the app"
+setsid npx next start -H 127.0.0.1 -p "$PORT" >.data/app.log 2>&1 &
+echo $! >.data/app.pid
+trap 'kill -- -"$(cat .data/app.pid)" 2>/dev/null; exit 0' INT TERM
+for _ in $(seq 1 60); do
+  curl -fs "http://localhost:$PORT/api/health" >/dev/null 2>&1 && break
+  sleep 0.5
+done
+curl -fs "http://localhost:$PORT/api/health" >/dev/null || { echo "the app did not start; see .data/app.log" >&2; tail -20 .data/app.log; exit 1; }
+
+npx tsx scripts/print-accounts.ts "http://localhost:$PORT"
+echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL keeps running: npm run db:stop)."
+wait
