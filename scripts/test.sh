@@ -14,23 +14,24 @@ cw_profile test
 export TEST_DATABASE_URL="$DATABASE_URL"
 export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/cellwright_e2e"
 unset DATABASE_URL
-mkdir -p test-results
+# Playwright empties test-results/ when it starts, so reports go to their own folder.
+rm -rf test-reports; mkdir -p test-reports
 
 log "typecheck"; npx next typegen >/dev/null; npx tsc --noEmit
 log "lint"; npx eslint --max-warnings 0 .
 
 log "unit and reference tests"
-npx vitest run --project unit --project reference --reporter=default --reporter=json --outputFile.json=test-results/vitest-unit.json
+npx vitest run --project unit --project reference --reporter=default --reporter=json --outputFile.json=test-reports/vitest-unit.json
 
 log "integration tests (PostgreSQL on 127.0.0.1:$PG_PORT)"
-npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-results/vitest-integration.json
+npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-reports/vitest-integration.json
 
 log "browser tests: fresh e2e database, production build, Chromium"
 psql "postgres://postgres@127.0.0.1:$PG_PORT/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e"
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/seed.ts >/dev/null
-npx next build >test-results/next-build.log 2>&1 || { tail -50 test-results/next-build.log; exit 1; }
-PLAYWRIGHT_JSON_OUTPUT_NAME=test-results/playwright.json npx playwright test --reporter=list,json
+npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next-build.log; exit 1; }
+PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json
 
-node scripts/test-summary.mjs test-results/vitest-unit.json test-results/vitest-integration.json test-results/playwright.json
+node scripts/test-summary.mjs test-reports/vitest-unit.json test-reports/vitest-integration.json test-reports/playwright.json
 echo "npm test took $(( $(date +%s) - started )) s"
