@@ -1,0 +1,66 @@
+import { assertNever } from './assert-never';
+import { formatDuration, formatQuantity } from './format-quantity';
+import type { Duration, QuantityReference } from './quantity';
+import { getSpecificationFieldLabel } from './specification-fields';
+import type { ChargeTermination, Measurement, Step } from './step';
+
+/** A reference inside a sentence: "0.2 It", "the specified charge voltage", "5 A". */
+function phrase(quantity: QuantityReference): string {
+  if ('spec' in quantity) return `the specified ${getSpecificationFieldLabel(quantity.spec)}`;
+  return formatQuantity(quantity);
+}
+
+function describeSpan(min: Duration, max: Duration | undefined): string {
+  return max ? `${formatDuration(min)} to ${formatDuration(max)}` : `at least ${formatDuration(min)}`;
+}
+
+function describeTermination(termination: ChargeTermination): string {
+  switch (termination.kind) {
+    case 'current':
+      return `ending when the current falls to ${phrase(termination.current)}`;
+    case 'time':
+      return `ending after ${formatDuration(termination.duration)}`;
+    default:
+      return assertNever(termination);
+  }
+}
+
+function describeMeasurement(measurement: Measurement): string {
+  switch (measurement.quantity) {
+    case 'mass':
+      return 'Measure the mass';
+    case 'openCircuitVoltage':
+      return 'Measure the open-circuit voltage';
+    case 'acResistance':
+      return `Measure the AC resistance at ${formatQuantity(measurement.frequency)}`;
+    case 'dimensions':
+      return 'Measure the dimensions';
+    default:
+      return assertNever(measurement);
+  }
+}
+
+/** One plain-English line summing up a step, e.g. "Rest 1 h to 4 h". */
+export function describeStep(step: Step): string {
+  switch (step.kind) {
+    case 'charge': {
+      const limit = step.maxDuration ? ` (at most ${formatDuration(step.maxDuration)})` : '';
+      return `CC-CV charge at ${phrase(step.current)} to ${phrase(step.voltage)}, ${describeTermination(step.termination)}${limit}`;
+    }
+    case 'discharge': {
+      const limit = step.maxDuration ? ` (at most ${formatDuration(step.maxDuration)})` : '';
+      const core = `discharge at ${phrase(step.current)} to ${phrase(step.endVoltage)}${limit}`;
+      return step.purpose === 'precondition' ? `Precondition: ${core}` : `Capacity ${core}`;
+    }
+    case 'rest':
+      return `Rest ${describeSpan(step.minDuration, step.maxDuration)}`;
+    case 'soak':
+      return `Soak at ${formatQuantity(step.temperature)} for ${describeSpan(step.minDuration, step.maxDuration)}`;
+    case 'pulse':
+      return `DC resistance pulse: ${phrase(step.baseCurrent)} for ${formatDuration(step.baseDuration)}, then ${phrase(step.pulseCurrent)} for ${formatDuration(step.pulseDuration)}`;
+    case 'measure':
+      return describeMeasurement(step.measurement);
+    default:
+      return assertNever(step);
+  }
+}

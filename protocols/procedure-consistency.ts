@@ -1,0 +1,116 @@
+import { findCriterionStepProblem, type AcceptanceCriterion } from './acceptance-criterion';
+import { compareVoltagesWithoutSpecification } from './compare-references';
+import type { RepeatRule } from './repeat-rule';
+import type { ChargeStep, Step } from './step';
+
+type Path = (string | number)[];
+type IssueSink = { addIssue: (issue: { code: 'custom'; path: Path; message: string }) => void };
+
+interface ProcedureParts {
+  steps: Step[];
+  acceptance: AcceptanceCriterion[];
+  repeat?: RepeatRule | undefined;
+}
+
+function checkUniqueIds(
+  { items, listKey, words }: { items: { id: string }[]; listKey: string; words: string },
+  ctx: IssueSink,
+): void {
+  const firstIndex = new Map<string, number>();
+  items.forEach((item, index) => {
+    const first = firstIndex.get(item.id);
+    if (first === undefined) {
+      firstIndex.set(item.id, index);
+      return;
+    }
+    ctx.addIssue({
+      code: 'custom',
+      path: [listKey, index, 'id'],
+      message: `the id "${item.id}" is already used by ${words} ${first + 1}`,
+    });
+  });
+}
+
+function checkCriteria(parts: ProcedureParts, ctx: IssueSink): void {
+  const stepsById = new Map(parts.steps.map((step) => [step.id, step]));
+  parts.acceptance.forEach((criterion, index) => {
+    const step = stepsById.get(criterion.stepId);
+    const path = ['acceptance', index, 'stepId'];
+    if (step === undefined) {
+      ctx.addIssue({ code: 'custom', path, message: `no step has the id "${criterion.stepId}"` });
+      return;
+    }
+    const problem = findCriterionStepProblem(criterion, step);
+    if (problem) ctx.addIssue({ code: 'custom', path, message: problem });
+  });
+}
+
+function checkRepeatRule(parts: ProcedureParts, ctx: IssueSink): void {
+  const rule = parts.repeat;
+  if (rule === undefined) return;
+  const positions = new Map(parts.steps.map((step, index) => [step.id, index]));
+  const seen = new Set<string>();
+  let blockIsValid = true;
+  rule.stepIds.forEach((stepId, index) => {
+    const path = ['repeat', 'stepIds', index];
+    if (!positions.has(stepId)) {
+      ctx.addIssue({ code: 'custom', path, message: `the repeated block names "${stepId}", but no step has that id` });
+      blockIsValid = false;
+    } else if (seen.has(stepId)) {
+      ctx.addIssue({ code: 'custom', path, message: `the repeated block names "${stepId}" twice` });
+      blockIsValid = false;
+    }
+    seen.add(stepId);
+  });
+  if (blockIsValid) {
+    const first = positions.get(rule.stepIds[0] ?? '') ?? 0;
+    const consecutive = rule.stepIds.every((stepId, offset) => positions.get(stepId) === first + offset);
+    if (!consecutive) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['repeat', 'stepIds'],
+        message: 'the repeated block must list consecutive steps in procedure order',
+      });
+    }
+  }
+  const criterion = parts.acceptance.find((candidate) => candidate.id === rule.stopWhenMet);
+  if (criterion === undefined) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['repeat', 'stopWhenMet'],
+      message: `no acceptance criterion has the id "${rule.stopWhenMet}"`,
+    });
+  } else if (!rule.stepIds.includes(criterion.stepId)) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['repeat', 'stopWhenMet'],
+      message: `criterion "${criterion.id}" judges step "${criterion.stepId}", which is outside the repeated block`,
+    });
+  }
+}
+
+/** A discharge must end below the voltage the preceding charge reached, where that is known. */
+function checkEndVoltages(parts: ProcedureParts, ctx: IssueSink): void {
+  let lastCharge: ChargeStep | undefined;
+  parts.steps.forEach((step, index) => {
+    if (step.kind === 'charge') lastCharge = step;
+    if (step.kind !== 'discharge' || lastCharge === undefined) return;
+    const order = compareVoltagesWithoutSpecification(step.endVoltage, lastCharge.voltage);
+    if (order === 'equal' || order === 'higher') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['steps', index, 'endVoltage'],
+        message: `the end voltage must be below the charge voltage of step "${lastCharge.id}"`,
+      });
+    }
+  });
+}
+
+/** Rules that span steps, criteria and the repeat rule; each problem names its field path. */
+export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink): void {
+  checkUniqueIds({ items: parts.steps, listKey: 'steps', words: 'step' }, ctx);
+  checkUniqueIds({ items: parts.acceptance, listKey: 'acceptance', words: 'criterion' }, ctx);
+  checkCriteria(parts, ctx);
+  checkRepeatRule(parts, ctx);
+  checkEndVoltages(parts, ctx);
+}
