@@ -1,0 +1,141 @@
+import type { IndexRange, LogColumns } from "@/lib/analysis";
+import { assertNever, formatNumber, type ResolvedSetPoint } from "@/protocols";
+import type { Finding, FindingDraft } from "./finding";
+import { citeProcedure, citeTolerance, formatPercent, formatRange, formatValue } from "./format-value";
+import { createFinding, explainMissingLog, type StepContext } from "./step-context";
+import { createBand, isInsideBand, type Band } from "./tolerance-band";
+
+/** Mean |I| over a range and how many samples fall outside the band. */
+function countOutside(columns: LogColumns, range: IndexRange, band: Band): { meanA: number; samples: number; outside: number } {
+  const c = columns.currentA;
+  let sum = 0;
+  let outside = 0;
+  for (let i = range.from; i <= range.to; i++) {
+    const magnitude = Math.abs(c[i] as number);
+    sum += magnitude;
+    if (!isInsideBand(magnitude, band)) outside++;
+  }
+  const samples = range.to - range.from + 1;
+  return { meanA: sum / samples, samples, outside };
+}
+
+interface HoldCheck {
+  field: string;
+  words: string;
+  target: ResolvedSetPoint;
+}
+
+function draftHold(context: StepContext, check: HoldCheck, band: Band | null): Omit<FindingDraft, "observed" | "outcome"> {
+  const tolerance = context.step.tolerances.currentPercent;
+  const allowed = context.settings.currentOutlierShare;
+  return {
+    rule: "current-held",
+    field: check.field,
+    title: `${check.words[0]?.toUpperCase()}${check.words.slice(1)} held within tolerance`,
+    expected:
+      band === null || check.target === null
+        ? { text: "the set-point is not resolved, so there is nothing to compare with", unit: "A" }
+        : {
+            text:
+              `${formatValue(check.target.value, "A")} ${formatPercent(tolerance.value)} (${formatRange(band, "A")}) over the constant-current part, ` +
+              `at most ${formatNumber(allowed * 100, { maxDecimals: 2 })} % of samples outside`,
+            value: check.target.value,
+            ...band,
+            unit: "A",
+          },
+    clause: `${citeProcedure(context.citation, check.words)}; ${citeTolerance(tolerance)}; share of samples outside: our own allowance for switching transients`,
+  };
+}
+
+/** A constant current held over a range of the log: mean and nearly every sample within the band. */
+function checkHeldOver(context: StepContext, check: HoldCheck, range: () => IndexRange | { outcome: "deviates" | "not assessable"; reason: string }): Finding {
+  const band = check.target === null ? null : createBand(check.target.value, context.step.tolerances.currentPercent.value);
+  const draft = draftHold(context, check, band);
+  const missing = explainMissingLog(context.evidence);
+  if (missing !== null || band === null || context.evidence.kind !== "found") {
+    return createFinding(context, { ...draft, observed: { text: missing ?? "no set-point" }, outcome: "not assessable" });
+  }
+  const span = range();
+  if ("reason" in span) return createFinding(context, { ...draft, observed: { text: span.reason }, outcome: span.outcome });
+  const { meanA, samples, outside } = countOutside(context.evidence.columns, span, band);
+  const share = outside / samples;
+  const held = isInsideBand(meanA, band) && share <= context.settings.currentOutlierShare;
+  return createFinding(context, {
+    ...draft,
+    observed: {
+      text: `mean ${formatValue(meanA, "A")} over ${formatNumber(samples)} samples, ${formatNumber(outside)} outside the tolerance (${formatNumber(share * 100, { maxDecimals: 2 })} %)`,
+      value: meanA,
+      unit: "A",
+    },
+    outcome: held ? "meets" : "deviates",
+  });
+}
+
+/** The two levels of a pulse step, each mean against its set-point. */
+function checkPulseLevels(context: StepContext, checks: { base: HoldCheck; pulse: HoldCheck }): Finding[] {
+  const { evidence } = context;
+  return (["base", "pulse"] as const).map((level) => {
+    const check = checks[level];
+    const band = check.target === null ? null : createBand(check.target.value, context.step.tolerances.currentPercent.value);
+    const draft = draftHold(context, check, band);
+    const missing = explainMissingLog(evidence);
+    if (missing !== null || band === null || evidence.kind !== "found") {
+      return createFinding(context, { ...draft, observed: { text: missing ?? "no set-point" }, outcome: "not assessable" });
+    }
+    if (evidence.dcResistance === null) {
+      return createFinding(context, { ...draft, observed: { text: "no two-level pulse was found in the logged phase" }, outcome: "deviates" });
+    }
+    const meanA = Math.abs(level === "base" ? evidence.dcResistance.baseMeanCurrentA : evidence.dcResistance.pulseMeanCurrentA);
+    return createFinding(context, {
+      ...draft,
+      observed: { text: `mean ${formatValue(meanA, "A")} over the ${level} level`, value: meanA, unit: "A" },
+      outcome: isInsideBand(meanA, band) ? "meets" : "deviates",
+    });
+  });
+}
+
+/**
+ * The logged current held the resolved set-point within the current tolerance (IEC 61960-3
+ * clause 4: ±1 %, REFERENCES.md §3) over the constant-current part: a charge's CC part, a whole
+ * discharge, each level of a pulse. A few samples may stray (switching transients); how many is a
+ * setting, not a value from the standard.
+ */
+export function checkCurrentHold(context: StepContext): Finding[] {
+  const { step, evidence } = context;
+  switch (step.kind) {
+    case "charge":
+      return [
+        checkHeldOver(context, { field: "current", words: "charge current", target: step.current }, () => {
+          if (evidence.kind !== "found" || evidence.phase.kind !== "charge" || evidence.phase.constantCurrent === null) {
+            return { outcome: "not assessable", reason: "the logged charge has no constant-current part" };
+          }
+          return evidence.phase.constantCurrent;
+        }),
+      ];
+    case "discharge":
+      return [
+        checkHeldOver(context, { field: "current", words: "discharge current", target: step.current }, () => {
+          if (evidence.kind !== "found") return { outcome: "not assessable", reason: "no log phase" };
+          const { phase } = evidence;
+          if (phase.kind === "discharge" && phase.pulse !== null) {
+            return {
+              outcome: "deviates",
+              reason: `the logged discharge changes level: ${formatValue(Math.abs(phase.pulse.baseMeanCurrentA), "A")}, then ${formatValue(Math.abs(phase.pulse.pulseMeanCurrentA), "A")}`,
+            };
+          }
+          return phase;
+        }),
+      ];
+    case "pulse":
+      return checkPulseLevels(context, {
+        base: { field: "baseCurrent", words: "base current", target: step.baseCurrent },
+        pulse: { field: "pulseCurrent", words: "pulse current", target: step.pulseCurrent },
+      });
+    case "rest":
+    case "soak":
+    case "measure":
+      return [];
+    default:
+      return assertNever(step);
+  }
+}

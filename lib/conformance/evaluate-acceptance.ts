@@ -1,0 +1,129 @@
+import { assertNever, type ResolvedCriterion } from "@/protocols";
+import { hasStoppedBeforeEndVoltage } from "./check-end-condition";
+import { evaluateConformity, type ConformityOutcome, type DecisionRule, type SpecificationLimit } from "./decision-rule";
+import type { FindingUnit, FindingValue } from "./finding";
+import { citeProcedure, formatValue } from "./format-value";
+import type { StepContext } from "./step-context";
+
+/** One acceptance criterion judged on one cycle of its step. */
+export interface AcceptanceResult {
+  criterionId: string;
+  kind: ResolvedCriterion["kind"];
+  stepId: string;
+  cycle: number;
+  limit: (FindingValue & { side: SpecificationLimit["side"] }) | null;
+  measured: FindingValue | null;
+  outcome: ConformityOutcome;
+  rule: DecisionRule;
+  /** U in the criterion's unit (Ah, s, Ω), when the caller gave one. */
+  expandedUncertainty: number | null;
+  /** The decision rule applied and its outcome in words, for the certificate. */
+  statement: string;
+  clause: string;
+  notes: string[];
+}
+
+interface Quantity {
+  unit: FindingUnit;
+  /** Written in the statement in this unit, this many decimals, after multiplying by scale. */
+  statementUnit: string;
+  scale: number;
+  decimals: number;
+}
+
+const quantities: Record<ResolvedCriterion["kind"], Quantity> = {
+  capacity: { unit: "Ah", statementUnit: "Ah", scale: 1, decimals: 3 },
+  "discharge-duration": { unit: "s", statementUnit: "s", scale: 1, decimals: 0 },
+  resistance: { unit: "Ω", statementUnit: "mΩ", scale: 1000, decimals: 2 },
+};
+
+function findLimit(criterion: ResolvedCriterion): { side: SpecificationLimit["side"]; value: number; explanation: string } | null {
+  switch (criterion.kind) {
+    case "capacity":
+      return criterion.minimum && { side: "lower", value: criterion.minimum.value, explanation: criterion.minimum.explanation };
+    case "discharge-duration":
+      return { side: "lower", value: criterion.minimum.value, explanation: criterion.minimum.explanation };
+    case "resistance":
+      return criterion.maximum && { side: "upper", value: criterion.maximum.value, explanation: criterion.maximum.explanation };
+    default:
+      return assertNever(criterion);
+  }
+}
+
+/** The measured value a criterion judges, from the step's log results or its record, or why there is none. */
+function findMeasured(criterion: ResolvedCriterion, context: StepContext): { value: number; source: string } | { reason: string } {
+  const { evidence } = context;
+  const noLog = evidence.kind === "found" ? null : evidence.reason;
+  switch (criterion.kind) {
+    case "capacity":
+      if (evidence.kind !== "found") return { reason: noLog ?? "no log phase" };
+      return { value: evidence.results.capacityAh, source: "Q = ∫|I| dt over the logged discharge" };
+    case "discharge-duration":
+      if (evidence.kind !== "found") return { reason: noLog ?? "no log phase" };
+      return { value: evidence.results.durationS, source: "duration of the logged discharge" };
+    case "resistance": {
+      if (context.step.kind === "measure") {
+        const value = context.record?.measured?.acResistanceOhm;
+        return value === undefined ? { reason: "no AC resistance was recorded" } : { value, source: "AC resistance as recorded" };
+      }
+      if (evidence.kind !== "found") return { reason: noLog ?? "no log phase" };
+      if (evidence.dcResistance === null) return { reason: "no two-level pulse was found in the logged phase" };
+      return { value: evidence.dcResistance.resistanceOhm, source: "Rdc = (U1 − U2) / (I2 − I1) from the logged pulse" };
+    }
+    default:
+      return assertNever(criterion);
+  }
+}
+
+/**
+ * Judges one criterion on one cycle under the declared decision rule (decision-rule.ts: simple
+ * acceptance unless the caller asks for guarded acceptance with an expanded uncertainty).
+ * A discharge that stopped before its end voltage could only have delivered more, so a shortfall
+ * on it is not decided rather than a failure (definition: capacity to the end voltage is at least
+ * the capacity delivered so far).
+ */
+export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepContext): AcceptanceResult {
+  const quantity = quantities[criterion.kind];
+  const rule = context.settings.decisionRule;
+  const limit = findLimit(criterion);
+  const measured = findMeasured(criterion, context);
+  const base = {
+    criterionId: criterion.id,
+    kind: criterion.kind,
+    stepId: criterion.stepId,
+    cycle: context.cycle,
+    rule,
+    clause: `${citeProcedure(context.citation, "acceptance criterion")}; decision rule: ISO/IEC 17025:2017 7.8.6, ILAC-G8:09/2019`,
+    limit: limit && { text: `${limit.side === "lower" ? "at least" : "at most"} ${limit.explanation}`, value: limit.value, side: limit.side, unit: quantity.unit },
+    measured: "reason" in measured ? null : { text: `${formatValue(measured.value, quantity.unit)}, ${measured.source}`, value: measured.value, unit: quantity.unit },
+  };
+  const uncertainty = context.settings.uncertainties[criterion.id];
+  const expanded =
+    uncertainty === undefined || "reason" in measured
+      ? null
+      : "expanded" in uncertainty
+        ? uncertainty.expanded
+        : uncertainty.relativeExpanded * Math.abs(measured.value);
+  const undecided = (why: string): AcceptanceResult => ({ ...base, expandedUncertainty: expanded, outcome: "not decided", statement: `Not decided: ${why}.`, notes: [] });
+  if (limit === null) return undecided("the limit is not resolved on this cell specification");
+  if ("reason" in measured) return undecided(measured.reason);
+
+  const decision = evaluateConformity({
+    measured: measured.value * quantity.scale,
+    limit: { side: limit.side, value: limit.value * quantity.scale },
+    rule,
+    ...(expanded !== null && { expandedUncertainty: expanded * quantity.scale }),
+    unit: quantity.statementUnit,
+    decimals: quantity.decimals,
+  });
+  if (!decision.ok) return undecided(decision.error.message.replace(/\.$/, ""));
+  const notes: string[] = [];
+  let outcome = decision.value.outcome;
+  const evidence = context.evidence;
+  if (limit.side === "lower" && evidence.kind === "found" && hasStoppedBeforeEndVoltage(context.step, evidence.results)) {
+    notes.push("The discharge stopped before its end voltage; a complete discharge could only have delivered more.");
+    if (outcome === "does not conform") outcome = "not decided";
+  }
+  const statement = outcome === decision.value.outcome ? decision.value.statement : `${decision.value.statement} Not decided, as the discharge stopped early.`;
+  return { ...base, expandedUncertainty: expanded, outcome, statement, notes };
+}

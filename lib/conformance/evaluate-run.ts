@@ -1,0 +1,226 @@
+import type { DcResistancePulse, StepResults } from "@/lib/analysis";
+import type { FieldProblem, ProcedureResolution, ResolvedStep } from "@/protocols";
+import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
+import { checkAmbient } from "./check-ambient";
+import { checkCautionsAcknowledged } from "./check-cautions-acknowledged";
+import { checkChargeVoltage } from "./check-charge-voltage";
+import { checkCurrentHold } from "./check-current-hold";
+import { checkDurations } from "./check-durations";
+import { checkEndCondition } from "./check-end-condition";
+import { checkLogPhaseFound, checkRecordMatchesLog, checkUnexplainedLogPhases } from "./check-log-agreement";
+import { checkOrderAndGap, checkStepRecorded, type PlacedStep } from "./check-order-and-gaps";
+import { checkRating } from "./check-rating";
+import { checkSetPoints } from "./check-set-points";
+import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
+import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
+import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
+import { createRunFinding, type Finding } from "./finding";
+import { citeProcedure } from "./format-value";
+import { planRunSequence } from "./plan-run-sequence";
+import {
+  checkRunEvaluationInput,
+  type EvaluatedAgainst,
+  type EvaluationOptions,
+  type RunEvaluationInput,
+} from "./run-evaluation-input";
+import type { StepContext } from "./step-context";
+import { findTimeSpan } from "./time-span";
+
+/** One step of one cycle: its log phase, its results and its findings. */
+export interface StepEvaluation {
+  stepId: string;
+  cycle: number;
+  label: string;
+  kind: ResolvedStep["kind"];
+  inRepeatBlock: boolean;
+  recorded: boolean;
+  logPhase: LogPhaseSummary | null;
+  /** Why no log phase belongs to the step, when none does. */
+  logNote: string | null;
+  results: StepResults | null;
+  dcResistance: DcResistancePulse | null;
+  findings: Finding[];
+}
+
+export interface RunEvaluation {
+  evaluatedAgainst: EvaluatedAgainst & { otherThanRunVersion: boolean };
+  settings: EvaluationOptions;
+  steps: StepEvaluation[];
+  /** Checks of the run as a whole. */
+  runFindings: Finding[];
+  log: RunLogSummary;
+  /** Every criterion on every cycle of its step. */
+  acceptance: AcceptanceResult[];
+  repeat: RepeatOutcome | null;
+  /** The statement of conformity per criterion, on the cycle it rests on. */
+  conformity: CriterionConformity[];
+  verdict: RunVerdict;
+}
+
+export type RunEvaluationResult = { ok: true; evaluation: RunEvaluation } | { ok: false; problems: FieldProblem[] };
+
+/** One step of one cycle through every rule family, in the order a reviewer reads them. */
+function checkStep({ placed, previous, resolution }: { placed: PlacedStep; previous: PlacedStep | undefined; resolution: ProcedureResolution }): Finding[] {
+  const { context } = placed;
+  return [
+    checkStepRecorded(context),
+    ...(previous ? [checkOrderAndGap({ current: placed, previous })] : []),
+    ...checkLogPhaseFound(context),
+    ...checkRecordMatchesLog(context),
+    ...checkAmbient(context),
+    ...checkDurations(context),
+    ...checkSetPoints(context),
+    ...checkCurrentHold(context),
+    ...checkEndCondition(context),
+    ...checkChargeVoltage(context),
+    ...checkRating(context),
+    ...checkCautionsAcknowledged(context, resolution.cautions),
+  ];
+}
+
+function checkResolution(resolution: ProcedureResolution, citation: string | null): Finding {
+  const { errors } = resolution;
+  return createRunFinding({
+    rule: "procedure-resolved",
+    title: "Procedure resolves on this cell",
+    expected: { text: "the procedure version resolves on the cell specification without errors" },
+    observed: { text: errors.length === 0 ? "no errors" : errors.map((error) => error.message).join("; ") },
+    // An unresolved set-point leaves its checks open; it is not the operator's deviation.
+    outcome: errors.length === 0 ? "meets" : "not assessable",
+    clause: citeProcedure(citation, "set-points resolved on the cell specification"),
+  });
+}
+
+function checkRecordsFit(problems: readonly string[], citation: string | null): Finding {
+  return createRunFinding({
+    rule: "records-fit-procedure",
+    title: "Step records fit the procedure",
+    expected: { text: "every record names a step of the procedure, once per cycle" },
+    observed: { text: problems.length === 0 ? "all records fit" : problems.join("; ") },
+    outcome: problems.length === 0 ? "meets" : "deviates",
+    clause: citeProcedure(citation, "step list"),
+  });
+}
+
+function describeOtherVersion(against: EvaluatedAgainst): string | null {
+  const { procedureVersionId: judged, runProcedureVersionId: followed } = against;
+  if (judged === undefined || followed === undefined || judged === followed) return null;
+  return `Re-evaluated against procedure version ${judged}, not version ${followed} that the run followed${against.note ? ` (${against.note})` : ""}.`;
+}
+
+/** The statement per criterion: a block criterion on the repeat rule's decisive cycle, any other on cycle 1. */
+function stateConformity({
+  resolution,
+  acceptance,
+  repeat,
+}: {
+  resolution: ProcedureResolution;
+  acceptance: readonly AcceptanceResult[];
+  repeat: RepeatOutcome | null;
+}): CriterionConformity[] {
+  const blockIds = new Set(resolution.repeat?.stepIds ?? []);
+  return resolution.acceptance.map((criterion) => {
+    const inBlock = repeat !== null && blockIds.has(criterion.stepId);
+    const cycle = inBlock ? repeat.decisiveCycle : 1;
+    const result = acceptance.find((entry) => entry.criterionId === criterion.id && entry.cycle === cycle);
+    if (inBlock && criterion.id === repeat.criterionId) {
+      return {
+        criterionId: criterion.id,
+        outcome: repeat.specimenOutcome,
+        cycle,
+        statement: `${result ? `${result.statement} ` : ""}Repeat rule "${repeat.label}": ${repeat.statement}`,
+      };
+    }
+    if (result === undefined) {
+      return { criterionId: criterion.id, outcome: "not decided", cycle: null, statement: "Not decided: no cycle of its step was judged." };
+    }
+    return { criterionId: criterion.id, outcome: result.outcome, cycle, statement: result.statement };
+  });
+}
+
+/**
+ * Checks a run step by step against its resolved procedure: the records, the data log and the
+ * cell's rating give findings per step and cycle; the acceptance criteria, under the declared
+ * decision rule and the repeat rule, give the statement of conformity; the verdict keeps "was the
+ * procedure followed?" apart from "does the specimen meet the requirement?". Pure and
+ * deterministic: no clock, no randomness, the same input gives the same output, so a stored run can
+ * be evaluated again (against a newer procedure version, marked in `evaluatedAgainst`).
+ */
+export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
+  const checked = checkRunEvaluationInput(input);
+  if (!checked.ok) return checked;
+  const { resolution, cellRating, stepRecords, log, logStartedAt, procedureSource, options, evaluatedAgainst } = checked.value;
+  const citation = procedureSource ? `${procedureSource.standard} ${procedureSource.clause}` : null;
+  const logStartMs = logStartedAt === undefined ? null : Date.parse(logStartedAt);
+  const plan = planRunSequence({ resolution, stepRecords });
+  const logAnalysis = analyseRunLog({ log, planned: plan.planned, options });
+  const acknowledgedOnVersion = new Set(resolution.cautions.filter((caution) => caution.acknowledged).map((caution) => caution.code));
+
+  const contexts = plan.planned.map(
+    (entry, k): StepContext => ({
+      step: entry.step,
+      cycle: entry.cycle,
+      record: entry.record,
+      evidence: logAnalysis.evidence[k] ?? { kind: "no log", reason: "no data log was uploaded" },
+      cellRating,
+      settings: options,
+      citation,
+      logStartMs,
+      isAcknowledged: (code) => acknowledgedOnVersion.has(code) || (entry.record?.acknowledgedCautionCodes.includes(code) ?? false),
+    }),
+  );
+  const placed: PlacedStep[] = contexts.map((context) => ({ context, span: findTimeSpan(context) }));
+  const steps = placed.map((current, k): StepEvaluation => {
+    const { context } = current;
+    const { evidence } = context;
+    const logPhase = logAnalysis.summary.status === "analysed" && evidence.kind === "found" ? logAnalysis.summary.phases[evidence.phaseIndex] ?? null : null;
+    return {
+      stepId: context.step.id,
+      cycle: context.cycle,
+      label: context.step.label,
+      kind: context.step.kind,
+      inRepeatBlock: plan.planned[k]?.inRepeatBlock ?? false,
+      recorded: context.record !== null,
+      logPhase,
+      logNote: evidence.kind === "found" ? null : evidence.reason,
+      results: evidence.kind === "found" ? evidence.results : null,
+      dcResistance: evidence.kind === "found" ? evidence.dcResistance : null,
+      findings: checkStep({ placed: current, previous: placed[k - 1], resolution }),
+    };
+  });
+
+  const acceptance = resolution.acceptance.flatMap((criterion) =>
+    contexts.filter((context) => context.step.id === criterion.stepId).map((context) => evaluateAcceptance(criterion, context)),
+  );
+  const repeatEvaluation = resolution.repeat
+    ? evaluateRepeatRule({ rule: resolution.repeat, cyclesRun: plan.cyclesRun, results: acceptance, citation })
+    : null;
+  const repeat = repeatEvaluation?.outcome ?? null;
+  const runFindings = [
+    checkResolution(resolution, citation),
+    checkRecordsFit(plan.recordProblems, citation),
+    checkUnexplainedLogPhases(logAnalysis.summary, citation),
+    ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
+  ];
+  const conformity = stateConformity({ resolution, acceptance, repeat });
+  const otherVersionNote = describeOtherVersion(evaluatedAgainst);
+  const verdict = decideVerdict({
+    findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
+    conformity,
+    otherVersionNote,
+  });
+  return {
+    ok: true,
+    evaluation: {
+      evaluatedAgainst: { ...evaluatedAgainst, otherThanRunVersion: otherVersionNote !== null },
+      settings: options,
+      steps,
+      runFindings,
+      log: logAnalysis.summary,
+      acceptance,
+      repeat,
+      conformity,
+      verdict,
+    },
+  };
+}

@@ -1,0 +1,26 @@
+// Run-versus-procedure checks producing findings and a verdict. Pure: no database, no React, no clock.
+export * from "./decision-rule";
+export * from "./finding";
+export * from "./step-record";
+export * from "./run-evaluation-input";
+export * from "./step-context";
+export * from "./plan-run-sequence";
+export * from "./analyse-run-log";
+export * from "./check-ambient";
+export * from "./check-durations";
+export * from "./check-set-points";
+export * from "./check-current-hold";
+export * from "./check-end-condition";
+export * from "./check-charge-voltage";
+export * from "./check-rating";
+export * from "./check-cautions-acknowledged";
+export * from "./check-order-and-gaps";
+export * from "./check-log-agreement";
+export * from "./evaluate-acceptance";
+export * from "./evaluate-repeat-rule";
+export * from "./decide-verdict";
+export * from "./evaluate-run";
+export * from "./list-findings";
+export { formatValue } from "./format-value";
+export { createBand, isInsideBand, type Band } from "./tolerance-band";
+export { findTimeSpan, readRecordTimes } from "./time-span";

@@ -1,0 +1,156 @@
+import { z } from "zod";
+import type { LogColumns } from "@/lib/analysis";
+import { identifierSchema, type CellSpecification, type FieldProblem, type ProcedureResolution } from "@/protocols";
+import { recordedTimeSchema, stepRecordSchema, type StepRecord, type StepRecordInput } from "./step-record";
+
+const positive = (what: string) =>
+  z.number({ error: `${what} is a number` }).positive({ error: `${what} must be greater than 0` });
+const notNegative = (what: string) =>
+  z.number({ error: `${what} is a number` }).nonnegative({ error: `${what} must not be negative` });
+
+/** The cell's rating as its datasheet states it: the limits the run must stay inside. */
+export const cellRatingSchema = z.strictObject({
+  maxContinuousDischargeCurrentA: positive("the maximum continuous discharge current"),
+  maxChargeCurrentA: positive("the maximum charge current").optional(),
+  /** The charge limit when no maximum is stated, as when the procedure was resolved. */
+  standardChargeCurrentA: positive("the standard charge current").optional(),
+  chargeVoltageV: positive("the charge voltage"),
+});
+
+export type CellRating = z.infer<typeof cellRatingSchema>;
+
+/** The rating fields of a cell specification. */
+export function readCellRating(cell: CellSpecification): CellRating {
+  return {
+    maxContinuousDischargeCurrentA: cell.maxContinuousDischargeCurrentA,
+    ...(cell.maxChargeCurrentA !== undefined && { maxChargeCurrentA: cell.maxChargeCurrentA }),
+    standardChargeCurrentA: cell.standardChargeCurrentA,
+    chargeVoltageV: cell.chargeVoltageV,
+  };
+}
+
+/** Expanded uncertainty U of a criterion's measured value: in the criterion's unit (Ah, s, Ω), or as a fraction of it. */
+export const criterionUncertaintySchema = z.union(
+  [
+    z.strictObject({ expanded: notNegative("the expanded uncertainty") }),
+    z.strictObject({ relativeExpanded: notNegative("the relative expanded uncertainty") }),
+  ],
+  { error: "an uncertainty is { expanded } in the criterion's unit or { relativeExpanded } as a fraction" },
+);
+
+const segmentOptionsSchema = z.strictObject({
+  restCurrentA: notNegative("the rest current").optional(),
+  minPhaseSamples: z.number().int().min(1).optional(),
+  minPhaseDurationS: notNegative("the shortest phase").optional(),
+  cvVoltageToleranceV: positive("the CV voltage tolerance").optional(),
+  cvMinCurrentDrop: z.number().gt(0).lt(1).optional(),
+  pulse: z
+    .strictObject({
+      levelChangeRatio: positive("the level change ratio").optional(),
+      minLevelStepA: notNegative("the smallest level step").optional(),
+      minLevelSamples: z.number().int().min(1).optional(),
+    })
+    .optional(),
+});
+
+/**
+ * Settings of an evaluation. The allowances are our own defaults, not taken from a standard; a lab
+ * may set its own.
+ */
+export const evaluationOptionsSchema = z.strictObject({
+  /** A pause between two steps longer than this needs a recorded reason, s. */
+  gapAllowanceS: notNegative("the pause allowance").default(600),
+  /** Recorded step times and the log's phase times may differ by this much, s (hand-noted times). */
+  timeAgreementS: notNegative("the time agreement").default(300),
+  /** Share of constant-current samples allowed outside the tolerance (switching transients). */
+  currentOutlierShare: z.number().min(0).max(1).default(0.02),
+  decisionRule: z.enum(["simple acceptance", "guarded acceptance"]).default("simple acceptance"),
+  /** By acceptance criterion id. */
+  uncertainties: z.record(identifierSchema, criterionUncertaintySchema).default({}),
+  /** How the log is cut into phases (lib/analysis segment options). */
+  segment: segmentOptionsSchema.optional(),
+});
+
+export type EvaluationOptions = z.output<typeof evaluationOptionsSchema>;
+export type EvaluationOptionsInput = z.input<typeof evaluationOptionsSchema>;
+
+/** Which procedure version the run is judged against; passed through so a re-evaluation is marked. */
+export const evaluatedAgainstSchema = z.strictObject({
+  /** The version whose resolution is evaluated. */
+  procedureVersionId: z.string().trim().min(1).max(100).optional(),
+  /** The version the run was carried out under. */
+  runProcedureVersionId: z.string().trim().min(1).max(100).optional(),
+  note: z.string().max(2000).optional(),
+});
+
+export type EvaluatedAgainst = z.infer<typeof evaluatedAgainstSchema>;
+
+/** The standard and clause the procedure implements, cited on its findings. */
+export const procedureSourceSchema = z.strictObject({
+  standard: z.string().trim().min(1).max(100),
+  clause: z.string().trim().min(1).max(100),
+});
+
+export type ProcedureSource = z.infer<typeof procedureSourceSchema>;
+
+/** The parts of an evaluation that are stored as JSON with the run. */
+export const storedRunEvaluationSchema = z.strictObject({
+  cellRating: cellRatingSchema,
+  stepRecords: z.array(stepRecordSchema).max(10_000),
+  /** The wall-clock time of the log's first sample (timeS = 0). */
+  logStartedAt: recordedTimeSchema.optional(),
+  procedureSource: procedureSourceSchema.optional(),
+  options: evaluationOptionsSchema.prefault({}),
+  evaluatedAgainst: evaluatedAgainstSchema.default({}),
+});
+
+export type StoredRunEvaluation = z.output<typeof storedRunEvaluationSchema>;
+
+export interface RunEvaluationInput {
+  /** The procedure version resolved against the run's cell specification (protocols' resolveProcedure). */
+  resolution: ProcedureResolution;
+  cellRating: CellRating;
+  stepRecords: readonly StepRecordInput[];
+  log?: LogColumns;
+  logStartedAt?: string;
+  procedureSource?: ProcedureSource;
+  options?: EvaluationOptionsInput;
+  evaluatedAgainst?: EvaluatedAgainst;
+}
+
+/** The input with its stored parts checked and defaults filled in. */
+export interface CheckedRunEvaluationInput extends StoredRunEvaluation {
+  resolution: ProcedureResolution;
+  stepRecords: StepRecord[];
+  log?: LogColumns;
+}
+
+export type RunEvaluationInputCheck = { ok: true; value: CheckedRunEvaluationInput } | { ok: false; problems: FieldProblem[] };
+
+/** Checks the stored parts of an evaluation input; each problem names its field path. */
+export function checkRunEvaluationInput(input: RunEvaluationInput): RunEvaluationInputCheck {
+  if (typeof input !== "object" || input === null) {
+    return { ok: false, problems: [{ path: "", message: "the evaluation input is an object" }] };
+  }
+  const problems: FieldProblem[] = [];
+  const resolution = input.resolution as Partial<ProcedureResolution> | undefined;
+  if (typeof resolution !== "object" || resolution === null || !Array.isArray(resolution.steps) || !Array.isArray(resolution.acceptance)) {
+    problems.push({ path: "resolution", message: "the resolution is the result of resolving the procedure version on the cell specification" });
+  }
+  const parsed = storedRunEvaluationSchema.safeParse({
+    cellRating: input.cellRating,
+    stepRecords: input.stepRecords,
+    logStartedAt: input.logStartedAt,
+    procedureSource: input.procedureSource,
+    options: input.options,
+    evaluatedAgainst: input.evaluatedAgainst,
+  });
+  if (!parsed.success) {
+    problems.push(...parsed.error.issues.map((issue) => ({ path: issue.path.map(String).join("."), message: issue.message })));
+  }
+  if (!parsed.success || problems.length > 0) return { ok: false, problems };
+  return {
+    ok: true,
+    value: { ...parsed.data, resolution: input.resolution, ...(input.log !== undefined && { log: input.log }) },
+  };
+}
