@@ -39,6 +39,11 @@ export default defineConfig({
     timeout: 60_000,
     stdout: "pipe",
     stderr: "pipe",
-    env: { DATABASE_URL: process.env.E2E_DATABASE_URL ?? "", NEXT_TELEMETRY_DISABLED: "1" },
+    env: {
+      DATABASE_URL: process.env.E2E_DATABASE_URL ?? "",
+      S3_ENDPOINT: process.env.S3_ENDPOINT ?? "",
+      S3_BUCKET: process.env.S3_BUCKET ?? "cellwright",
+      NEXT_TELEMETRY_DISABLED: "1",
+    },
   },
 });

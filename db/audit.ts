@@ -1,4 +1,5 @@
 import "server-only";
+import { sql } from "kysely";
 import type { Executor } from "./index";
 
 export interface AuditEntry {
@@ -61,6 +62,13 @@ export async function listAuditEvents(
     .leftJoin("app_user as subject", (j) =>
       j.onRef("subject.id", "=", "audit_event.entity_id").on("audit_event.entity_type", "=", "user"),
     )
+    .leftJoin("cell_specification as spec", (j) =>
+      j.on(sql`spec.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "cell-specification"),
+    )
+    .leftJoin("procedure_version as pv", (j) =>
+      j.on(sql`pv.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "procedure-version"),
+    )
+    .leftJoin("procedure as proc", "proc.id", "pv.procedure_id")
     .select([
       "audit_event.id",
       "audit_event.at",
@@ -72,7 +80,7 @@ export async function listAuditEvents(
       "audit_event.after",
       "audit_event.detail",
       "audit_event.address",
-      "subject.display_name as entity_label",
+      sql<string | null>`coalesce(subject.display_name, spec.maker || ' ' || spec.model, proc.code || ' version ' || pv.number)`.as("entity_label"),
     ])
     .orderBy("audit_event.id", "desc")
     .limit(filter.limit ?? 100);

@@ -8,6 +8,13 @@ const RAISED_EXCEPTION = "P0001";
 
 const UNIQUE_MESSAGES: Record<string, string> = {
   app_user_email_key: "A user with this e-mail address already exists.",
+  cell_specification_maker_model_key: "A specification for this maker and model already exists.",
+  procedure_code_key: "A procedure with this code already exists.",
+  procedure_version_one_open: "This procedure already has an open draft or review; continue with that one.",
+};
+
+const CHECK_MESSAGES: Record<string, string> = {
+  procedure_version_second_engineer: "A second engineer must release this version: not its author, not whoever submitted it.",
 };
 
 /** Turns a constraint error from pg into a DomainError with a plain message, or returns null. */
@@ -20,7 +27,7 @@ export function translateConstraintError(error: unknown): DomainError | null {
     case FOREIGN_KEY_VIOLATION:
       return new DomainError("conflict", "This record is still referenced by another record, or refers to one that does not exist.");
     case CHECK_VIOLATION:
-      return new DomainError("invalid", `A value breaks a rule of the database (${constraint ?? "check"}).`);
+      return new DomainError("invalid", CHECK_MESSAGES[constraint ?? ""] ?? `A value breaks a rule of the database (${constraint ?? "check"}).`);
     case RAISED_EXCEPTION:
       return new DomainError("conflict", message ?? "The database refused this change.");
     default:

@@ -9,6 +9,16 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "user.deactivate": "deactivated a user",
   "user.reactivate": "reactivated a user",
   "security.foreign-origin-refused": "refused a request from another site",
+  "spec.create": "added a cell specification",
+  "spec.edit": "changed a cell specification",
+  "spec.attach-datasheet": "attached a datasheet",
+  "procedure.create": "created a procedure",
+  "procedure.save-draft": "saved a procedure draft",
+  "procedure.submit": "submitted a procedure for review",
+  "procedure.return": "returned a procedure to draft",
+  "procedure.release": "released a procedure version",
+  "procedure.withdraw": "withdrew a procedure version",
+  "procedure.new-draft": "started a new procedure draft",
 };
 
 export function describeAuditAction(action: string): string {

@@ -59,9 +59,18 @@ stop() {
   fi
 }
 
+stop_s3_fake() {
+  s3_profile "$1"
+  if [ -f "$S3_PID_FILE" ] && kill -0 "$(cat "$S3_PID_FILE")" 2>/dev/null; then
+    kill -- -"$(cat "$S3_PID_FILE")" 2>/dev/null || kill "$(cat "$S3_PID_FILE")"
+    echo "S3 fake on port $S3_PORT stopped"
+  fi
+  rm -f "$S3_PID_FILE"
+}
+
 case "$cmd" in
   start) start ;;
-  stop) stop ;;
+  stop) stop; stop_s3_fake "${2:-demo}" ;;
   status) as_pg "$(pg_bin)/pg_ctl" -D "$PG_DATA" status ;;
   *) echo "usage: db.sh start|stop|status [demo|test]" >&2; exit 2 ;;
 esac

@@ -8,9 +8,10 @@ PORT="${PORT:-3000}"
 
 ensure_dependencies
 bash scripts/db.sh start demo
+start_s3_fake demo
 cw_profile demo
 log "migrating"; npx tsx scripts/migrate.ts
-log "seeding the demo lab"; npx tsx scripts/seed.ts
+log "seeding the demo lab"; npx tsx --conditions=react-server scripts/seed.ts
 
 # A previous demo still running would hold the port: stop its whole process group.
 if [ -f .data/app.pid ] && kill -0 "$(cat .data/app.pid)" 2>/dev/null; then
@@ -32,5 +33,5 @@ done
 curl -fs "http://localhost:$PORT/api/health" >/dev/null || { echo "the app did not start; see .data/app.log" >&2; tail -20 .data/app.log; exit 1; }
 
 npx tsx scripts/print-accounts.ts "http://localhost:$PORT"
-echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL keeps running: npm run db:stop)."
+echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL and the S3 fake keep running: npm run db:stop stops both)."
 wait

@@ -32,3 +32,29 @@ apt_install() {
   if [ "$APT_UPDATED" = 0 ]; then apt-get update -qq; APT_UPDATED=1; fi
   DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@"
 }
+
+# The local S3-compatible store: one per profile, started in the background, pid under .data/.
+s3_profile() {
+  case "${1:-demo}" in
+    demo) S3_PORT=54340; S3_DIR="$ROOT/.data/s3" ;;
+    test) S3_PORT=54341; S3_DIR="$ROOT/.data/s3-test" ;;
+  esac
+  export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET=cellwright S3_REGION=us-east-1
+  export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
+  S3_PID_FILE="$ROOT/.data/s3-${1:-demo}.pid"
+}
+
+start_s3_fake() {
+  s3_profile "$1"
+  mkdir -p "$S3_DIR"
+  if [ -f "$S3_PID_FILE" ] && kill -0 "$(cat "$S3_PID_FILE")" 2>/dev/null; then
+    echo "S3 fake already running on 127.0.0.1:$S3_PORT"; return 0
+  fi
+  setsid node "$ROOT/scripts/s3-fake.mjs" "$S3_PORT" "$S3_DIR" >"$ROOT/.data/s3-$1.log" 2>&1 &
+  echo $! >"$S3_PID_FILE"
+  for _ in $(seq 1 50); do
+    (exec 3<>"/dev/tcp/127.0.0.1/$S3_PORT") 2>/dev/null && { echo "S3 fake started on 127.0.0.1:$S3_PORT"; return 0; }
+    sleep 0.1
+  done
+  echo "the S3 fake did not start; see .data/s3-$1.log" >&2; cat "$ROOT/.data/s3-$1.log" >&2; return 1
+}

@@ -3,10 +3,13 @@ import { generateIdFromEntropySize } from "lucia";
 import { Kysely, PostgresDialect } from "kysely";
 import pg from "pg";
 import type { Database } from "../db/schema";
+import { closePool } from "../db/pool";
 import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
+import { seedLibrary } from "./seed-library";
 
 /**
- * Seeds the demo lab. Idempotent: existing users keep their passwords and roles, so running the
+ * Seeds the demo lab: its users, then its library of cell specifications and released procedures
+ * (through the same services the app uses, so the audit trail tells the story). Idempotent: existing users keep their passwords and roles, so running the
  * demo twice never undoes what someone changed in it.
  */
 export async function seedDemo(databaseUrl: string): Promise<{ created: string[] }> {
@@ -46,6 +49,8 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
   } finally {
     await db.destroy();
   }
+  created.push(...(await seedLibrary()));
+  await closePool();
   return { created };
 }
 

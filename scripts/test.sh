@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# `npm test`: installs what is missing, starts the test database (its own cluster and port), then
+# `npm test`: installs what is missing, starts the test database (its own cluster and port) and the
+# local S3 fake, then
 # typecheck, lint, unit + reference, integration and browser tests. Never touches demo data.
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
@@ -10,6 +11,9 @@ ensure_dependencies
 if [ ! -x /usr/bin/chromium ]; then log "installing Debian's chromium for browser tests"; apt_install chromium; fi
 
 bash scripts/db.sh start test
+start_s3_fake test
+# Leave nothing running behind: the test cluster and the S3 fake stop when the tests end.
+trap 'bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true' EXIT
 cw_profile test
 export TEST_DATABASE_URL="$DATABASE_URL"
 export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/cellwright_e2e"
@@ -29,7 +33,7 @@ npx vitest run --project integration --reporter=default --reporter=json --output
 log "browser tests: fresh e2e database, production build, Chromium"
 psql "postgres://postgres@127.0.0.1:$PG_PORT/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e"
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
-DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/seed.ts >/dev/null
+DATABASE_URL="$E2E_DATABASE_URL" npx tsx --conditions=react-server scripts/seed.ts >/dev/null
 npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next-build.log; exit 1; }
 PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json
 

@@ -1,0 +1,98 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import {
+  CreateBucketCommand,
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+} from "@aws-sdk/client-s3";
+
+/**
+ * The one way files (datasheets, data logs, certificates) are kept: an S3-compatible store. Locally
+ * that is the s3rver fake the scripts start on loopback; in production any S3 API.
+ */
+export interface StoredObject {
+  key: string;
+  sha256: string;
+  sizeBytes: number;
+}
+
+function config() {
+  const endpoint = process.env.S3_ENDPOINT;
+  if (!endpoint) throw new Error("S3_ENDPOINT is not set (the scripts in scripts/ set it)");
+  return {
+    endpoint,
+    bucket: process.env.S3_BUCKET ?? "cellwright",
+    region: process.env.S3_REGION ?? "us-east-1",
+    accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
+    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
+  };
+}
+
+const globalForS3 = globalThis as unknown as { cellwrightS3?: { client: S3Client; bucket: string; ready?: Promise<void> } };
+
+function getStore() {
+  if (!globalForS3.cellwrightS3) {
+    const c = config();
+    const client = new S3Client({
+      endpoint: c.endpoint,
+      region: c.region,
+      forcePathStyle: true,
+      credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey },
+    });
+    globalForS3.cellwrightS3 = { client, bucket: c.bucket };
+  }
+  const store = globalForS3.cellwrightS3;
+  store.ready ??= ensureBucket(store.client, store.bucket).catch((e: unknown) => {
+    store.ready = undefined;
+    throw e;
+  });
+  return store;
+}
+
+async function ensureBucket(client: S3Client, bucket: string): Promise<void> {
+  try {
+    await client.send(new HeadBucketCommand({ Bucket: bucket }));
+  } catch {
+    await client.send(new CreateBucketCommand({ Bucket: bucket }));
+  }
+}
+
+export function sha256Hex(bytes: Uint8Array): string {
+  return createHash("sha256").update(bytes).digest("hex");
+}
+
+export async function putObject(key: string, bytes: Uint8Array, contentType: string): Promise<StoredObject> {
+  const store = getStore();
+  await store.ready;
+  const sha256 = sha256Hex(bytes);
+  await store.client.send(
+    new PutObjectCommand({ Bucket: store.bucket, Key: key, Body: bytes, ContentType: contentType, Metadata: { sha256 } }),
+  );
+  return { key, sha256, sizeBytes: bytes.byteLength };
+}
+
+export async function getObjectBytes(key: string): Promise<Uint8Array> {
+  const store = getStore();
+  await store.ready;
+  const res = await store.client.send(new GetObjectCommand({ Bucket: store.bucket, Key: key }));
+  if (!res.Body) throw new Error(`stored file ${key} has no body`);
+  return res.Body.transformToByteArray();
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  const store = getStore();
+  await store.ready;
+  await store.client.send(new DeleteObjectCommand({ Bucket: store.bucket, Key: key }));
+}
+
+/** Keys under a prefix (e.g. everything stored for one record); used by checks and clean-up. */
+export async function listObjectKeys(prefix: string): Promise<string[]> {
+  const store = getStore();
+  await store.ready;
+  const res = await store.client.send(new ListObjectsV2Command({ Bucket: store.bucket, Prefix: prefix }));
+  return (res.Contents ?? []).map((o) => o.Key ?? "").filter(Boolean);
+}
