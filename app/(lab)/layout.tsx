@@ -1,6 +1,7 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { LabNav } from "@/components/nav/lab-nav";
+import { QueryProvider } from "@/components/providers/query-provider";
 import { getDb } from "@/db";
 import { getLab } from "@/db/lab";
 import { requirePageUser } from "@/lib/auth/guards";
@@ -46,7 +47,7 @@ export default async function LabLayout({ children }: { children: ReactNode }) {
         </div>
       </header>
       <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">
-        {children}
+        <QueryProvider>{children}</QueryProvider>
       </main>
       <footer className="border-t border-rule px-4 py-3 text-center text-xs text-ink-soft">
         Lithium cells can vent, burn or explode. Cellwright records and checks tests; it does not replace your

@@ -34,7 +34,11 @@ export async function openSession(email: string): Promise<string> {
 }
 
 export async function signInAs(context: BrowserContext, baseURL: string, role: Role): Promise<void> {
-  const sessionId = await openSession(demoUser(role).email);
+  await signInAsUser(context, baseURL, demoUser(role).email);
+}
+
+export async function signInAsUser(context: BrowserContext, baseURL: string, email: string): Promise<void> {
+  const sessionId = await openSession(email);
   await context.addCookies([{ name: SESSION_COOKIE, value: sessionId, url: baseURL, httpOnly: true, sameSite: "Lax" }]);
 }
 

@@ -1,74 +1,102 @@
-import { readdirSync, statSync } from "node:fs";
+import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { expect, test } from "@playwright/test";
+import pg from "pg";
 import { can, ROLES, type Role } from "../../lib/auth/permissions";
-import { ROUTE_ACCESS } from "../../lib/auth/route-access";
-import { openSession, demoUser, SESSION_COOKIE } from "./fixtures";
+import { ROUTE_ACCESS, type Access, type HttpMethod } from "../../lib/auth/route-access";
+import { demoUser, openSession, SESSION_COOKIE } from "./fixtures";
 
-/** Every page and route handler under app/, as URL patterns: route groups dropped. */
-function discoverRoutes(dir = path.join(process.cwd(), "app"), segments: string[] = []): { route: string; kind: "page" | "api" }[] {
-  const found: { route: string; kind: "page" | "api" }[] = [];
+type Found = { route: string; kind: "page" | "api"; methods: HttpMethod[] };
+
+/** Every page and route handler under app/, as URL patterns (route groups dropped), with its methods. */
+function discoverRoutes(dir = path.join(process.cwd(), "app"), segments: string[] = []): Found[] {
+  const found: Found[] = [];
   for (const entry of readdirSync(dir)) {
     const full = path.join(dir, entry);
     if (statSync(full).isDirectory()) {
       if (entry.startsWith("_")) continue;
       const next = entry.startsWith("(") && entry.endsWith(")") ? segments : [...segments, entry];
       found.push(...discoverRoutes(full, next));
-    } else if (entry === "page.tsx" || entry === "route.ts") {
-      found.push({ route: `/${segments.join("/")}`, kind: entry === "route.ts" ? "api" : "page" });
+    } else if (entry === "page.tsx") {
+      found.push({ route: `/${segments.join("/")}`, kind: "page", methods: ["GET"] });
+    } else if (entry === "route.ts") {
+      const source = readFileSync(full, "utf8");
+      const methods = (["GET", "POST", "PUT", "PATCH", "DELETE"] as const).filter((m) =>
+        new RegExp(`export (const|async function) ${m}\\b`).test(source),
+      );
+      found.push({ route: `/${segments.join("/")}`, kind: "api", methods: [...methods] });
     }
   }
   return found;
 }
 
-// Sample values for dynamic segments; a dynamic route without one fails the first test.
-const SAMPLE_PARAMS: Record<string, string> = {};
-
-function toUrl(route: string): string {
-  return route.replace(/\[([^\]]+)\]/g, (_, name: string) => {
-    const v = SAMPLE_PARAMS[name];
-    if (!v) throw new Error(`no sample value for [${name}] in ${route}`);
-    return v;
-  });
-}
-
 const routes = discoverRoutes();
 
+function accessOf(route: string, method: HttpMethod): Access | undefined {
+  const a = ROUTE_ACCESS[route];
+  return typeof a === "string" ? a : a?.[method];
+}
+
+/** Real records from the seeded e2e database, so dynamic routes answer for real. */
+async function sampleParams(): Promise<Record<string, string>> {
+  const c = new pg.Client({ connectionString: process.env.E2E_DATABASE_URL });
+  await c.connect();
+  try {
+    const proc = await c.query(`select p.id, v.number from procedure p join procedure_version v on v.procedure_id = p.id
+      where v.status = 'released' order by p.code limit 1`);
+    const spec = await c.query(`select id from cell_specification where datasheet_file_id is not null order by maker limit 1`);
+    return { procedure: proc.rows[0].id, n: String(proc.rows[0].number), spec: spec.rows[0].id };
+  } finally {
+    await c.end();
+  }
+}
+
+function toUrl(route: string, p: Record<string, string>): string {
+  return route
+    .replace("/procedures/[id]", `/procedures/${p.procedure}`)
+    .replace("/specs/[id]", `/specs/${p.spec}`)
+    .replace("[n]", p.n!)
+    .replace(/\[(\w+)\]/, (_, name: string) => {
+      throw new Error(`no sample value for [${name}] in ${route}: add one in route-matrix.spec.ts`);
+    });
+}
+
 test("every route on disk declares who may open it", () => {
-  const undeclared = routes.map((r) => r.route).filter((r) => !(r in ROUTE_ACCESS));
+  const undeclared = routes.flatMap((r) => r.methods.filter((m) => !accessOf(r.route, m)).map((m) => `${m} ${r.route}`));
   expect(undeclared, "add these to lib/auth/route-access.ts").toEqual([]);
   const stale = Object.keys(ROUTE_ACCESS).filter((r) => !routes.some((x) => x.route === r));
   expect(stale, "remove these from lib/auth/route-access.ts").toEqual([]);
 });
 
-function expectedStatus(route: string, kind: "page" | "api", role: Role | null): number | "redirect-to-sign-in" {
-  const access = ROUTE_ACCESS[route]!;
-  if (access === "public") return 200;
-  if (role === null) return kind === "api" ? 401 : "redirect-to-sign-in";
-  if (access === "signed-in" || can(role, access)) return 200;
+/** What a role should get: 200 when allowed (a POST with an empty body then fails validation: 422). */
+function expected(access: Access, kind: "page" | "api", method: HttpMethod, role: Role | null): number | "sign-in" {
+  const allowedStatus = method === "GET" ? 200 : 422;
+  if (access === "public") return allowedStatus;
+  if (role === null) return kind === "api" ? 401 : "sign-in";
+  if (access === "signed-in" || can(role, access)) return allowedStatus;
   return 403;
 }
 
 for (const role of [null, ...ROLES] as (Role | null)[]) {
   test(`route × role matrix: ${role ?? "signed out"}`, async ({ playwright, baseURL }) => {
-    const headers: Record<string, string> = {};
+    const params = await sampleParams();
+    const headers: Record<string, string> = { origin: baseURL! };
     if (role) headers.cookie = `${SESSION_COOKIE}=${await openSession(demoUser(role).email)}`;
     const api = await playwright.request.newContext({ baseURL, extraHTTPHeaders: headers, maxRedirects: 0 });
     const failures: string[] = [];
-    for (const { route, kind } of routes) {
-      const want = expectedStatus(route, kind, role);
-      const res = await api.get(toUrl(route));
-      // The sign-in page sends a signed-in person home.
-      if (route === "/sign-in" && role) {
-        if (res.status() !== 307) failures.push(`${route}: ${res.status()} (wanted a redirect home)`);
-        continue;
+    for (const { route, kind, methods } of routes) {
+      for (const method of methods) {
+        const url = toUrl(route, params);
+        const res = method === "GET" ? await api.get(url) : await api.fetch(url, { method, data: {} });
+        const got = res.status();
+        if (route === "/sign-in" && role) {
+          if (got !== 307) failures.push(`${route}: ${got} (wanted a redirect home)`);
+          continue;
+        }
+        const want = expected(accessOf(route, method)!, kind, method, role);
+        const ok = want === "sign-in" ? got === 307 && (res.headers().location ?? "").includes("/sign-in") : got === want;
+        if (!ok) failures.push(`${method} ${url}: got ${got}, wanted ${want}`);
       }
-      const got = res.status();
-      const ok =
-        want === "redirect-to-sign-in"
-          ? got === 307 && (res.headers().location ?? "").includes("/sign-in")
-          : got === want;
-      if (!ok) failures.push(`${route}: got ${got}, wanted ${want}`);
     }
     await api.dispose();
     expect(failures).toEqual([]);
@@ -77,8 +105,8 @@ for (const role of [null, ...ROLES] as (Role | null)[]) {
 
 test("a POST from another origin is refused before it reaches the app", async ({ playwright, baseURL }) => {
   const api = await playwright.request.newContext({ baseURL });
-  const cookie = `${SESSION_COOKIE}=${await openSession(demoUser("admin").email)}`;
-  const res = await api.post("/api/me", { headers: { origin: "http://evil.example", cookie } });
+  const cookie = `${SESSION_COOKIE}=${await openSession(demoUser("engineer").email)}`;
+  const res = await api.post("/api/procedures", { headers: { origin: "http://evil.example", cookie }, data: {} });
   expect(res.status()).toBe(403);
   expect((await res.json()).error.code).toBe("foreign-origin");
   await api.dispose();

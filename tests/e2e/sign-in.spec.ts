@@ -3,10 +3,10 @@ import { DEMO_USERS } from "../../scripts/demo-scenario";
 
 // Only this spec signs in through the form; the others start with a session (fixtures.ts).
 const NAV: Record<string, string[]> = {
-  admin: ["Home", "Audit trail", "Users"],
-  engineer: ["Home"],
-  operator: ["Home"],
-  auditor: ["Home", "Audit trail"],
+  admin: ["Home", "Procedures", "Cell specifications", "Audit trail", "Users"],
+  engineer: ["Home", "Procedures", "Cell specifications"],
+  operator: ["Home", "Procedures", "Cell specifications"],
+  auditor: ["Home", "Procedures", "Cell specifications", "Audit trail"],
 };
 
 for (const user of DEMO_USERS.filter((u, i, all) => all.findIndex((x) => x.role === u.role) === i)) {

@@ -1,16 +1,15 @@
 "use client";
 
-import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { initialActionState } from "@/lib/forms/action-state";
+import { useFormAction } from "@/components/ui/use-form-action";
 import { signInAction } from "./actions";
 
 export function SignInForm({ next }: { next?: string }) {
-  const [state, action, pending] = useActionState(signInAction, initialActionState);
+  const { state, onSubmit, pending } = useFormAction(signInAction);
   return (
-    <form action={action} className="flex flex-col gap-4" noValidate>
+    <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       {state.message && (
         <Notice tone="problem" role="alert" title="Not signed in">
           {state.message}

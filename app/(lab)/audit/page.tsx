@@ -34,6 +34,8 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             <option value="auth.">sign-in and sign-out</option>
             <option value="user.">user changes</option>
             <option value="security.">refused requests</option>
+            <option value="procedure.">procedures</option>
+            <option value="spec.">cell specifications</option>
             {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
               <option key={code} value={code}>
                 only: {label}

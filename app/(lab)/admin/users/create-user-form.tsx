@@ -1,21 +1,21 @@
 "use client";
 
-import { useActionState, useEffect, useRef } from "react";
+import { useEffect, useRef } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, ROLES } from "@/lib/auth/permissions";
-import { initialActionState } from "@/lib/forms/action-state";
+import { useFormAction } from "@/components/ui/use-form-action";
 import { createUserAction } from "./actions";
 
 export function CreateUserForm() {
-  const [state, action, pending] = useActionState(createUserAction, initialActionState);
+  const { state, onSubmit, pending } = useFormAction(createUserAction);
   const formRef = useRef<HTMLFormElement>(null);
   useEffect(() => {
     if (state.ok) formRef.current?.reset();
   }, [state]);
   return (
-    <form ref={formRef} action={action} className="grid gap-3 sm:grid-cols-2" aria-label="Add a person" noValidate>
+    <form ref={formRef} onSubmit={onSubmit} className="grid gap-3 sm:grid-cols-2" aria-label="Add a person" noValidate>
       {state.message && (
         <div className="sm:col-span-2">
           <Notice tone={state.ok ? "done" : "problem"} role={state.ok ? "status" : "alert"}>

@@ -1,0 +1,98 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { z } from "zod";
+import { StatusBadge } from "@/components/procedures/status-badge";
+import { PageHeader } from "@/components/ui/page-header";
+import { getDb } from "@/db";
+import { listProcedures } from "@/db/procedures";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+
+export const metadata: Metadata = { title: "Procedures" };
+
+const searchSchema = z.object({
+  q: z.string().trim().max(100).optional().catch(undefined),
+  status: z.enum(["draft", "in_review", "released", "withdrawn"]).optional().catch(undefined),
+});
+
+export default async function ProceduresPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await requirePagePermission("procedure.read");
+  const { q, status } = searchSchema.parse(await searchParams);
+  const author = can(user.role, "procedure.author");
+  const procedures = await listProcedures(getDb(), { q: q || undefined, status: author ? status : undefined, releasedOnly: !author });
+  return (
+    <>
+      <PageHeader
+        title="Procedures"
+        lead={
+          author
+            ? "Typed step lists written from a clause of a standard. A version is released only after a second engineer approves it, and never changes afterwards."
+            : "The released procedures the lab runs. They are read-only here; ask a quality engineer for changes."
+        }
+        actions={
+          author && (
+            <Link href="/procedures/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+              New procedure
+            </Link>
+          )
+        }
+      />
+      <form className="mb-4 flex flex-wrap items-end gap-2" role="search">
+        <label className="flex flex-col text-sm">
+          Code, title or standard
+          <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
+        </label>
+        {author && (
+          <label className="flex flex-col text-sm">
+            Newest version is
+            <select name="status" defaultValue={status ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
+              <option value="">any status</option>
+              <option value="draft">a draft</option>
+              <option value="in_review">in review</option>
+              <option value="released">released</option>
+              <option value="withdrawn">withdrawn</option>
+            </select>
+          </label>
+        )}
+        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+          Show
+        </button>
+      </form>
+      <div className="overflow-x-auto">
+        <table className="w-full border-collapse text-sm">
+          <thead>
+            <tr className="border-b border-rule text-left">
+              <th className="py-2 pr-3">Code</th>
+              <th className="py-2 pr-3">Title</th>
+              <th className="py-2 pr-3">Standard, clause</th>
+              <th className="py-2 pr-3">Released version</th>
+              {author && <th className="py-2 pr-3">Newest version</th>}
+            </tr>
+          </thead>
+          <tbody>
+            {procedures.map((p) => (
+              <tr key={p.id} className="border-b border-rule">
+                <td className="py-2 pr-3 font-mono">{p.code}</td>
+                <td className="py-2 pr-3">
+                  <Link href={`/procedures/${p.id}`} className="font-medium text-copper-deep underline">
+                    {p.title}
+                  </Link>
+                </td>
+                <td className="py-2 pr-3">
+                  {p.standard} {p.clause}
+                </td>
+                <td className="figures py-2 pr-3">{p.releasedNumber ? `version ${p.releasedNumber}` : "none yet"}</td>
+                {author && (
+                  <td className="py-2 pr-3">
+                    version {p.latestNumber} <StatusBadge status={p.latestStatus} />
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {procedures.length === 0 && <p className="py-6 text-ink-soft">No procedures match.</p>}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,128 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { StatusBadge } from "@/components/procedures/status-badge";
+import { VersionActionForm } from "@/components/procedures/version-actions";
+import { PageHeader } from "@/components/ui/page-header";
+import { getDb } from "@/db";
+import { listProcedureVersions, type ProcedureVersionView } from "@/db/procedures";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import type { SignedInUser } from "@/lib/auth/signed-in-user";
+import { canSeeVersion } from "@/lib/procedures/read-access";
+import { releaseAction, returnToDraftAction, startNewDraftAction, submitForReviewAction, withdrawAction } from "../actions";
+
+export const metadata: Metadata = { title: "Procedure" };
+
+const fmt = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
+
+export default async function ProcedurePage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePagePermission("procedure.read");
+  const id = z.uuid().safeParse((await params).id);
+  if (!id.success) notFound();
+  const versions = (await listProcedureVersions(getDb(), id.data)).filter((v) => canSeeVersion(user, v.status));
+  const newest = versions[0];
+  if (!newest) notFound();
+  const hasOpen = versions.some((v) => v.status === "draft" || v.status === "in_review");
+  return (
+    <>
+      <PageHeader
+        title={newest.title}
+        lead={
+          <>
+            <span className="font-mono">{newest.code}</span> · {newest.definition.header.standard}, clause {newest.definition.header.clause}
+          </>
+        }
+      />
+      <h2 className="mb-2 text-lg font-bold">Versions</h2>
+      <ol className="flex flex-col gap-3">
+        {versions.map((v) => (
+          <li key={v.id} className="rounded border border-rule bg-paper p-4" data-testid={`version-${v.number}`}>
+            <div className="flex flex-wrap items-baseline gap-3">
+              <Link href={`/procedures/${v.procedureId}/versions/${v.number}`} className="font-serif text-lg font-bold text-copper-deep underline">
+                Version {v.number}
+              </Link>
+              <StatusBadge status={v.status} />
+              <span className="text-sm text-ink-soft">{v.title}</span>
+            </div>
+            <VersionHistory v={v} />
+            {can(user.role, "procedure.author") && <LifecycleControls user={user} v={v} hasOpen={hasOpen} />}
+          </li>
+        ))}
+      </ol>
+      {versions.length > 1 && (
+        <form action={`/procedures/${newest.procedureId}/compare`} className="mt-6 flex flex-wrap items-end gap-2">
+          <h2 className="w-full text-lg font-bold">Compare two versions</h2>
+          <VersionSelect name="a" label="Earlier" versions={versions} defaultValue={versions[1]!.number} />
+          <VersionSelect name="b" label="Later" versions={versions} defaultValue={versions[0]!.number} />
+          <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+            Compare
+          </button>
+        </form>
+      )}
+    </>
+  );
+}
+
+function VersionHistory({ v }: { v: ProcedureVersionView }) {
+  return (
+    <ul className="mt-1 text-sm text-ink-soft">
+      <li>Written by {v.author.name}, last saved {fmt(v.updatedAt)} UTC</li>
+      {v.submittedBy && <li>Submitted for review by {v.submittedBy.name}, {fmt(v.submittedBy.at)} UTC</li>}
+      {v.releasedBy && <li>Released by {v.releasedBy.name}, {fmt(v.releasedBy.at)} UTC</li>}
+      {v.withdrawn && (
+        <li>
+          Withdrawn by {v.withdrawn.by}, {fmt(v.withdrawn.at)} UTC: {v.withdrawn.reason}
+        </li>
+      )}
+    </ul>
+  );
+}
+
+function LifecycleControls({ user, v, hasOpen }: { user: SignedInUser; v: ProcedureVersionView; hasOpen: boolean }) {
+  const wroteIt = v.author.id === user.id || v.submittedBy?.id === user.id;
+  return (
+    <div className="mt-3 flex flex-wrap gap-3">
+      {v.status === "draft" && (
+        <>
+          <Link href={`/procedures/${v.procedureId}/versions/${v.number}/edit`} className="self-start rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper">
+            Edit draft
+          </Link>
+          <VersionActionForm action={submitForReviewAction} versionId={v.id} label="Submit for review" />
+        </>
+      )}
+      {v.status === "in_review" && (
+        <>
+          {wroteIt ? (
+            <p className="text-sm text-ink-soft">Waiting for a second engineer: you cannot release a version you wrote or submitted.</p>
+          ) : (
+            <VersionActionForm action={releaseAction} versionId={v.id} label={`Release version ${v.number}`} variant="primary" />
+          )}
+          <VersionActionForm action={returnToDraftAction} versionId={v.id} label="Return to draft" reasonLabel="Comment for the author" />
+        </>
+      )}
+      {v.status === "released" && (
+        <>
+          {!hasOpen && <VersionActionForm action={startNewDraftAction} versionId={v.id} label="Start a new draft from this version" />}
+          <VersionActionForm action={withdrawAction} versionId={v.id} label="Withdraw" variant="danger" reasonLabel="Reason for withdrawal" />
+        </>
+      )}
+    </div>
+  );
+}
+
+function VersionSelect({ name, label, versions, defaultValue }: { name: string; label: string; versions: ProcedureVersionView[]; defaultValue: number }) {
+  return (
+    <label className="flex flex-col text-sm">
+      {label}
+      <select name={name} defaultValue={defaultValue} className="rounded border border-rule bg-white px-2 py-1.5">
+        {versions.map((v) => (
+          <option key={v.id} value={v.number}>
+            version {v.number} ({v.status.replace("_", " ")})
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}

@@ -1,0 +1,7 @@
+export default function Loading() {
+  return (
+    <p className="text-ink-soft" role="status">
+      Loading the templates…
+    </p>
+  );
+}

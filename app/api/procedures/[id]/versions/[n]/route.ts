@@ -1,0 +1,13 @@
+import { getDb } from "@/db";
+import { getProcedureVersion } from "@/db/procedures";
+import { apiRoute } from "@/lib/auth/guards";
+import { DomainError } from "@/lib/errors";
+import { canSeeVersion } from "@/lib/procedures/read-access";
+import { versionParamsSchema } from "@/lib/procedures/version-params";
+
+export const GET = apiRoute<{ id: string; n: string }>("procedure.read", async (_req, { user, params }) => {
+  const { id, n } = versionParamsSchema.parse(params);
+  const version = await getProcedureVersion(getDb(), id, n);
+  if (!version || !canSeeVersion(user, version.status)) throw new DomainError("not-found", "No such procedure version.");
+  return Response.json({ version });
+});

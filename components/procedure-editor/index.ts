@@ -1,0 +1,2 @@
+export { ProcedureEditor } from "./procedure-editor";
+export type { SaveDraftRequest } from "./save-draft-request";

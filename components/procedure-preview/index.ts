@@ -1,0 +1,2 @@
+export { ProcedurePreview } from "./procedure-preview";
+export type { PreviewSource } from "./use-resolution";
