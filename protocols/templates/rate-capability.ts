@@ -5,11 +5,12 @@ import type { CurrentReference } from '../quantity';
 import type { Step } from '../step';
 import { notePractice, noteRecalled } from './template-notes';
 
-const rates: ReadonlyArray<{ key: string; words: string; current: CurrentReference }> = [
-  { key: '02it', words: '0.2 It', current: { multipleOfIt: 0.2 } },
-  { key: '05it', words: '0.5 It', current: { multipleOfIt: 0.5 } },
-  { key: '1it', words: '1 It', current: { multipleOfIt: 1 } },
-  { key: 'max', words: 'the maximum continuous current', current: { spec: 'maxContinuousDischargeCurrent' } },
+// `words` follows "the … discharge"; `at` follows "Discharge at …".
+const rates: ReadonlyArray<{ key: string; words: string; at: string; current: CurrentReference }> = [
+  { key: '02it', words: '0.2 It', at: '0.2 It', current: { multipleOfIt: 0.2 } },
+  { key: '05it', words: '0.5 It', at: '0.5 It', current: { multipleOfIt: 0.5 } },
+  { key: '1it', words: '1 It', at: '1 It', current: { multipleOfIt: 1 } },
+  { key: 'max', words: 'maximum continuous current', at: 'the maximum continuous current', current: { spec: 'maxContinuousDischargeCurrent' } },
 ];
 
 function buildCycle(rate: (typeof rates)[number], isLast: boolean): Step[] {
@@ -31,7 +32,7 @@ function buildCycle(rate: (typeof rates)[number], isLast: boolean): Step[] {
     {
       kind: 'discharge',
       id: `discharge-${rate.key}`,
-      label: `Discharge at ${rate.words}`,
+      label: `Discharge at ${rate.at}`,
       purpose: 'measure',
       current: rate.current,
       endVoltage: { spec: 'endOfDischargeVoltage' },
