@@ -5,3 +5,10 @@ source "$(dirname "$0")/env.sh"
 cd "$ROOT"
 ensure_dependencies
 log "sign-in cost"; npx tsx scripts/bench/auth.ts
+
+# The log benchmark gets its own cluster so it never touches demo or test data.
+bash scripts/db.sh start bench
+cw_profile bench
+log "2-million-row log: ingest, store, evaluate, read back"
+npx tsx scripts/bench/log-ingest.ts --make
+node --import tsx scripts/bench/log-ingest.ts

@@ -36,7 +36,7 @@ start() {
     echo "PostgreSQL already running on 127.0.0.1:$PG_PORT"
   else
     local extra=""
-    # The test cluster trades durability for speed; the demo keeps fsync on.
+    # The test cluster trades durability for speed; the demo and the benchmark keep fsync on.
     [ "$PG_DB" = cellwright_test ] && extra="-c fsync=off -c synchronous_commit=off -c full_page_writes=off"
     as_pg "$bin/pg_ctl" -D "$PG_DATA" -l "$PG_DATA/server.log" -w -t 30 \
       -o "-c listen_addresses=127.0.0.1 -p $PG_PORT -k $PG_SOCK $extra" start >/dev/null

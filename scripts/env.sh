@@ -7,7 +7,8 @@ cw_profile() {
   case "${1:-demo}" in
     demo) PG_PORT=54329; PG_DATA="$ROOT/.data/pg"; PG_SOCK="$ROOT/.data/pgsock"; PG_DB=cellwright ;;
     test) PG_PORT=54339; PG_DATA="$ROOT/.data/pg-test"; PG_SOCK="$ROOT/.data/pgsock-test"; PG_DB=cellwright_test ;;
-    *) echo "unknown profile: $1 (demo|test)" >&2; return 2 ;;
+    bench) PG_PORT=54349; PG_DATA="$ROOT/.data/pg-bench"; PG_SOCK="$ROOT/.data/pgsock-bench"; PG_DB=cellwright_bench ;;
+    *) echo "unknown profile: $1 (demo|test|bench)" >&2; return 2 ;;
   esac
   export PG_PORT PG_DATA PG_SOCK PG_DB
   export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/$PG_DB"
