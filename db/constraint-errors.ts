@@ -11,10 +11,16 @@ const UNIQUE_MESSAGES: Record<string, string> = {
   cell_specification_maker_model_key: "A specification for this maker and model already exists.",
   procedure_code_key: "A procedure with this code already exists.",
   procedure_version_one_open: "This procedure already has an open draft or review; continue with that one.",
+  instrument_identifier_key: "An instrument with this identifier is already registered.",
+  lot_identifier_key: "A lot with this identifier is already registered.",
+  specimen_identifier_key: "A specimen with this identifier is already registered.",
 };
 
 const CHECK_MESSAGES: Record<string, string> = {
   procedure_version_second_engineer: "A second engineer must release this version: not its author, not whoever submitted it.",
+  instrument_kind_known: "Choose a kind of instrument from the list.",
+  instrument_due_after_calibration: "The calibration due date must be after the calibration date.",
+  lot_quantity_received_positive: "The quantity received must be at least one cell.",
 };
 
 /** Turns a constraint error from pg into a DomainError with a plain message, or returns null. */

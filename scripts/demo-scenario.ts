@@ -86,3 +86,88 @@ export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: imp
     },
   },
 ];
+
+/**
+ * The demo lab's instruments: two channels of one invented cycler, a climate chamber and a balance.
+ * Dates are counted from the day of seeding, so none is overdue (runs can start) and CY1-CH02 falls
+ * due within 30 days. Accuracy figures are invented, of the order such instruments state.
+ */
+export const DEMO_INSTRUMENTS: {
+  kind: import("../db/schema").InstrumentKind;
+  identifier: string;
+  serial: string;
+  firmware: string | null;
+  accuracy: import("../lib/instruments/accuracy").AccuracySpecification;
+  calibrationCertificate: string;
+  dueInDays: number;
+}[] = [
+  {
+    kind: "cycler-channel",
+    identifier: "CY1-CH01",
+    serial: "TQ16-20417-01",
+    firmware: "3.8.2",
+    accuracy: {
+      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
+      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
+      time: { ppm: 50 },
+    },
+    calibrationCertificate: "MCL-26-1184",
+    dueInDays: 140,
+  },
+  {
+    kind: "cycler-channel",
+    identifier: "CY1-CH02",
+    serial: "TQ16-20417-02",
+    firmware: "3.8.2",
+    accuracy: {
+      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
+      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
+      time: { ppm: 50 },
+    },
+    calibrationCertificate: "MCL-25-0977",
+    dueInDays: 21,
+  },
+  {
+    kind: "climate-chamber",
+    identifier: "CC-01",
+    serial: "VK-340-1172",
+    firmware: "2.1",
+    accuracy: { temperature: { halfWidth: 0.5 } },
+    calibrationCertificate: "MCL-26-1190",
+    dueInDays: 200,
+  },
+  {
+    kind: "balance",
+    identifier: "BAL-01",
+    serial: "OB-220-55810",
+    firmware: null,
+    accuracy: { mass: { halfWidth: 0.005 } },
+    calibrationCertificate: "MCL-26-1021",
+    dueInDays: 95,
+  },
+];
+
+/** Instruments are calibrated once a year in the demo lab. */
+export const DEMO_CALIBRATION_INTERVAL_DAYS = 365;
+
+const AS_RECEIVED = "as received: sleeve intact, no dents, no leakage";
+
+/** One invented lot of the Korvel cell from an invented supplier, six cells drawn from it for testing. */
+export const DEMO_LOT = {
+  identifier: "KV48-2611-A",
+  specification: { maker: "Korvel Energy", model: "KV-21N48" },
+  supplier: "Ashgrove Cell Supply",
+  quantityReceived: 240,
+  receivedDaysAgo: 9,
+  notes: "Six cells drawn at random from the delivery for the rated-capacity test.",
+  specimens: ["001", "002", "003", "004", "005", "006"].map((n) => ({
+    identifier: `KV48-2611-A-${n}`,
+    conditionOnReceipt: n === "004" ? "sleeve scuffed; can undamaged" : AS_RECEIVED,
+  })),
+};
+
+/** Two loose specimens of another cell: engineering samples without lot papers. */
+export const DEMO_LOOSE_SPECIMENS = [
+  { identifier: "HV30-ENG-01", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
+  { identifier: "HV30-ENG-02", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
+].map((s) => ({ ...s, notes: "Engineering samples sent by the maker without lot papers." }));

@@ -1,0 +1,100 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { z } from "zod";
+import { InstrumentRow } from "@/components/instruments/instrument-row";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/page-header";
+import { getDb } from "@/db";
+import { listInstruments } from "@/db/instruments";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import { DUE_SOON_DAYS } from "@/lib/instruments/calibration-status";
+import { INSTRUMENT_KIND_LABELS, INSTRUMENT_KINDS } from "@/lib/instruments/instrument-kind";
+import { readLabToday } from "@/lib/instruments/lab-today";
+import { rankInstruments } from "@/lib/instruments/rank-instruments";
+import { setInstrumentInUseAction } from "../actions";
+
+export const metadata: Metadata = { title: "Instruments" };
+
+const searchSchema = z.object({
+  kind: z.enum(INSTRUMENT_KINDS).optional().catch(undefined),
+  inuse: z.literal("1").optional().catch(undefined),
+});
+
+export default async function InstrumentsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await requirePagePermission("run.read");
+  const { kind, inuse } = searchSchema.parse(await searchParams);
+  const today = readLabToday();
+  const instruments = rankInstruments(await listInstruments(getDb(), { kind, inUseOnly: inuse === "1" }), today);
+  const manage = can(user.role, "instrument.manage");
+  const inUse = instruments.filter((i) => i.active);
+  const overdue = inUse.filter((i) => i.status === "overdue");
+  const dueSoon = inUse.filter((i) => i.status === "due soon");
+  return (
+    <>
+      <PageHeader
+        title="Instruments"
+        lead={`Cycler channels, thermometers, climate chambers, balances and resistance meters with their calibration, those in use first. A run cannot start on an instrument that is overdue or out of use. Calibration dates are read against today, ${today}.`}
+        actions={
+          manage && (
+            <Link href="/instruments/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+              Register an instrument
+            </Link>
+          )
+        }
+      />
+      <div className="mb-4 flex flex-col gap-3">
+        {overdue.length > 0 && (
+          <Notice tone="problem" title={`Overdue for calibration: ${overdue.length}`}>
+            No run can start on {overdue.map((i) => i.identifier).join(", ")} until it is recalibrated.
+          </Notice>
+        )}
+        {dueSoon.length > 0 && (
+          <Notice tone="caution" title={`Falls due within ${DUE_SOON_DAYS} days: ${dueSoon.length}`}>
+            {dueSoon.map((i) => `${i.identifier} (due on ${i.dueOn})`).join(", ")}. Book the recalibration.
+          </Notice>
+        )}
+      </div>
+      <form className="mb-4 flex flex-wrap items-end gap-3" role="search">
+        <label className="flex flex-col text-sm">
+          Kind
+          <select name="kind" defaultValue={kind ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
+            <option value="">every kind</option>
+            {INSTRUMENT_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {INSTRUMENT_KIND_LABELS[k]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 py-1.5 text-sm">
+          <input type="checkbox" name="inuse" value="1" defaultChecked={inuse === "1"} />
+          Only instruments in use
+        </label>
+        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+          Show
+        </button>
+      </form>
+      <div className="overflow-x-auto">
+        <table className="figures w-full border-collapse text-sm">
+          <thead>
+            <tr className="border-b border-rule text-left">
+              <th className="py-2 pr-3">Calibration</th>
+              <th className="py-2 pr-3">Instrument</th>
+              <th className="py-2 pr-3">Accuracy</th>
+              <th className="py-2 pr-3">Certificate, calibrated on</th>
+              <th className="py-2 pr-3">Due on</th>
+              {manage && <th className="py-2">Change</th>}
+            </tr>
+          </thead>
+          <tbody>
+            {instruments.map((i) => (
+              <InstrumentRow key={i.id} instrument={i} inUseAction={manage ? setInstrumentInUseAction : null} />
+            ))}
+          </tbody>
+        </table>
+        {instruments.length === 0 && <p className="py-6 text-ink-soft">No instruments match.</p>}
+      </div>
+    </>
+  );
+}

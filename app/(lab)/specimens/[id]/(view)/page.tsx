@@ -1,0 +1,59 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { PageHeader } from "@/components/ui/page-header";
+import { getDb } from "@/db";
+import { getSpecimen } from "@/db/specimens";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+
+export const metadata: Metadata = { title: "Specimen" };
+
+export default async function SpecimenPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePagePermission("run.read");
+  const id = z.uuid().safeParse((await params).id);
+  const specimen = id.success ? await getSpecimen(getDb(), id.data) : null;
+  if (!specimen) notFound();
+  const { specification: spec, lot } = specimen;
+  return (
+    <>
+      <PageHeader
+        title={`Specimen ${specimen.identifier}`}
+        lead={`${spec.maker} ${spec.model}, received on ${specimen.receivedOn}`}
+        actions={
+          can(user.role, "specimen.manage") && (
+            <Link href={`/specimens/${specimen.id}/edit`} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+              Edit specimen
+            </Link>
+          )
+        }
+      />
+      <dl className="grid max-w-3xl gap-x-6 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
+        <dt className="border-b border-rule py-1 text-ink-soft">Cell specification</dt>
+        <dd className="border-b border-rule py-1">
+          <Link href={`/specs/${spec.id}`} className="text-copper-deep underline">
+            {spec.maker} {spec.model}
+          </Link>{" "}
+          <span className="font-mono text-xs">{spec.designation}</span>
+        </dd>
+        <dt className="border-b border-rule py-1 text-ink-soft">Lot</dt>
+        <dd className="border-b border-rule py-1">
+          {lot ? (
+            <Link href={`/lots/${lot.id}`} className="text-copper-deep underline">
+              {lot.identifier}
+            </Link>
+          ) : (
+            "none: a loose specimen"
+          )}
+        </dd>
+        <dt className="border-b border-rule py-1 text-ink-soft">Received on</dt>
+        <dd className="figures border-b border-rule py-1">{specimen.receivedOn}</dd>
+        <dt className="border-b border-rule py-1 text-ink-soft">Condition on receipt</dt>
+        <dd className="border-b border-rule py-1">{specimen.conditionOnReceipt}</dd>
+        <dt className="py-1 text-ink-soft">Notes</dt>
+        <dd className="py-1 whitespace-pre-line">{specimen.notes ?? "none"}</dd>
+      </dl>
+    </>
+  );
+}

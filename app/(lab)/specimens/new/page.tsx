@@ -1,0 +1,28 @@
+import type { Metadata } from "next";
+import { z } from "zod";
+import { SpecimenForm } from "@/components/specimens/specimen-form";
+import { PageHeader } from "@/components/ui/page-header";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { loadLotOptions, loadSpecificationOptions } from "@/lib/specimens/form-options";
+import { saveSpecimenAction } from "../actions";
+
+export const metadata: Metadata = { title: "Register a specimen" };
+
+/** `?lot=<id>` (from a lot's page) starts the form in that lot. */
+export default async function NewSpecimenPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  await requirePagePermission("specimen.manage");
+  const lotId = z.uuid().optional().catch(undefined).parse((await searchParams).lot);
+  const [specifications, lots] = await Promise.all([loadSpecificationOptions(), loadLotOptions()]);
+  const lot = lots.find((l) => l.id === lotId);
+  return (
+    <>
+      <PageHeader title="Register a specimen" lead="One cell as it arrived. A specimen of a lot is always of the lot's cell specification." />
+      <SpecimenForm
+        action={saveSpecimenAction}
+        specifications={specifications}
+        lots={lots}
+        initial={lot ? { lotId: lot.id, cellSpecificationId: lot.cellSpecificationId, receivedOn: lot.receivedOn } : undefined}
+      />
+    </>
+  );
+}

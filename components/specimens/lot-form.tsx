@@ -1,0 +1,62 @@
+"use client";
+
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { useFormAction } from "@/components/ui/use-form-action";
+import type { ActionState } from "@/lib/forms/action-state";
+import { SpecificationSelect, type SpecificationOption } from "./specification-select";
+
+type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
+
+export interface LotFormValues {
+  id: string;
+  identifier: string;
+  cellSpecificationId: string;
+  supplier: string;
+  quantityReceived: number;
+  receivedOn: string;
+  notes: string | null;
+}
+
+/** A lot as received: what cells, from whom, how many, when. */
+export function LotForm({ action, specifications, initial }: { action: Action; specifications: SpecificationOption[]; initial?: LotFormValues }) {
+  const { state, onSubmit, pending } = useFormAction(action);
+  const err = (k: string) => state.fieldErrors?.[k];
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Lot" className="flex max-w-3xl flex-col gap-5">
+      {state.message && !state.ok && (
+        <Notice tone="problem" role="alert" title="Not saved">
+          {state.message}
+        </Notice>
+      )}
+      {initial && <input type="hidden" name="id" value={initial.id} />}
+      <div className="grid gap-3 sm:grid-cols-2">
+        <Field label="Lot identifier" name="identifier" defaultValue={initial?.identifier} errors={err("identifier")} hint="As on the delivery note or the box label." />
+        <SpecificationSelect specifications={specifications} defaultValue={initial?.cellSpecificationId} errors={err("cellSpecificationId")} />
+        <Field label="Supplier" name="supplier" defaultValue={initial?.supplier} errors={err("supplier")} />
+        <Field
+          label="Quantity received (cells)"
+          name="quantityReceived"
+          inputMode="numeric"
+          defaultValue={initial?.quantityReceived.toString()}
+          errors={err("quantityReceived")}
+        />
+        <Field label="Received on" name="receivedOn" type="date" defaultValue={initial?.receivedOn} errors={err("receivedOn")} />
+      </div>
+      <Field label="Notes, optional" name="notes" errors={err("notes")}>
+        <textarea
+          id="field-notes"
+          name="notes"
+          rows={3}
+          defaultValue={initial?.notes ?? ""}
+          aria-describedby="field-notes-error"
+          className="rounded border border-rule bg-white px-2 py-1.5"
+        />
+      </Field>
+      <Button type="submit" disabled={pending} className="self-start">
+        {pending ? "Saving…" : "Save lot"}
+      </Button>
+    </form>
+  );
+}

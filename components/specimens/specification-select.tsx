@@ -1,0 +1,43 @@
+import type { ChangeEvent } from "react";
+import { Field } from "@/components/ui/field";
+
+export interface SpecificationOption {
+  id: string;
+  label: string;
+}
+
+/** The cell specification a lot or a specimen is of. Controlled when `value` is given. */
+export function SpecificationSelect({
+  specifications,
+  defaultValue,
+  value,
+  onChange,
+  errors,
+}: {
+  specifications: SpecificationOption[];
+  defaultValue?: string;
+  value?: string;
+  onChange?: (id: string) => void;
+  errors?: string[];
+}) {
+  const controlled = value !== undefined ? { value, onChange: (e: ChangeEvent<HTMLSelectElement>) => onChange?.(e.target.value) } : { defaultValue: defaultValue ?? "" };
+  return (
+    <Field label="Cell specification" name="cellSpecificationId" errors={errors}>
+      <select
+        id="field-cellSpecificationId"
+        name="cellSpecificationId"
+        aria-describedby="field-cellSpecificationId-error"
+        aria-invalid={errors?.length ? true : undefined}
+        className="rounded border border-rule bg-white px-2 py-1.5"
+        {...controlled}
+      >
+        <option value="">choose…</option>
+        {specifications.map((s) => (
+          <option key={s.id} value={s.id}>
+            {s.label}
+          </option>
+        ))}
+      </select>
+    </Field>
+  );
+}

@@ -1,0 +1,119 @@
+"use client";
+
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { useFormAction } from "@/components/ui/use-form-action";
+import type { ActionState } from "@/lib/forms/action-state";
+import { SpecificationSelect, type SpecificationOption } from "./specification-select";
+
+type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
+
+export interface LotOption {
+  id: string;
+  label: string;
+  cellSpecificationId: string;
+  receivedOn: string;
+}
+
+export interface SpecimenFormValues {
+  id?: string;
+  identifier?: string;
+  cellSpecificationId: string;
+  lotId: string | null;
+  receivedOn: string;
+  conditionOnReceipt?: string;
+  notes?: string | null;
+}
+
+const CONDITIONS = [
+  "as received: sleeve intact, no dents, no leakage",
+  "sleeve scuffed; can undamaged",
+  "can dented: set aside for the engineer",
+  "electrolyte smell or leakage: quarantined",
+];
+
+/** One cell as it arrived. Choosing a lot sets the cell specification and receipt date from the lot. */
+export function SpecimenForm({
+  action,
+  specifications,
+  lots,
+  initial,
+}: {
+  action: Action;
+  specifications: SpecificationOption[];
+  lots: LotOption[];
+  initial?: SpecimenFormValues;
+}) {
+  const { state, onSubmit, pending } = useFormAction(action);
+  const [lotId, setLotId] = useState(initial?.lotId ?? "");
+  const [specId, setSpecId] = useState(initial?.cellSpecificationId ?? "");
+  const [receivedOn, setReceivedOn] = useState(initial?.receivedOn ?? "");
+  const err = (k: string) => state.fieldErrors?.[k];
+  const chooseLot = (id: string) => {
+    setLotId(id);
+    const lot = lots.find((l) => l.id === id);
+    if (!lot) return;
+    setSpecId(lot.cellSpecificationId);
+    if (!receivedOn) setReceivedOn(lot.receivedOn);
+  };
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Specimen" className="flex max-w-3xl flex-col gap-5">
+      {state.message && !state.ok && (
+        <Notice tone="problem" role="alert" title="Not saved">
+          {state.message}
+        </Notice>
+      )}
+      {initial?.id && <input type="hidden" name="id" value={initial.id} />}
+      <div className="grid gap-3 sm:grid-cols-2">
+        <Field label="Specimen identifier" name="identifier" defaultValue={initial?.identifier} errors={err("identifier")} hint="As written on the cell." />
+        <Field label="Lot" name="lotId" errors={err("lotId")}>
+          <select
+            id="field-lotId"
+            name="lotId"
+            value={lotId}
+            onChange={(e) => chooseLot(e.target.value)}
+            aria-describedby="field-lotId-error"
+            className="rounded border border-rule bg-white px-2 py-1.5"
+          >
+            <option value="">none: a loose specimen</option>
+            {lots.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.label}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <SpecificationSelect specifications={specifications} value={specId} onChange={setSpecId} errors={err("cellSpecificationId")} />
+        <Field label="Received on" name="receivedOn" type="date" value={receivedOn} onChange={(e) => setReceivedOn(e.target.value)} errors={err("receivedOn")} />
+      </div>
+      <Field
+        label="Condition on receipt"
+        name="conditionOnReceipt"
+        list="condition-suggestions"
+        defaultValue={initial?.conditionOnReceipt}
+        errors={err("conditionOnReceipt")}
+        hint="What you saw when unpacking it: sleeve, can, terminals, smell, leakage."
+      />
+      <datalist id="condition-suggestions">
+        {CONDITIONS.map((c) => (
+          <option key={c} value={c} />
+        ))}
+      </datalist>
+      <Field label="Notes, optional" name="notes" errors={err("notes")}>
+        <textarea
+          id="field-notes"
+          name="notes"
+          rows={3}
+          defaultValue={initial?.notes ?? ""}
+          aria-describedby="field-notes-error"
+          className="rounded border border-rule bg-white px-2 py-1.5"
+        />
+      </Field>
+      <Button type="submit" disabled={pending} className="self-start">
+        {pending ? "Saving…" : "Save specimen"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,31 @@
+import type { LotInput } from "./lot-input";
+import type { SpecimenInput } from "./specimen-input";
+
+const reader = (form: FormData) => (k: string) => String(form.get(k) ?? "").trim();
+
+/** The lot form in the shape the schema checks; a quantity that is not a number stays text so the schema names it. */
+export function readLotForm(form: FormData): unknown {
+  const text = reader(form);
+  const quantity = text("quantityReceived");
+  return {
+    identifier: text("identifier"),
+    cellSpecificationId: text("cellSpecificationId"),
+    supplier: text("supplier"),
+    quantityReceived: quantity === "" ? undefined : Number.isFinite(Number(quantity)) ? Number(quantity) : quantity,
+    receivedOn: text("receivedOn"),
+    notes: text("notes"),
+  } satisfies Record<keyof LotInput, unknown>;
+}
+
+/** The specimen form in the shape the schema checks; "no lot" is sent as empty text. */
+export function readSpecimenForm(form: FormData): unknown {
+  const text = reader(form);
+  return {
+    identifier: text("identifier"),
+    cellSpecificationId: text("cellSpecificationId"),
+    lotId: text("lotId") || null,
+    receivedOn: text("receivedOn"),
+    conditionOnReceipt: text("conditionOnReceipt"),
+    notes: text("notes"),
+  } satisfies Record<keyof SpecimenInput, unknown>;
+}
