@@ -7,6 +7,11 @@ type Timestamp = ColumnType<Date, Date | string, Date | string>;
 /** A timestamp column with a database default: optional on insert. */
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type Json = ColumnType<unknown, string | undefined | null, string | null>;
+/**
+ * A `date` column. pg reads it as a Date at local midnight, so query modules select it as text
+ * (`::text`, YYYY-MM-DD) and writes pass the same text: no time zone ever enters a calendar date.
+ */
+type CalendarDate = ColumnType<Date, string, string>;
 
 export interface LabTable {
   id: Generated<number>;
@@ -110,6 +115,119 @@ export interface ProcedureVersionTable {
   updated_at: DefaultedTimestamp;
 }
 
+export type InstrumentKind = "cycler-channel" | "thermometer" | "climate-chamber" | "balance" | "resistance-meter";
+
+export interface InstrumentTable {
+  id: Generated<string>;
+  kind: InstrumentKind;
+  identifier: string;
+  serial: string;
+  firmware: string | null;
+  accuracy: ColumnType<unknown, string, string>;
+  calibration_certificate: string;
+  calibrated_on: CalendarDate;
+  due_on: CalendarDate;
+  active: Generated<boolean>;
+  log_mapping: Json;
+  created_by: string;
+  created_at: DefaultedTimestamp;
+  updated_at: DefaultedTimestamp;
+}
+
+export interface LotTable {
+  id: Generated<string>;
+  identifier: string;
+  cell_specification_id: string;
+  supplier: string;
+  quantity_received: number;
+  received_on: CalendarDate;
+  notes: string | null;
+  created_by: string;
+  created_at: DefaultedTimestamp;
+  updated_at: DefaultedTimestamp;
+}
+
+export interface SpecimenTable {
+  id: Generated<string>;
+  identifier: string;
+  cell_specification_id: string;
+  lot_id: string | null;
+  received_on: CalendarDate;
+  condition_on_receipt: string;
+  notes: string | null;
+  created_by: string;
+  created_at: DefaultedTimestamp;
+  updated_at: DefaultedTimestamp;
+}
+
+export type RunStatus = "planned" | "in_progress" | "submitted" | "returned" | "accepted" | "certified";
+type JsonColumn = ColumnType<unknown, string, string>;
+
+export interface RunTable {
+  id: Generated<string>;
+  number: Generated<string>;
+  procedure_version_id: string;
+  specimen_id: string;
+  operator_id: string;
+  status: ColumnType<RunStatus, RunStatus | undefined, RunStatus>;
+  resolution: JsonColumn;
+  cell_rating: JsonColumn;
+  procedure_source: JsonColumn;
+  created_at: DefaultedTimestamp;
+  started_at: Date | null;
+  submitted_at: Date | null;
+  updated_at: DefaultedTimestamp;
+}
+
+export interface RunInstrumentTable {
+  run_id: string;
+  instrument_id: string;
+}
+
+export interface StepRecordTable {
+  id: Generated<string>;
+  run_id: string;
+  step_id: string;
+  cycle: ColumnType<number, number | undefined, number>;
+  record: JsonColumn;
+  completed: ColumnType<boolean, boolean | undefined, boolean>;
+  recorded_by: string;
+  updated_at: DefaultedTimestamp;
+}
+
+export interface RunLogTable {
+  id: Generated<string>;
+  run_id: string;
+  stored_file_id: string;
+  mapping: JsonColumn;
+  sample_count: number;
+  logged_from: Date | null;
+  current: ColumnType<boolean, boolean | undefined, boolean>;
+  uploaded_by: string;
+  uploaded_at: DefaultedTimestamp;
+}
+
+export interface RunLogChunkTable {
+  run_log_id: string;
+  chunk: number;
+  sample_count: number;
+  time_s: Buffer;
+  voltage_v: Buffer;
+  current_a: Buffer;
+  temperature_c: Buffer | null;
+}
+
+export interface RunEvaluationTable {
+  id: Generated<string>;
+  run_id: string;
+  run_log_id: string | null;
+  procedure_version_id: string;
+  evaluation: JsonColumn;
+  procedure_followed: string;
+  specimen_conforms: string;
+  evaluated_at: DefaultedTimestamp;
+}
+
 export interface Database {
   lab: LabTable;
   app_user: AppUserTable;
@@ -120,4 +238,13 @@ export interface Database {
   cell_specification: CellSpecificationTable;
   procedure: ProcedureTable;
   procedure_version: ProcedureVersionTable;
+  instrument: InstrumentTable;
+  lot: LotTable;
+  specimen: SpecimenTable;
+  run: RunTable;
+  run_instrument: RunInstrumentTable;
+  step_record: StepRecordTable;
+  run_log: RunLogTable;
+  run_log_chunk: RunLogChunkTable;
+  run_evaluation: RunEvaluationTable;
 }

@@ -19,6 +19,20 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "procedure.release": "released a procedure version",
   "procedure.withdraw": "withdrew a procedure version",
   "procedure.new-draft": "started a new procedure draft",
+  "instrument.create": "registered an instrument",
+  "instrument.edit": "changed an instrument",
+  "instrument.deactivate": "took an instrument out of use",
+  "instrument.reactivate": "put an instrument back into use",
+  "lot.create": "registered a lot",
+  "lot.edit": "changed a lot",
+  "specimen.create": "registered a specimen",
+  "specimen.edit": "changed a specimen",
+  "run.plan": "planned a run",
+  "run.record-step": "recorded a step of a run",
+  "run.change-step-times": "changed the recorded times of a step (with a reason)",
+  "run.submit": "submitted a run for review (engineers notified)",
+  "run.upload-log": "uploaded a run's data log",
+  "run.evaluate": "checked a run against its procedure",
 };
 
 export function describeAuditAction(action: string): string {

@@ -5,6 +5,10 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/", label: "Home", permission: "workbench.enter" },
   { href: "/procedures", label: "Procedures", permission: "procedure.read" },
   { href: "/specs", label: "Cell specifications", permission: "spec.read" },
+  { href: "/runs", label: "Runs", permission: "run.read" },
+  { href: "/lots", label: "Lots", permission: "run.read" },
+  { href: "/specimens", label: "Specimens", permission: "run.read" },
+  { href: "/instruments", label: "Instruments", permission: "run.read" },
   { href: "/audit", label: "Audit trail", permission: "audit.read" },
   { href: "/admin/users", label: "Users", permission: "user.manage" },
 ];

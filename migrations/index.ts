@@ -1,6 +1,8 @@
 import type { Migration } from "kysely";
 import * as m0001 from "./0001_foundation";
 import * as m0002 from "./0002_procedures";
+import * as m0003 from "./0003_specimens_instruments";
+import * as m0004 from "./0004_runs";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -9,4 +11,6 @@ import * as m0002 from "./0002_procedures";
 export const MIGRATIONS: Record<string, Migration> = {
   "0001_foundation": m0001,
   "0002_procedures": m0002,
+  "0003_specimens_instruments": m0003,
+  "0004_runs": m0004,
 };

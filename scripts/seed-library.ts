@@ -1,13 +1,25 @@
 import { getDb } from "../db";
 import { getProcedureIdByCode } from "../db/procedures";
+import { addDays } from "../lib/instruments/calendar-date";
+import { createInstrument, instrumentInputSchema } from "../lib/instruments/instruments";
+import { readLabToday } from "../lib/instruments/lab-today";
 import type { SignedInUser } from "../lib/auth/signed-in-user";
 import { createProcedure, releaseVersion, submitForReview } from "../lib/procedures/lifecycle";
 import { procedureDraftSchema } from "../lib/procedures/procedure-input";
 import { plainToRichText } from "../lib/rich-text";
+import { startRun } from "../lib/runs/start-run";
+import { createLot, lotInputSchema } from "../lib/specimens/lots";
+import { createSpecimen, specimenInputSchema } from "../lib/specimens/specimens";
 import { attachDatasheet, createCellSpecification, cellSpecificationInputSchema } from "../lib/specs/cell-specifications";
 import { procedureTemplates } from "../protocols";
 import { renderDemoDatasheet } from "./demo-datasheet";
-import { DEMO_CELL_SPECIFICATIONS } from "./demo-scenario";
+import {
+  DEMO_CALIBRATION_INTERVAL_DAYS,
+  DEMO_CELL_SPECIFICATIONS,
+  DEMO_INSTRUMENTS,
+  DEMO_LOOSE_SPECIMENS,
+  DEMO_LOT,
+} from "./demo-scenario";
 
 const STANDARD_CAUTIONS = plainToRichText(
   [
@@ -50,5 +62,93 @@ export async function seedLibrary(): Promise<string[]> {
     await releaseVersion(releaser, versionId);
     done.push(template.procedure.header.code);
   }
+  done.push(...(await seedInstruments()), ...(await seedLotAndSpecimens()), ...(await seedDemoRun()));
   return done;
+}
+
+/** The demo instruments, dated from today so none is overdue and one falls due soon. Idempotent. */
+export async function seedInstruments(): Promise<string[]> {
+  const done: string[] = [];
+  const admin = await asUser("admin@brackwater.example");
+  const today = readLabToday();
+  for (const { dueInDays, ...instrument } of DEMO_INSTRUMENTS) {
+    if (await findId("instrument", instrument.identifier)) continue;
+    const dueOn = addDays(today, dueInDays);
+    const calibratedOn = addDays(dueOn, -DEMO_CALIBRATION_INTERVAL_DAYS);
+    await createInstrument(admin, instrumentInputSchema.parse({ ...instrument, calibratedOn, dueOn }));
+    done.push(instrument.identifier);
+  }
+  return done;
+}
+
+/** The demo lot with its six specimens, and two loose specimens of another cell. Idempotent. */
+export async function seedLotAndSpecimens(): Promise<string[]> {
+  const done: string[] = [];
+  const operator = await asUser("operator@brackwater.example");
+  const today = readLabToday();
+  const lotSpec = await findSpecification(DEMO_LOT.specification);
+  const receivedOn = addDays(today, -DEMO_LOT.receivedDaysAgo);
+  let lotId = await findId("lot", DEMO_LOT.identifier);
+  if (!lotId) {
+    const { identifier, supplier, quantityReceived, notes } = DEMO_LOT;
+    lotId = await createLot(operator, lotInputSchema.parse({ identifier, supplier, quantityReceived, notes, receivedOn, cellSpecificationId: lotSpec }));
+    done.push(identifier);
+  }
+  const specimens = [
+    ...DEMO_LOT.specimens.map((s) => ({ ...s, cellSpecificationId: lotSpec, lotId, receivedOn, notes: null })),
+    ...(await Promise.all(
+      DEMO_LOOSE_SPECIMENS.map(async ({ specification, receivedDaysAgo, ...s }) => ({
+        ...s,
+        cellSpecificationId: await findSpecification(specification),
+        lotId: null,
+        receivedOn: addDays(today, -receivedDaysAgo),
+      })),
+    )),
+  ];
+  for (const specimen of specimens) {
+    if (await findId("specimen", specimen.identifier)) continue;
+    await createSpecimen(operator, specimenInputSchema.parse(specimen));
+    done.push(specimen.identifier);
+  }
+  return done;
+}
+
+/** A planned run of TPL-RC20 on the lot's first specimen by the demo operator, nothing recorded yet. Idempotent. */
+export async function seedDemoRun(): Promise<string[]> {
+  const specimenId = await findId("specimen", DEMO_LOT.specimens[0]!.identifier);
+  const procedureId = await getProcedureIdByCode(getDb(), "TPL-RC20");
+  if (!specimenId || !procedureId) return [];
+  const version = await getDb()
+    .selectFrom("procedure_version")
+    .select("id")
+    .where("procedure_id", "=", procedureId)
+    .where("status", "=", "released")
+    .orderBy("number", "desc")
+    .executeTakeFirst();
+  if (!version) return [];
+  const existing = await getDb().selectFrom("run").select("id").where("specimen_id", "=", specimenId).where("procedure_version_id", "=", version.id).executeTakeFirst();
+  if (existing) return [];
+  const channel = await findId("instrument", "CY1-CH01");
+  const ambient = await getDb()
+    .selectFrom("instrument")
+    .select("id")
+    .where("kind", "in", ["thermometer", "climate-chamber"])
+    .where("active", "=", true)
+    .orderBy("kind", "desc")
+    .orderBy("identifier")
+    .executeTakeFirst();
+  const instrumentIds = [channel, ambient?.id].filter((id): id is string => id !== undefined);
+  const operator = await asUser("operator@brackwater.example");
+  const run = await startRun(operator, { procedureVersionId: version.id, specimenId, instrumentIds }, readLabToday());
+  return [`run ${run.number}`];
+}
+
+async function findId(table: "instrument" | "lot" | "specimen", identifier: string): Promise<string | undefined> {
+  const r = await getDb().selectFrom(table).select("id").where("identifier", "=", identifier).executeTakeFirst();
+  return r?.id;
+}
+
+async function findSpecification(s: { maker: string; model: string }): Promise<string> {
+  const r = await getDb().selectFrom("cell_specification").select("id").where("maker", "=", s.maker).where("model", "=", s.model).executeTakeFirstOrThrow();
+  return r.id;
 }

@@ -1,6 +1,7 @@
 import type { Permission } from "./permissions";
 
-export type Access = Permission | "public" | "signed-in";
+/** A list admits a caller holding any one of its permissions. */
+export type Access = Permission | readonly Permission[] | "public" | "signed-in";
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
 /**
@@ -24,6 +25,20 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/specs/new": "spec.manage",
   "/specs/[id]": "spec.read",
   "/specs/[id]/edit": "spec.manage",
+  "/instruments": "run.read",
+  "/instruments/new": "instrument.manage",
+  "/instruments/[id]/edit": "instrument.manage",
+  "/lots": "run.read",
+  "/lots/new": "specimen.manage",
+  "/lots/[id]": "run.read",
+  "/lots/[id]/edit": "specimen.manage",
+  "/specimens": "run.read",
+  "/specimens/new": "specimen.manage",
+  "/specimens/[id]": "run.read",
+  "/specimens/[id]/edit": "specimen.manage",
+  "/runs": "run.read",
+  "/runs/new": "run.operate",
+  "/runs/[id]": "run.read",
   "/api/me": { GET: "signed-in" },
   "/api/health": { GET: "public" },
   "/api/procedures": { GET: "procedure.read", POST: "procedure.author" },
@@ -32,4 +47,17 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/procedures/[id]/versions/[n]/resolve": { POST: "procedure.read" },
   "/api/specs": { GET: "spec.read", POST: "spec.manage" },
   "/api/specs/[id]/datasheet": { GET: "spec.read", POST: "spec.manage" },
+  "/api/instruments": { GET: "run.read" },
+  "/api/lots": { GET: "run.read", POST: "specimen.manage" },
+  "/api/specimens": { GET: "run.read", POST: "specimen.manage" },
+  "/runs/[id]/log": "run.read",
+  "/runs/[id]/results": "run.read",
+  "/api/runs": { GET: "run.read" },
+  "/api/runs/[id]": { GET: "run.read" },
+  "/api/runs/[id]/series": { GET: "run.read" },
+  "/api/runs/[id]/logs": { POST: "run.operate" },
+  "/api/runs/[id]/logs/current": { GET: "run.read" },
+  "/api/runs/[id]/evaluations": { POST: ["run.operate", "run.review"] },
+  "/api/runs/[id]/results.csv": { GET: "run.read" },
+  "/api/runs/[id]/results.json": { GET: "run.read" },
 };

@@ -1,5 +1,6 @@
 import "server-only";
 import { createHash } from "node:crypto";
+import { createReadStream } from "node:fs";
 import {
   CreateBucketCommand,
   DeleteObjectCommand,
@@ -95,4 +96,21 @@ export async function listObjectKeys(prefix: string): Promise<string[]> {
   await store.ready;
   const res = await store.client.send(new ListObjectsV2Command({ Bucket: store.bucket, Prefix: prefix }));
   return (res.Contents ?? []).map((o) => o.Key ?? "").filter(Boolean);
+}
+
+/** Stores a file already on local disk (a streamed upload), whose hash and size the caller measured. */
+export async function putObjectFromFile(key: string, file: { path: string; sizeBytes: number; sha256: string }, contentType: string): Promise<StoredObject> {
+  const store = getStore();
+  await store.ready;
+  await store.client.send(
+    new PutObjectCommand({
+      Bucket: store.bucket,
+      Key: key,
+      Body: createReadStream(file.path),
+      ContentLength: file.sizeBytes,
+      ContentType: contentType,
+      Metadata: { sha256: file.sha256 },
+    }),
+  );
+  return { key, sha256: file.sha256, sizeBytes: file.sizeBytes };
 }

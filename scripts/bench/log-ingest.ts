@@ -68,7 +68,8 @@ if (process.argv[2] === "--make") {
   const csv = writeLogCsv(built.log.columns, { columns: ["time", "voltage", "current", "temperature"] });
   if (!csv.ok) throw new Error(csv.error.message);
   await timed(`write the synthetic CSV (${built.log.columns.length} rows)`, () => pipeline(Readable.from(csv.value), createWriteStream(file)));
-  const { log: _log, ...records } = built.input;
+  const records: Partial<typeof built.input> = { ...built.input };
+  delete records.log;
   writeFileSync(recordsFile, JSON.stringify(records));
   process.exit(0);
 }

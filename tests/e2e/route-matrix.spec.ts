@@ -34,7 +34,8 @@ const routes = discoverRoutes();
 
 function accessOf(route: string, method: HttpMethod): Access | undefined {
   const a = ROUTE_ACCESS[route];
-  return typeof a === "string" ? a : a?.[method];
+  if (a === undefined || typeof a === "string" || Array.isArray(a)) return a as Access | undefined;
+  return (a as Partial<Record<HttpMethod, Access>>)[method];
 }
 
 /** Real records from the seeded e2e database, so dynamic routes answer for real. */
@@ -45,7 +46,20 @@ async function sampleParams(): Promise<Record<string, string>> {
     const proc = await c.query(`select p.id, v.number from procedure p join procedure_version v on v.procedure_id = p.id
       where v.status = 'released' order by p.code limit 1`);
     const spec = await c.query(`select id from cell_specification where datasheet_file_id is not null order by maker limit 1`);
-    return { procedure: proc.rows[0].id, n: String(proc.rows[0].number), spec: spec.rows[0].id };
+    const instrument = await c.query(`select id from instrument order by identifier limit 1`);
+    const lot = await c.query(`select id from lot order by identifier limit 1`);
+    const specimen = await c.query(`select id from specimen order by identifier limit 1`);
+    // The seeded demo run (scripts/seed-library.ts), planned with nothing recorded.
+    const run = await c.query(`select id from run order by number limit 1`);
+    return {
+      procedure: proc.rows[0].id,
+      n: String(proc.rows[0].number),
+      spec: spec.rows[0].id,
+      instrument: instrument.rows[0].id,
+      lot: lot.rows[0].id,
+      specimen: specimen.rows[0].id,
+      run: run.rows[0].id,
+    };
   } finally {
     await c.end();
   }
@@ -55,6 +69,10 @@ function toUrl(route: string, p: Record<string, string>): string {
   return route
     .replace("/procedures/[id]", `/procedures/${p.procedure}`)
     .replace("/specs/[id]", `/specs/${p.spec}`)
+    .replace("/runs/[id]", `/runs/${p.run}`)
+    .replace("/instruments/[id]", `/instruments/${p.instrument}`)
+    .replace("/lots/[id]", `/lots/${p.lot}`)
+    .replace("/specimens/[id]", `/specimens/${p.specimen}`)
     .replace("[n]", p.n!)
     .replace(/\[(\w+)\]/, (_, name: string) => {
       throw new Error(`no sample value for [${name}] in ${route}: add one in route-matrix.spec.ts`);
@@ -73,8 +91,16 @@ function expected(access: Access, kind: "page" | "api", method: HttpMethod, role
   const allowedStatus = method === "GET" ? 200 : 422;
   if (access === "public") return allowedStatus;
   if (role === null) return kind === "api" ? 401 : "sign-in";
-  if (access === "signed-in" || can(role, access)) return allowedStatus;
+  if (access === "signed-in" || (typeof access === "string" ? can(role, access) : access.some((a) => can(role, a)))) return allowedStatus;
   return 403;
+}
+
+/** Routes that answer 404 for a run lacking what they show (the sample run may have no log yet). */
+function expectedForSample(route: string, want: number | "sign-in", p: Record<string, string>): number | "sign-in" {
+  if (want !== 200) return want;
+  if (["/api/runs/[id]/series", "/api/runs/[id]/logs/current"].includes(route) && p.runHasLog !== "true") return 404;
+  if (["/api/runs/[id]/results.csv", "/api/runs/[id]/results.json"].includes(route) && p.runHasEvaluation !== "true") return 404;
+  return want;
 }
 
 for (const role of [null, ...ROLES] as (Role | null)[]) {
@@ -93,7 +119,7 @@ for (const role of [null, ...ROLES] as (Role | null)[]) {
           if (got !== 307) failures.push(`${route}: ${got} (wanted a redirect home)`);
           continue;
         }
-        const want = expected(accessOf(route, method)!, kind, method, role);
+        const want = expectedForSample(route, expected(accessOf(route, method)!, kind, method, role), params);
         const ok = want === "sign-in" ? got === 307 && (res.headers().location ?? "").includes("/sign-in") : got === want;
         if (!ok) failures.push(`${method} ${url}: got ${got}, wanted ${want}`);
       }

@@ -1,0 +1,71 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { StepSheet } from "@/components/runs/step-sheet/step-sheet";
+import { RichTextView } from "@/components/rich-text/rich-text-view";
+import { Notice } from "@/components/ui/notice";
+import { getDb } from "@/db";
+import { getInstrument } from "@/db/instruments";
+import { getProcedureVersionById } from "@/db/procedures";
+import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import { INSTRUMENT_KIND_LABELS } from "@/lib/instruments/instrument-kind";
+import { isRunOpen, RUN_STATUS_WORDS } from "@/lib/runs/run-status";
+import { markStepEndAction, markStepStartAction, saveStepRecordAction, submitRunAction } from "../actions";
+
+export const metadata: Metadata = { title: "Step sheet" };
+
+export default async function StepSheetPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const user = await requirePagePermission("run.read");
+  const id = z.uuid().safeParse((await params).id);
+  if (!id.success) notFound();
+  const cycles = z.coerce.number<unknown>().int().min(1).max(100).catch(1).parse((await searchParams).cycles);
+  const db = getDb();
+  const [run, records, instrumentIds] = await Promise.all([getRun(db, id.data), listStepRecords(db, id.data), listRunInstrumentIds(db, id.data)]);
+  if (!run) notFound();
+  const [version, instruments] = await Promise.all([
+    getProcedureVersionById(db, run.procedureVersionId),
+    Promise.all(instrumentIds.map((i) => getInstrument(db, i))),
+  ]);
+  const open = isRunOpen(run.status);
+  const mayOperate = can(user.role, "run.operate");
+  const ambientInstruments = instruments
+    .filter((i) => i !== null && (i.kind === "thermometer" || i.kind === "climate-chamber"))
+    .map((i) => ({ identifier: i!.identifier, label: `${INSTRUMENT_KIND_LABELS[i!.kind]} ${i!.identifier}` }));
+  const closedReason = !mayOperate
+    ? "Your role reads runs; only an operator records steps."
+    : `This run is ${RUN_STATUS_WORDS[run.status].words}; its records can no longer change.`;
+  return (
+    <div className="flex flex-col gap-4">
+      <p className="text-sm text-ink-soft">
+        Instruments on this run:{" "}
+        {instruments.flatMap((i) => (i ? [`${INSTRUMENT_KIND_LABELS[i.kind]} ${i.identifier}`] : [])).join(", ") || "none recorded"}.
+      </p>
+      {version && (
+        <Notice tone="caution" title="Safety cautions of the procedure">
+          <RichTextView doc={version.cautions} empty="The procedure names no cautions." />
+        </Notice>
+      )}
+      <p className="text-xs text-ink-soft">
+        This sheet guides the run; it does not replace your lab&apos;s own safety rules, local codes or the text of the standard.
+      </p>
+      <StepSheet
+        runId={run.id}
+        resolution={run.resolution}
+        stepRecords={records}
+        cyclesRequested={cycles}
+        editable={mayOperate && open}
+        closedReason={closedReason}
+        ambientInstruments={ambientInstruments}
+        actions={{ markStart: markStepStartAction, markEnd: markStepEndAction, save: saveStepRecordAction, submit: submitRunAction }}
+      />
+    </div>
+  );
+}

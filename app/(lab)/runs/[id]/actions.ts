@@ -1,0 +1,73 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { buildStepRecord, readStepForm, stampStepTime, stepFormSchema, stepKeySchema } from "@/components/runs/step-sheet/step-form";
+import { getDb } from "@/db";
+import { getRun, getStepRecord } from "@/db/runs";
+import { requireActionPermission } from "@/lib/auth/guards";
+import { DomainError } from "@/lib/errors";
+import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { recordStep } from "@/lib/runs/record-step";
+import { submitRun } from "@/lib/runs/submit-run";
+
+async function loadStep(runId: string, stepId: string, cycle: number) {
+  const db = getDb();
+  const [run, before] = await Promise.all([getRun(db, runId), getStepRecord(db, runId, stepId, cycle)]);
+  if (!run) throw new DomainError("not-found", "No such run.");
+  const step = run.resolution.steps.find((s) => s.id === stepId);
+  if (!step) throw new DomainError("invalid", `The procedure of run ${run.number} has no step ${stepId}.`);
+  const cautionCodes = run.resolution.cautions.filter((c) => c.stepId === stepId).map((c) => c.code);
+  return { run, step, before, cautionCodes };
+}
+
+async function markStepTime(form: FormData, which: "start" | "end"): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("run.operate");
+    const key = stepKeySchema.parse(Object.fromEntries(form));
+    const { before } = await loadStep(key.runId, key.stepId, key.cycle);
+    // The server's clock, never the browser's: the audit trail and the checks rely on it.
+    const stamped = stampStepTime({ before, stepId: key.stepId, cycle: key.cycle, which, now: new Date().toISOString() });
+    if (!stamped.ok) return { ok: false, message: stamped.message };
+    await recordStep(user, key.runId, stamped.record);
+    revalidatePath(`/runs/${key.runId}`, "layout");
+    return { ok: true, message: which === "start" ? "Start marked." : "End marked." };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
+
+export async function markStepStartAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  return markStepTime(form, "start");
+}
+
+export async function markStepEndAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  return markStepTime(form, "end");
+}
+
+export async function saveStepRecordAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("run.operate");
+    const input = stepFormSchema.parse(readStepForm(form));
+    const { step, before, cautionCodes } = await loadStep(input.runId, input.stepId, input.cycle);
+    const built = buildStepRecord({ step, before, form: input, cautionCodes, now: new Date().toISOString() });
+    if (!built.ok) return { ok: false, message: built.message, fieldErrors: built.fieldErrors };
+    await recordStep(user, input.runId, built.record);
+    revalidatePath(`/runs/${input.runId}`, "layout");
+    return { ok: true, message: built.record.completed ? "Step ticked." : "Saved." };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
+
+export async function submitRunAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("run.operate");
+    const { runId } = stepKeySchema.pick({ runId: true }).parse(Object.fromEntries(form));
+    await submitRun(user, runId);
+    revalidatePath(`/runs/${runId}`, "layout");
+    revalidatePath("/runs");
+    return { ok: true, message: "Submitted for review. The engineers have been notified." };
+  } catch (error) {
+    return toActionState(error);
+  }
+}

@@ -1,0 +1,49 @@
+import { z } from "zod";
+import { LogUpload } from "@/components/runs/log-upload/log-upload";
+import { Notice } from "@/components/ui/notice";
+import { getDb } from "@/db";
+import { getCurrentRunLog } from "@/db/run-logs";
+import { getRun } from "@/db/runs";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import { getRememberedLogMapping } from "@/lib/runs/remember-log-mapping";
+import { isRunOpen } from "@/lib/runs/run-status";
+
+export default async function RunLogPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePagePermission("run.read");
+  const runId = z.uuid().parse((await params).id);
+  const [run, log] = await Promise.all([getRun(getDb(), runId), getCurrentRunLog(getDb(), runId)]);
+  const mayUpload = run !== null && isRunOpen(run.status) && can(user.role, "run.operate");
+  const remembered = mayUpload ? await getRememberedLogMapping(runId) : null;
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="current-log-heading">
+        <h2 id="current-log-heading" className="mb-2 text-lg font-semibold">
+          Current data log
+        </h2>
+        {log ? (
+          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="current-log">
+            <dt className="font-semibold">File</dt>
+            <dd>
+              {log.fileName} ({(log.sizeBytes / 1048576).toFixed(1)} MiB) ·{" "}
+              <a href={`/api/runs/${runId}/logs/current`} className="text-copper-deep underline">
+                download
+              </a>
+            </dd>
+            <dt className="font-semibold">SHA-256</dt>
+            <dd>
+              <code className="break-all">{log.sha256}</code>
+            </dd>
+            <dt className="font-semibold">Rows</dt>
+            <dd>{log.sampleCount.toLocaleString("en-GB")}</dd>
+            <dt className="font-semibold">Uploaded</dt>
+            <dd>{log.uploadedAt.toISOString().replace("T", " ").slice(0, 16)} UTC</dd>
+          </dl>
+        ) : (
+          <Notice>No data log has been uploaded for this run yet.</Notice>
+        )}
+      </section>
+      {mayUpload && <LogUpload runId={runId} remembered={remembered} />}
+    </div>
+  );
+}

@@ -1,0 +1,86 @@
+import { z } from "zod";
+import { FindingsTable, type FindingRow } from "@/components/runs/results/findings-table";
+import { ResultsTable } from "@/components/runs/results/results-table";
+import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots";
+import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
+import { VerdictWords } from "@/components/runs/results/verdict-words";
+import { Notice } from "@/components/ui/notice";
+import { getDb } from "@/db";
+import { getCurrentRunLog } from "@/db/run-logs";
+import { getLatestRunEvaluation } from "@/db/run-series";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import type { RunEvaluation } from "@/lib/conformance";
+import { listResultRows } from "@/lib/runs/list-result-rows";
+
+export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePagePermission("run.read");
+  const runId = z.uuid().parse((await params).id);
+  const [stored, log] = await Promise.all([getLatestRunEvaluation(getDb(), runId), getCurrentRunLog(getDb(), runId)]);
+  const mayEvaluate = can(user.role, "run.operate") || can(user.role, "run.review");
+  const action = mayEvaluate ? <ReEvaluateButton runId={runId} runLogId={log?.id ?? null} /> : null;
+  if (!stored) {
+    return (
+      <div className="flex flex-col items-start gap-3">
+        <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded.</Notice>
+        {action}
+      </div>
+    );
+  }
+  // Written only by evaluateStoredRun.
+  const evaluation = stored.evaluation as RunEvaluation;
+  const labels = new Map(evaluation.steps.map((s) => [s.stepId, s.label]));
+  const findings: FindingRow[] = [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)].map((f) => ({
+    ...f,
+    stepLabel: f.stepId === null ? "the run as a whole" : (labels.get(f.stepId) ?? f.stepId),
+  }));
+  const discharges = evaluation.steps.filter((s) => s.kind === "discharge" && s.logPhase);
+  const onCurrentLog = log !== null && stored.runLogId === log.id;
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="verdict-heading" className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h2 id="verdict-heading" className="mb-2 text-lg font-semibold">
+            Verdict
+          </h2>
+          <VerdictWords verdict={evaluation.verdict} />
+          <p className="mt-2 text-xs text-ink-soft">
+            Evaluated {stored.evaluatedAt.toISOString().replace("T", " ").slice(0, 16)} UTC
+            {stored.runLogId === null ? " without a data log" : onCurrentLog ? " on the current data log" : " on an earlier data log"}.{" "}
+            <a className="text-copper-deep underline" href={`/api/runs/${runId}/results.csv`}>
+              Results as CSV
+            </a>{" "}
+            ·{" "}
+            <a className="text-copper-deep underline" href={`/api/runs/${runId}/results.json`}>
+              as JSON
+            </a>
+          </p>
+        </div>
+        {action}
+      </section>
+      <section aria-labelledby="findings-heading">
+        <h2 id="findings-heading" className="mb-2 text-lg font-semibold">
+          Findings
+        </h2>
+        <FindingsTable findings={findings} />
+      </section>
+      <section aria-labelledby="results-heading">
+        <h2 id="results-heading" className="mb-2 text-lg font-semibold">
+          Results per step
+        </h2>
+        <ResultsTable rows={listResultRows(evaluation)} />
+      </section>
+      {onCurrentLog && (
+        <section aria-labelledby="plots-heading" className="flex flex-col gap-6">
+          <h2 id="plots-heading" className="text-lg font-semibold">
+            Plots
+          </h2>
+          <TimePlot runId={runId} />
+          {discharges.map((s) => (
+            <CapacityPlot key={`${s.stepId}#${s.cycle}`} runId={runId} stepId={s.stepId} cycle={s.cycle} label={s.label} />
+          ))}
+        </section>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,164 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useId, useMemo, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { sniffBytes, sniffLog, type ColumnMapping, type LogSniff, type MappingDraft } from "@/lib/analysis/log-import";
+import type { UploadMessage } from "@/lib/runs/upload-progress";
+import { MappingFields } from "./mapping-fields";
+import { MappingPreviewView } from "./mapping-preview-view";
+import { readMappingPreview } from "./read-mapping-preview";
+import { sendLog, type SendProgress } from "./send-log";
+
+type Chosen = { file: File; head: Uint8Array; sniff: LogSniff };
+
+function fitsColumns(mapping: ColumnMapping, columns: readonly string[]): boolean {
+  return [mapping.time, mapping.voltage, mapping.current, mapping.temperature, mapping.step, mapping.capacity].every((c) => !c || columns.includes(c.column));
+}
+
+function formatMiB(bytes: number): string {
+  return `${(bytes / 1048576).toFixed(1)} MiB`;
+}
+
+/**
+ * Choose a cycler log, confirm how its columns map, check the first rows and their plot, then send
+ * it. The browser sniffs the first 64 KiB itself (sniffLog is pure); the server reads the whole file.
+ */
+export function LogUpload({ runId, remembered }: { runId: string; remembered: { instrument: string; mapping: ColumnMapping } | null }) {
+  const router = useRouter();
+  const fileId = useId();
+  const [chosen, setChosen] = useState<Chosen | null>(null);
+  const [draft, setDraft] = useState<MappingDraft | null>(null);
+  const [notes, setNotes] = useState<string[]>([]);
+  const [sniffProblem, setSniffProblem] = useState<string | null>(null);
+  const [remember, setRemember] = useState(true);
+  const [progress, setProgress] = useState<SendProgress | null>(null);
+  const [outcome, setOutcome] = useState<UploadMessage | null>(null);
+
+  const choose = async (file: File | undefined) => {
+    setChosen(null);
+    setOutcome(null);
+    setSniffProblem(null);
+    if (!file) return;
+    const head = new Uint8Array(await file.slice(0, sniffBytes).arrayBuffer());
+    const sniffed = sniffLog(head, { isWholeFile: file.size <= sniffBytes });
+    if (!sniffed.ok) {
+      setSniffProblem(sniffed.error.message);
+      return;
+    }
+    const s = sniffed.value;
+    setChosen({ file, head, sniff: s });
+    if (remembered && fitsColumns(remembered.mapping, s.columns)) {
+      setDraft(remembered.mapping);
+      setNotes([`The mapping last confirmed for ${remembered.instrument} fits this file's columns; check it.`]);
+    } else {
+      setDraft(s.proposal.draft);
+      setNotes(s.proposal.notes);
+    }
+  };
+
+  const preview = useMemo(() => (chosen && draft ? readMappingPreview(chosen.head, draft, chosen.file.size <= sniffBytes) : null), [chosen, draft]);
+
+  const send = async () => {
+    if (!chosen || !preview?.ok) return;
+    setOutcome(null);
+    setProgress({ sentBytes: 0, totalBytes: chosen.file.size, parsedRows: 0, parsedBytes: 0 });
+    const result = await sendLog({ runId, file: chosen.file, mapping: draft as ColumnMapping, remember, onProgress: setProgress });
+    setOutcome(result);
+    setProgress(null);
+    if (result.type === "stored") router.refresh();
+  };
+
+  return (
+    <section aria-labelledby="upload-heading" className="flex flex-col gap-4" data-testid="log-upload">
+      <h2 id="upload-heading" className="text-lg font-semibold">
+        Upload the cycler&apos;s log
+      </h2>
+      <div>
+        <label htmlFor={fileId} className="block text-sm font-semibold">
+          CSV file from the cycler (up to 200 MiB)
+        </label>
+        <input id={fileId} type="file" accept=".csv,.txt,.tsv,text/csv,text/plain" onChange={(e) => void choose(e.target.files?.[0])} className="mt-1 text-sm" />
+      </div>
+      {sniffProblem && (
+        <Notice tone="problem" role="alert" title="This file cannot be read as a log">
+          {sniffProblem}
+        </Notice>
+      )}
+      {chosen && draft && (
+        <>
+          {notes.length > 0 && (
+            <Notice title="How the columns were guessed">
+              <ul className="list-disc pl-5">
+                {notes.map((n) => (
+                  <li key={n}>{n}</li>
+                ))}
+              </ul>
+            </Notice>
+          )}
+          <MappingFields columns={chosen.sniff.columns} draft={draft} onChange={setDraft} />
+          {preview && <MappingPreviewView preview={preview} />}
+          <label className="flex items-center gap-2 text-sm">
+            <input type="checkbox" checked={remember} onChange={(e) => setRemember(e.target.checked)} />
+            Keep this mapping for the run&apos;s cycler channel, to offer next time
+          </label>
+          <div>
+            <Button onClick={() => void send()} disabled={!preview?.ok || progress !== null}>
+              Upload {chosen.file.name} ({formatMiB(chosen.file.size)})
+            </Button>
+          </div>
+        </>
+      )}
+      {progress && (
+        <div role="status" aria-live="polite" className="flex flex-col gap-1 text-sm" data-testid="upload-progress">
+          <label>
+            Sent {formatMiB(progress.sentBytes)} of {formatMiB(progress.totalBytes)}
+            <progress className="ml-2 align-middle" max={progress.totalBytes} value={progress.sentBytes} />
+          </label>
+          <span>
+            Read on the server: {progress.parsedRows.toLocaleString("en-GB")} rows ({formatMiB(progress.parsedBytes)})
+          </span>
+        </div>
+      )}
+      {outcome && <UploadOutcome outcome={outcome} />}
+    </section>
+  );
+}
+
+function UploadOutcome({ outcome }: { outcome: UploadMessage }) {
+  switch (outcome.type) {
+    case "stored":
+      return (
+        <Notice tone="done" role="status" title="Log stored">
+          {outcome.rows.toLocaleString("en-GB")} rows, SHA-256 <code className="break-all">{outcome.sha256}</code>.{" "}
+          {outcome.verdict
+            ? `Evaluated: procedure followed ${outcome.verdict.procedureFollowed}; specimen ${outcome.verdict.specimenConforms}.`
+            : outcome.evaluationProblem}
+          {outcome.warnings.map((w) => (
+            <span key={w} className="block">
+              {w}
+            </span>
+          ))}
+        </Notice>
+      );
+    case "refused":
+      return (
+        <Notice tone="problem" role="alert" title="The log was refused; nothing was stored">
+          {outcome.error.message}
+        </Notice>
+      );
+    case "failed":
+      return (
+        <Notice tone="problem" role="alert" title="The upload did not complete; nothing was stored">
+          {outcome.message}
+        </Notice>
+      );
+    case "progress":
+      return null;
+    default: {
+      const never: never = outcome;
+      return never;
+    }
+  }
+}

@@ -1,0 +1,35 @@
+"use client";
+
+import clsx from "clsx";
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+
+/** The three views of one run: what was done, the cycler's log, and what the checks found. */
+export function RunTabs({ runId }: { runId: string }) {
+  const pathname = usePathname();
+  const tabs = [
+    { href: `/runs/${runId}`, label: "Step sheet" },
+    { href: `/runs/${runId}/log`, label: "Data log" },
+    { href: `/runs/${runId}/results`, label: "Findings and results" },
+  ];
+  return (
+    <nav aria-label="Views of this run" className="mb-6 border-b border-rule">
+      <ul className="flex flex-wrap gap-1">
+        {tabs.map((t) => {
+          const current = pathname === t.href;
+          return (
+            <li key={t.href}>
+              <Link
+                href={t.href}
+                aria-current={current ? "page" : undefined}
+                className={clsx("block border-b-2 px-3 py-2 text-sm", current ? "border-copper font-semibold text-copper-deep" : "border-transparent hover:text-copper-deep")}
+              >
+                {t.label}
+              </Link>
+            </li>
+          );
+        })}
+      </ul>
+    </nav>
+  );
+}

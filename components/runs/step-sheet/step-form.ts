@@ -1,0 +1,152 @@
+import { z } from "zod";
+import { recordedTimeSchema, type StepRecord, type StepRecordInput } from "@/lib/conformance";
+import type { ResolvedStep } from "@/protocols";
+import { listProgrammedFields } from "./programmed-fields";
+
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `at most ${max} characters` })
+    .optional()
+    .transform((v) => (v ? v : undefined));
+
+const optionalNumber = z
+  .string()
+  .trim()
+  .optional()
+  .transform((v, ctx) => {
+    if (!v) return undefined;
+    const n = Number(v.replace(",", "."));
+    if (!Number.isFinite(n)) {
+      ctx.addIssue({ code: "custom", message: "write a number" });
+      return z.NEVER;
+    }
+    return n;
+  });
+
+/** Which line of which run a form speaks for. */
+export const stepKeySchema = z.object({
+  runId: z.uuid(),
+  stepId: z.string().trim().min(1).max(100),
+  cycle: z.coerce.number<unknown>().int().min(1).max(1000),
+});
+
+/** The step form as the browser sends it; set-points arrive in the units the form shows. */
+export const stepFormSchema = stepKeySchema.extend({
+  readingCelsius: optionalNumber,
+  readingInstrument: optionalText(100),
+  notes: optionalText(4000),
+  completed: z.literal("on").optional(),
+  acknowledged: z.array(z.string().trim().min(1).max(200)).max(100).default([]),
+  startedAt: recordedTimeSchema.optional().or(z.literal("").transform(() => undefined)),
+  endedAt: recordedTimeSchema.optional().or(z.literal("").transform(() => undefined)),
+  timeChangeReason: optionalText(1000),
+  programmed: z.record(z.string(), optionalNumber).default({}),
+});
+export type StepForm = z.output<typeof stepFormSchema>;
+
+/** FormData → the plain object stepFormSchema reads: `programmed.<name>` fields and repeated `acknowledged`. */
+export function readStepForm(form: FormData): unknown {
+  const programmed: Record<string, string> = {};
+  const plain: Record<string, unknown> = {};
+  for (const [key, value] of form.entries()) {
+    if (typeof value !== "string") continue;
+    if (key.startsWith("programmed.")) programmed[key.slice("programmed.".length)] = value;
+    else if (key !== "acknowledged") plain[key] = value;
+  }
+  return { ...plain, programmed, acknowledged: form.getAll("acknowledged").filter((v) => typeof v === "string") };
+}
+
+export type BuiltStepRecord =
+  | { ok: true; record: StepRecordInput & { timeChangeReason?: string } }
+  | { ok: false; message: string; fieldErrors: Record<string, string[]> };
+
+/**
+ * Merges what the operator typed into the step's stored record: a new ambient reading is stamped
+ * `now` (the server's clock), set-points are converted to SI units, and a tick is refused until the
+ * step has its start, end, one ambient reading and every caution of the step acknowledged.
+ */
+export function buildStepRecord({
+  step,
+  before,
+  form,
+  cautionCodes,
+  now,
+}: {
+  step: ResolvedStep;
+  before: StepRecord | null;
+  form: StepForm;
+  cautionCodes: readonly string[];
+  now: string;
+}): BuiltStepRecord {
+  const fieldErrors: Record<string, string[]> = {};
+  const programmed: Record<string, number> = {};
+  for (const spec of listProgrammedFields(step)) {
+    const typed = form.programmed[spec.name];
+    if (typed === undefined) continue;
+    if (spec.unit !== "°C" && typed <= 0) fieldErrors[`programmed.${spec.name}`] = ["must be greater than 0"];
+    else programmed[spec.name] = typed * spec.toSi;
+  }
+  const ambientReadings = [...(before?.ambientReadings ?? [])];
+  if (form.readingCelsius !== undefined) {
+    ambientReadings.push({ at: now, celsius: form.readingCelsius, ...(form.readingInstrument && { instrumentId: form.readingInstrument }) });
+  } else if (form.readingInstrument && ambientReadings.length === 0 && form.completed) {
+    fieldErrors.readingCelsius = ["write the temperature you read"];
+  }
+  const startedAt = form.startedAt ?? before?.startedAt;
+  const endedAt = form.endedAt ?? before?.endedAt;
+  const acknowledged = cautionCodes.filter((code) => form.acknowledged.includes(code));
+  if (form.completed) {
+    if (!startedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the start of the step first"];
+    if (!endedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the end of the step first"];
+    if (ambientReadings.length === 0) fieldErrors.readingCelsius = ["record at least one ambient reading before ticking the step"];
+    if (acknowledged.length < cautionCodes.length) fieldErrors.acknowledged = ["tick “I have read this caution” for every caution of this step"];
+  }
+  if (startedAt && endedAt && Date.parse(endedAt) < Date.parse(startedAt)) fieldErrors.endedAt = ["the end is before the start"];
+  if (Object.keys(fieldErrors).length > 0) return { ok: false, message: "Some fields need attention.", fieldErrors };
+  return {
+    ok: true,
+    record: {
+      stepId: step.id,
+      cycle: form.cycle,
+      ...(startedAt && { startedAt }),
+      ...(endedAt && { endedAt }),
+      ambientReadings,
+      programmed,
+      ...(before?.measured && { measured: before.measured }),
+      ...(form.notes && { notes: form.notes }),
+      ...(before?.pauseReason && { pauseReason: before.pauseReason }),
+      completed: form.completed === "on",
+      acknowledgedCautionCodes: acknowledged,
+      ...(form.timeChangeReason && { timeChangeReason: form.timeChangeReason }),
+    },
+  };
+}
+
+/**
+ * The stored record with its start or end stamped `now`. A time already stamped is changed only
+ * through the step form, with a reason; an end needs a start.
+ */
+export function stampStepTime({
+  before,
+  stepId,
+  cycle,
+  which,
+  now,
+}: {
+  before: StepRecord | null;
+  stepId: string;
+  cycle: number;
+  which: "start" | "end";
+  now: string;
+}): { ok: true; record: StepRecordInput } | { ok: false; message: string } {
+  const base: StepRecordInput = before ?? { stepId, cycle, ambientReadings: [], programmed: {}, completed: false, acknowledgedCautionCodes: [] };
+  if (which === "start") {
+    if (before?.startedAt) return { ok: false, message: "The start is already marked; change it in the step's times, with a reason." };
+    return { ok: true, record: { ...base, startedAt: now } };
+  }
+  if (!before?.startedAt) return { ok: false, message: "Mark the start of the step before its end." };
+  if (before.endedAt) return { ok: false, message: "The end is already marked; change it in the step's times, with a reason." };
+  return { ok: true, record: { ...base, endedAt: now } };
+}

@@ -1,0 +1,134 @@
+import { sql } from "kysely";
+import { describe, expect, it } from "vitest";
+import { getDb } from "@/db";
+import { listAuditEvents } from "@/db/audit";
+import { getRun } from "@/db/runs";
+import { formatLogCsv } from "@/lib/analysis";
+import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
+import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
+import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
+import { ingestLog } from "@/lib/runs/ingest-log";
+import { recordStep } from "@/lib/runs/record-step";
+import { startRun } from "@/lib/runs/start-run";
+import { submitRun } from "@/lib/runs/submit-run";
+import { createCellSpecification, editCellSpecification } from "@/lib/specs/cell-specifications";
+import { listObjectKeys } from "@/lib/storage";
+import { ratedCapacityAt20cTemplate } from "@/protocols";
+import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { makeUser } from "./fixtures";
+
+const TODAY = "2026-12-01";
+const MAPPING = {
+  time: { form: "elapsed", column: "Time (s)", unit: "s" },
+  voltage: { column: "Voltage (V)", unit: "V" },
+  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
+  delimiter: ",",
+  decimalSeparator: ".",
+  headerLine: 1,
+};
+
+async function* chunksOf(text: string, size = 64 * 1024) {
+  const bytes = new TextEncoder().encode(text);
+  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
+}
+
+async function setUpLab(tag: string) {
+  const engineer = await makeUser("engineer", "Eli Engineer");
+  const second = await makeUser("engineer", "Sol Second");
+  const operator = await makeUser("operator", "Oda Operator");
+  const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: `TM-${tag}`, data: inventedCell });
+  const definition = structuredClone(ratedCapacityAt20cTemplate);
+  definition.header.code = `T-RUN-${tag}`;
+  const { versionId } = await createProcedure(engineer, procedureDraftSchema.parse({ definition }));
+  await submitForReview(engineer, versionId);
+  await releaseVersion(second, versionId);
+  const instrument = async (identifier: string, dueOn: string) =>
+    (
+      await getDb()
+        .insertInto("instrument")
+        .values({ kind: "cycler-channel", identifier, serial: "S-1", accuracy: JSON.stringify({}), calibration_certificate: "CAL-1", calibrated_on: "2026-01-10", due_on: dueOn, created_by: engineer.id })
+        .returning("id")
+        .executeTakeFirstOrThrow()
+    ).id;
+  const channel = await instrument(`CH-${tag}`, "2027-01-10");
+  const overdue = await instrument(`CH-OLD-${tag}`, "2026-11-01");
+  const specimen = (
+    await getDb()
+      .insertInto("specimen")
+      .values({ identifier: `SP-${tag}`, cell_specification_id: specId, received_on: "2026-11-20", condition_on_receipt: "intact, 3.4 V", created_by: engineer.id })
+      .returning("id")
+      .executeTakeFirstOrThrow()
+  ).id;
+  return { engineer, operator, specId, versionId, channel, overdue, specimen };
+}
+
+describe("runs", () => {
+  it("plans a run only from a released version on calibrated instruments, and freezes its set-points", async () => {
+    const lab = await setUpLab("A");
+    await expect(startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.overdue] }, TODAY)).rejects.toThrow(
+      /overdue for calibration/,
+    );
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
+    const stored = await getRun(getDb(), run.id);
+    const discharge = stored?.resolution.steps.find((s) => s.id === "discharge");
+    // 0.2 It of the invented 3 000 mAh cell (IEC 61434): 0.6 A, frozen into the run.
+    expect(discharge?.kind === "discharge" && discharge.current?.value).toBe(0.6);
+
+    await editCellSpecification(lab.engineer, lab.specId, { maker: "Testmoor Cells", model: "TM-A", data: { ...inventedCell, ratedCapacityMah: 3500 } });
+    const after = await getRun(getDb(), run.id);
+    expect(after?.resolution).toEqual(stored?.resolution);
+    await expect(sql`update run set resolution = '{}'::jsonb where id = ${run.id}`.execute(getDb())).rejects.toThrow(/frozen/);
+  });
+
+  it("records steps, refuses a bad log without storing anything, ingests a good one, evaluates and submits", async () => {
+    const lab = await setUpLab("B");
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
+    const built = buildRatedCapacityRun({ sampleIntervalS: 10 });
+    for (const record of built.input.stepRecords) await recordStep(lab.operator, run.id, record);
+    expect((await getRun(getDb(), run.id))?.status).toBe("in_progress");
+
+    const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+    if (!csv.ok) throw new Error(csv.error.message);
+    const lines = csv.value.split("\n");
+    const backwards = [lines[0], lines[1], lines[3], lines[2], ...lines.slice(4)].join("\n");
+    const refused = await ingestLog(lab.operator, run.id, { name: "bad.csv", chunks: chunksOf(backwards), mapping: MAPPING });
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) {
+      expect(refused.error.line).toBe(4);
+      expect(refused.error.message).toMatch(/line 4/i);
+    }
+    expect(await getDb().selectFrom("run_log").select("id").where("run_id", "=", run.id).execute()).toEqual([]);
+    expect(await listObjectKeys(`logs/${run.id}/`)).toEqual([]);
+
+    const ingested = await ingestLog(lab.operator, run.id, { name: "channel-3.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+    expect(ingested.ok).toBe(true);
+    if (!ingested.ok) return;
+    expect(ingested.rows).toBe(built.log.columns.length);
+    expect(await listObjectKeys(`logs/${run.id}/`)).toHaveLength(1);
+
+    const first = await evaluateStoredRun(lab.operator, run.id, { columns: ingested.columns });
+    expect(first.verdict).toMatchObject({ procedureFollowed: "yes", specimenConforms: "conforms" });
+    // Re-evaluating from what is stored (the log read back from its chunks) gives the same answer.
+    const again = await evaluateStoredRun(lab.operator, run.id);
+    expect(again.verdict).toEqual(first.verdict);
+    const capacity = (e: typeof first) => e.steps.find((s) => s.stepId === "discharge")?.results?.capacityAh;
+    expect(capacity(again)).toBeCloseTo(capacity(first)!, 9);
+
+    await submitRun(lab.operator, run.id);
+    expect((await getRun(getDb(), run.id))?.status).toBe("submitted");
+    await expect(recordStep(lab.operator, run.id, built.input.stepRecords[0]!)).rejects.toThrow(/can no longer change/);
+    const actions = (await listAuditEvents(getDb(), { entityType: "run", entityId: run.id })).map((e) => e.action);
+    expect(actions).toEqual(expect.arrayContaining(["run.plan", "run.record-step", "run.upload-log", "run.evaluate", "run.submit"]));
+  });
+
+  it("needs a reason to change a recorded time, and keeps it in the audit trail", async () => {
+    const lab = await setUpLab("C");
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
+    const base = { stepId: "rest", cycle: 1, startedAt: "2026-12-01T10:00:00.000Z", endedAt: "2026-12-01T11:30:00.000Z", completed: true };
+    await recordStep(lab.operator, run.id, base);
+    await expect(recordStep(lab.operator, run.id, { ...base, endedAt: "2026-12-01T11:40:00.000Z" })).rejects.toThrow(/needs a reason/);
+    await recordStep(lab.operator, run.id, { ...base, endedAt: "2026-12-01T11:40:00.000Z", timeChangeReason: "clock on the bench PC was 10 min behind" });
+    const changed = await listAuditEvents(getDb(), { action: "run.change-step-times", entityId: run.id });
+    expect(changed[0]?.detail).toMatchObject({ reason: "clock on the bench PC was 10 min behind" });
+  });
+});

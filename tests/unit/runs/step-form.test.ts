@@ -1,0 +1,91 @@
+import { describe, expect, it } from "vitest";
+import { buildStepRecord, readStepForm, stampStepTime, stepFormSchema } from "@/components/runs/step-sheet/step-form";
+import { stepRecordSchema, type StepRecord } from "@/lib/conformance";
+import { resolveOrThrow } from "../../support/rated-capacity-run";
+
+const resolution = resolveOrThrow({});
+const stepOf = (id: string) => resolution.steps.find((s) => s.id === id)!;
+const runId = "5f0c8a8e-6b7e-4f0e-9d43-1f0a8c2b7d11";
+const now = "2026-03-02T09:00:00.000Z";
+
+function formOf(fields: Record<string, string | string[]>): FormData {
+  const f = new FormData();
+  for (const [k, v] of Object.entries({ runId, cycle: "1", ...fields })) for (const x of [v].flat()) f.append(k, x);
+  return f;
+}
+const parse = (fields: Record<string, string | string[]>) => stepFormSchema.parse(readStepForm(formOf(fields)));
+const stamped: StepRecord = stepRecordSchema.parse({
+  stepId: "rest",
+  completed: false,
+  startedAt: "2026-03-02T07:00:00.000Z",
+  endedAt: "2026-03-02T08:30:00.000Z",
+});
+
+describe("buildStepRecord", () => {
+  it("stamps a new ambient reading with the server's time and converts minutes to seconds", () => {
+    const built = buildStepRecord({
+      step: stepOf("rest"),
+      before: stamped,
+      form: parse({ stepId: "rest", readingCelsius: "21,5", readingInstrument: "TH-01", "programmed.duration": "90" }),
+      cautionCodes: [],
+      now,
+    });
+    expect(built.ok).toBe(true);
+    if (!built.ok) return;
+    expect(built.record.ambientReadings).toEqual([{ at: now, celsius: 21.5, instrumentId: "TH-01" }]);
+    expect(built.record.programmed).toEqual({ duration: 5400 });
+    expect(built.record.startedAt).toBe(stamped.startedAt);
+    expect(stepRecordSchema.safeParse(built.record).success).toBe(true);
+  });
+
+  it("refuses a tick without start, end and an ambient reading, naming each", () => {
+    const built = buildStepRecord({ step: stepOf("rest"), before: null, form: parse({ stepId: "rest", completed: "on" }), cautionCodes: [], now });
+    expect(built.ok).toBe(false);
+    if (built.ok) return;
+    expect(built.fieldErrors.completed).toEqual(["mark the start of the step first", "mark the end of the step first"]);
+    expect(built.fieldErrors.readingCelsius).toEqual(["record at least one ambient reading before ticking the step"]);
+  });
+
+  it("refuses a tick until every caution of the step is acknowledged, and keeps only the step's codes", () => {
+    const codes = ["charge-current-above-rating/charge/current"];
+    const base = { stepId: "charge", completed: "on", readingCelsius: "20" };
+    const missing = buildStepRecord({ step: stepOf("charge"), before: { ...stamped, stepId: "charge" }, form: parse(base), cautionCodes: codes, now });
+    expect(missing.ok).toBe(false);
+    const given = buildStepRecord({
+      step: stepOf("charge"),
+      before: { ...stamped, stepId: "charge" },
+      form: parse({ ...base, acknowledged: [codes[0]!, "made-up/other/code"] }),
+      cautionCodes: codes,
+      now,
+    });
+    expect(given.ok && given.record.acknowledgedCautionCodes).toEqual(codes);
+    expect(given.ok && given.record.completed).toBe(true);
+  });
+
+  it("refuses a set-point of zero and an end before the start", () => {
+    const built = buildStepRecord({
+      step: stepOf("discharge"),
+      before: null,
+      form: parse({ stepId: "discharge", "programmed.current": "0", startedAt: "2026-03-02T10:00:00Z", endedAt: "2026-03-02T09:00:00Z" }),
+      cautionCodes: [],
+      now,
+    });
+    expect(built.ok).toBe(false);
+    if (built.ok) return;
+    expect(Object.keys(built.fieldErrors).sort()).toEqual(["endedAt", "programmed.current"]);
+  });
+
+  it("refuses a typed number that is not one", () => {
+    expect(stepFormSchema.safeParse(readStepForm(formOf({ stepId: "rest", readingCelsius: "warm" }))).success).toBe(false);
+  });
+});
+
+describe("stampStepTime", () => {
+  it("stamps a start once and an end only after a start", () => {
+    const start = stampStepTime({ before: null, stepId: "rest", cycle: 1, which: "start", now });
+    expect(start.ok && start.record.startedAt).toBe(now);
+    expect(stampStepTime({ before: null, stepId: "rest", cycle: 1, which: "end", now }).ok).toBe(false);
+    expect(stampStepTime({ before: stamped, stepId: "rest", cycle: 1, which: "start", now }).ok).toBe(false);
+    expect(stampStepTime({ before: { ...stamped, endedAt: undefined }, stepId: "rest", cycle: 1, which: "end", now })).toMatchObject({ ok: true, record: { endedAt: now } });
+  });
+});
