@@ -69,6 +69,10 @@ export async function listAuditEvents(
       j.on(sql`pv.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "procedure-version"),
     )
     .leftJoin("procedure as proc", "proc.id", "pv.procedure_id")
+    .leftJoin("run as run", (j) => j.on(sql`run.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "run"))
+    .leftJoin("instrument as ins", (j) => j.on(sql`ins.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "instrument"))
+    .leftJoin("lot as lot", (j) => j.on(sql`lot.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "lot"))
+    .leftJoin("specimen as sp", (j) => j.on(sql`sp.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "specimen"))
     .select([
       "audit_event.id",
       "audit_event.at",
@@ -80,7 +84,7 @@ export async function listAuditEvents(
       "audit_event.after",
       "audit_event.detail",
       "audit_event.address",
-      sql<string | null>`coalesce(subject.display_name, spec.maker || ' ' || spec.model, proc.code || ' version ' || pv.number)`.as("entity_label"),
+      sql<string | null>`coalesce(subject.display_name, spec.maker || ' ' || spec.model, proc.code || ' version ' || pv.number, run.number, ins.identifier, lot.identifier, sp.identifier)`.as("entity_label"),
     ])
     .orderBy("audit_event.id", "desc")
     .limit(filter.limit ?? 100);

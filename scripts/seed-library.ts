@@ -1,3 +1,10 @@
+import { formatLogCsv } from "../lib/analysis";
+import { getRun } from "../db/runs";
+import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
+import { ingestLog } from "../lib/runs/ingest-log";
+import { recordStep } from "../lib/runs/record-step";
+import { submitRun } from "../lib/runs/submit-run";
+import { buildRatedCapacityRun } from "../tests/support/rated-capacity-run";
 import { getDb } from "../db";
 import { getProcedureIdByCode } from "../db/procedures";
 import { addDays } from "../lib/instruments/calendar-date";
@@ -62,7 +69,7 @@ export async function seedLibrary(): Promise<string[]> {
     await releaseVersion(releaser, versionId);
     done.push(template.procedure.header.code);
   }
-  done.push(...(await seedInstruments()), ...(await seedLotAndSpecimens()), ...(await seedDemoRun()));
+  done.push(...(await seedInstruments()), ...(await seedLotAndSpecimens()), ...(await seedDemoRun()), ...(await seedEvaluatedRun()));
   return done;
 }
 
@@ -141,6 +148,48 @@ export async function seedDemoRun(): Promise<string[]> {
   const operator = await asUser("operator@brackwater.example");
   const run = await startRun(operator, { procedureVersionId: version.id, specimenId, instrumentIds }, readLabToday());
   return [`run ${run.number}`];
+}
+
+/**
+ * A finished run to look at: every step recorded, an invented cycler log (from the simple cell model in
+ * tests/support) uploaded, evaluated and submitted, all through the same services as the app. Idempotent.
+ */
+export async function seedEvaluatedRun(): Promise<string[]> {
+  const identifier = DEMO_LOT.specimens[2]!.identifier;
+  const specimenId = await findId("specimen", identifier);
+  const procedureId = await getProcedureIdByCode(getDb(), "TPL-RC20");
+  if (!specimenId || !procedureId) return [];
+  if (await getDb().selectFrom("run").select("id").where("specimen_id", "=", specimenId).executeTakeFirst()) return [];
+  const version = await getDb().selectFrom("procedure_version").select("id").where("procedure_id", "=", procedureId).where("status", "=", "released").executeTakeFirstOrThrow();
+  const instrumentIds = [await findId("instrument", "CY1-CH02"), await findId("instrument", "CC-01")].filter((id): id is string => id !== undefined);
+  const operator = await asUser("operator@brackwater.example");
+  const run = await startRun(operator, { procedureVersionId: version.id, specimenId, instrumentIds }, readLabToday());
+  const stored = await getRun(getDb(), run.id);
+  const korvel = DEMO_CELL_SPECIFICATIONS.find((s) => s.model === "KV-21N48")!;
+  const built = buildRatedCapacityRun({ cell: korvel.data, resolution: stored!.resolution, cellModel: { capacityMAh: 5010 }, sampleIntervalS: 2 });
+  for (const record of built.input.stepRecords) {
+    await recordStep(operator, run.id, { ...record, ambientReadings: record.ambientReadings?.map((a) => ({ ...a, instrumentId: "CC-01" })) });
+  }
+  const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current", "temperature"] });
+  if (!csv.ok) throw new Error(csv.error.message);
+  const bytes = new TextEncoder().encode(csv.value);
+  async function* chunks() {
+    for (let i = 0; i < bytes.length; i += 64 * 1024) yield bytes.subarray(i, i + 64 * 1024);
+  }
+  const mapping = {
+    time: { form: "elapsed", column: "Time (s)", unit: "s" },
+    voltage: { column: "Voltage (V)", unit: "V" },
+    current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
+    temperature: { column: "Temperature (°C)" },
+    delimiter: ",",
+    decimalSeparator: ".",
+    headerLine: 1,
+  };
+  const ingested = await ingestLog(operator, run.id, { name: `${identifier.toLowerCase()}-cy1-ch02.csv`, chunks: chunks(), mapping });
+  if (!ingested.ok) throw new Error(`demo log refused: ${ingested.error.message}`);
+  await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
+  await submitRun(operator, run.id);
+  return [`run ${run.number} (evaluated, submitted)`];
 }
 
 async function findId(table: "instrument" | "lot" | "specimen", identifier: string): Promise<string | undefined> {

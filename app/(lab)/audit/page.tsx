@@ -36,6 +36,10 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             <option value="security.">refused requests</option>
             <option value="procedure.">procedures</option>
             <option value="spec.">cell specifications</option>
+            <option value="instrument.">instruments</option>
+            <option value="lot.">lots</option>
+            <option value="specimen.">specimens</option>
+            <option value="run.">runs</option>
             {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
               <option key={code} value={code}>
                 only: {label}
