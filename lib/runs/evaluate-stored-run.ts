@@ -1,22 +1,32 @@
 import "server-only";
 import { getDb } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
+import { getCellSpecification } from "@/db/cell-specifications";
+import { getProcedureVersionById } from "@/db/procedures";
 import { getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
 import { getRun, listStepRecords } from "@/db/runs";
 import type { LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { evaluateRun, type RunEvaluation } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
+import { resolveProcedure, type ProcedureResolution } from "@/protocols";
 
 /**
  * Evaluates a run from what is stored (frozen set-points, step records, the current log) and keeps
  * the result. Deterministic: the same stored run gives the same findings. `columns` skips reading
- * the log back when the caller has just parsed it.
+ * the log back when the caller has just parsed it. `againstVersionId` judges the same records against
+ * another released version of the same procedure (resolved on the specimen's cell as it is now); the
+ * evaluation is then marked as made against a version other than the one the run was carried out under.
  */
-export async function evaluateStoredRun(actor: SignedInUser, runId: string, opts: { columns?: LogColumns } = {}): Promise<RunEvaluation> {
+export async function evaluateStoredRun(
+  actor: SignedInUser,
+  runId: string,
+  opts: { columns?: LogColumns; againstVersionId?: string } = {},
+): Promise<RunEvaluation> {
   const db = getDb();
   const run = await getRun(db, runId);
   if (!run) throw new DomainError("not-found", "No such run.");
+  const against = opts.againstVersionId && opts.againstVersionId !== run.procedureVersionId ? await resolveOtherVersion(run, opts.againstVersionId) : null;
   const [records, log] = await Promise.all([listStepRecords(db, runId), getCurrentRunLog(db, runId)]);
   const columns = opts.columns ?? (log ? await readRunLogColumns(db, log.id) : undefined);
   const stepRecords = records.map((r) => {
@@ -28,12 +38,14 @@ export async function evaluateStoredRun(actor: SignedInUser, runId: string, opts
   // A log with timestamps says when it began; an elapsed-time log is taken to begin with the first step.
   const logStartedAt = log?.loggedFrom?.toISOString() ?? stepRecords.map((r) => r.startedAt).filter((t): t is string => Boolean(t)).sort()[0];
   const result = evaluateRun({
-    resolution: run.resolution,
+    resolution: against?.resolution ?? run.resolution,
     cellRating: run.cellRating,
     stepRecords,
     ...(columns && logStartedAt && { log: columns, logStartedAt }),
     procedureSource: run.procedureSource,
-    evaluatedAgainst: { procedureVersionId: run.procedureVersionId },
+    evaluatedAgainst: against
+      ? { procedureVersionId: against.versionId, runProcedureVersionId: run.procedureVersionId, note: `re-evaluated against ${against.label}` }
+      : { procedureVersionId: run.procedureVersionId },
   });
   if (!result.ok) throw new DomainError("invalid", `The run's records cannot be evaluated: ${result.problems.map((p) => `${p.path}: ${p.message}`).join("; ")}`);
   const { evaluation } = result;
@@ -43,7 +55,7 @@ export async function evaluateStoredRun(actor: SignedInUser, runId: string, opts
       .values({
         run_id: runId,
         run_log_id: log?.id ?? null,
-        procedure_version_id: run.procedureVersionId,
+        procedure_version_id: against?.versionId ?? run.procedureVersionId,
         evaluation: JSON.stringify(evaluation),
         procedure_followed: evaluation.verdict.procedureFollowed,
         specimen_conforms: evaluation.verdict.specimenConforms,
@@ -56,7 +68,23 @@ export async function evaluateStoredRun(actor: SignedInUser, runId: string, opts
       entityType: "run",
       entityId: runId,
       after: { procedureFollowed: evaluation.verdict.procedureFollowed, specimenConforms: evaluation.verdict.specimenConforms },
+      ...(against && { detail: { against: against.label } }),
     });
   });
   return evaluation;
+}
+
+async function resolveOtherVersion(
+  run: NonNullable<Awaited<ReturnType<typeof getRun>>>,
+  versionId: string,
+): Promise<{ versionId: string; label: string; resolution: ProcedureResolution }> {
+  const db = getDb();
+  const [version, own] = await Promise.all([getProcedureVersionById(db, versionId), getProcedureVersionById(db, run.procedureVersionId)]);
+  if (!version || !own || version.procedureId !== own.procedureId) throw new DomainError("invalid", "Choose a version of the same procedure.");
+  if (version.status !== "released" && version.status !== "withdrawn") throw new DomainError("conflict", "Only a released (or since withdrawn) version can be used to judge a run.");
+  const spec = await getCellSpecification(db, run.specimen.cellSpecificationId);
+  if (!spec) throw new DomainError("not-found", "The specimen's cell specification is missing.");
+  const resolved = resolveProcedure({ procedure: version.definition, cellSpecification: spec.data, acknowledgedCautions: version.acknowledgedCautions });
+  if (!resolved.ok || resolved.resolution.errors.length > 0) throw new DomainError("conflict", `${version.code} version ${version.number} cannot be resolved on this cell.`);
+  return { versionId: version.id, label: `${version.code} version ${version.number}`, resolution: resolved.resolution };
 }

@@ -7,6 +7,8 @@ import { formatLogCsv } from "@/lib/analysis";
 import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
+import { readRunCapacitySeries, readRunTimeSeries } from "@/lib/runs/read-run-series";
+import { saveDraft, startNewDraft } from "@/lib/procedures/lifecycle";
 import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
@@ -130,5 +132,50 @@ describe("runs", () => {
     await recordStep(lab.operator, run.id, { ...base, endedAt: "2026-12-01T11:40:00.000Z", timeChangeReason: "clock on the bench PC was 10 min behind" });
     const changed = await listAuditEvents(getDb(), { action: "run.change-step-times", entityId: run.id });
     expect(changed[0]?.detail).toMatchObject({ reason: "clock on the bench PC was 10 min behind" });
+  });
+
+  it("serves thinned series from the stored chunks and judges the records against a newer version, marked as such", async () => {
+    const lab = await setUpLab("D");
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
+    const built = buildRatedCapacityRun({ sampleIntervalS: 2 });
+    for (const record of built.input.stepRecords) await recordStep(lab.operator, run.id, record);
+    const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+    if (!csv.ok) throw new Error(csv.error.message);
+    const ingested = await ingestLog(lab.operator, run.id, { name: "d.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+    if (!ingested.ok) throw new Error(ingested.error.message);
+    const n = built.log.columns.length;
+    // The plot's step bands come from the run's latest evaluation.
+    const own = await evaluateStoredRun(lab.operator, run.id);
+    expect(own.evaluatedAgainst.otherThanRunVersion).toBe(false);
+
+    const series = await readRunTimeSeries(run.id, 500);
+    expect(series.sampleCount).toBe(n);
+    expect(series.timeS.length).toBeLessThanOrEqual(500);
+    // The CSV carries times to the millisecond.
+    expect(series.timeS[0]).toBeCloseTo(built.log.columns.timeS[0]!, 2);
+    expect(series.timeS.at(-1)).toBeCloseTo(built.log.columns.timeS[n - 1]!, 2);
+    expect(series.steps.length).toBeGreaterThan(0);
+    const capacity = await readRunCapacitySeries(run.id, { stepId: "discharge", cycle: 1, points: 300 });
+    // The curve ends at the step's delivered capacity (trapezoid over every sample), in mAh.
+    const delivered = own.steps.find((s) => s.stepId === "discharge")?.results?.capacityAh ?? 0;
+    expect(capacity.capacityMAh.at(-1)! / 1000).toBeCloseTo(delivered, 3);
+
+    // Version 2 asks for a rest of at least 3 h; the run rested 2 h under version 1.
+    const { versionId: v2 } = await startNewDraft(lab.engineer, lab.versionId);
+    const draft = procedureDraftSchema.parse({ definition: structuredClone(ratedCapacityAt20cTemplate) });
+    draft.definition.header.code = "T-RUN-D";
+    const rest = draft.definition.steps.find((s) => s.id === "rest");
+    if (rest?.kind !== "rest") throw new Error("template changed: no rest step");
+    rest.minDuration = { value: 3, unit: "h" };
+    await saveDraft(lab.engineer, v2, draft);
+    await submitForReview(lab.engineer, v2);
+    await releaseVersion(await makeUser("engineer", "Sol Second"), v2);
+
+    const newer = await evaluateStoredRun(lab.operator, run.id, { againstVersionId: v2 });
+    expect(newer.evaluatedAgainst).toMatchObject({ procedureVersionId: v2, runProcedureVersionId: lab.versionId, otherThanRunVersion: true });
+    const restFindings = newer.steps.find((s) => s.stepId === "rest")?.findings ?? [];
+    expect(restFindings.some((f) => f.outcome === "deviates")).toBe(true);
+    const row = await getDb().selectFrom("run_evaluation").select("procedure_version_id").where("run_id", "=", run.id).orderBy("evaluated_at", "desc").executeTakeFirstOrThrow();
+    expect(row.procedure_version_id).toBe(v2);
   });
 });

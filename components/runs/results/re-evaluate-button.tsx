@@ -6,15 +6,24 @@ import { postJson } from "@/components/procedure-preview/post-json";
 import { Button } from "@/components/ui/button";
 
 /** Evaluates the run again from what is stored, then shows the new evaluation. */
-export function ReEvaluateButton({ runId, runLogId }: { runId: string; runLogId: string | null }) {
+export function ReEvaluateButton({
+  runId,
+  runLogId,
+  otherVersions = [],
+}: {
+  runId: string;
+  runLogId: string | null;
+  otherVersions?: { id: string; label: string }[];
+}) {
   const router = useRouter();
   const [problem, setProblem] = useState<string | null>(null);
+  const [against, setAgainst] = useState("");
   const [busy, startTransition] = useTransition();
   const evaluate = () =>
     startTransition(async () => {
       setProblem(null);
       try {
-        await postJson(`/api/runs/${runId}/evaluations`, { runLogId });
+        await postJson(`/api/runs/${runId}/evaluations`, { runLogId, ...(against && { againstVersionId: against }) });
         router.refresh();
       } catch (e) {
         setProblem(e instanceof Error ? e.message : String(e));
@@ -22,6 +31,19 @@ export function ReEvaluateButton({ runId, runLogId }: { runId: string; runLogId:
     });
   return (
     <div className="flex flex-col items-end gap-1">
+      {otherVersions.length > 0 && (
+        <label className="flex flex-col text-sm">
+          Judge against
+          <select value={against} onChange={(e) => setAgainst(e.target.value)} className="rounded border border-rule bg-white px-2 py-1">
+            <option value="">the version the run was carried out under</option>
+            {otherVersions.map((v) => (
+              <option key={v.id} value={v.id}>
+                {v.label}
+              </option>
+            ))}
+          </select>
+        </label>
+      )}
       <Button variant="secondary" onClick={evaluate} disabled={busy}>
         {busy ? "Evaluating…" : "Evaluate again"}
       </Button>

@@ -6,7 +6,9 @@ import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
+import { listProcedureVersions } from "@/db/procedures";
 import { getCurrentRunLog } from "@/db/run-logs";
+import { getRun } from "@/db/runs";
 import { getLatestRunEvaluation } from "@/db/run-series";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
@@ -16,9 +18,15 @@ import { listResultRows } from "@/lib/runs/list-result-rows";
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePagePermission("run.read");
   const runId = z.uuid().parse((await params).id);
-  const [stored, log] = await Promise.all([getLatestRunEvaluation(getDb(), runId), getCurrentRunLog(getDb(), runId)]);
+  const [stored, log, run] = await Promise.all([getLatestRunEvaluation(getDb(), runId), getCurrentRunLog(getDb(), runId), getRun(getDb(), runId)]);
   const mayEvaluate = can(user.role, "run.operate") || can(user.role, "run.review");
-  const action = mayEvaluate ? <ReEvaluateButton runId={runId} runLogId={log?.id ?? null} /> : null;
+  // Other versions of the same procedure the records can be judged against (marked as such).
+  const otherVersions = run
+    ? (await listProcedureVersions(getDb(), run.procedure.id))
+        .filter((v) => v.id !== run.procedureVersionId && (v.status === "released" || v.status === "withdrawn"))
+        .map((v) => ({ id: v.id, label: `${v.code} version ${v.number} (${v.status})` }))
+    : [];
+  const action = mayEvaluate ? <ReEvaluateButton runId={runId} runLogId={log?.id ?? null} otherVersions={otherVersions} /> : null;
   if (!stored) {
     return (
       <div className="flex flex-col items-start gap-3">
@@ -43,6 +51,13 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
           <h2 id="verdict-heading" className="mb-2 text-lg font-semibold">
             Verdict
           </h2>
+          {evaluation.evaluatedAgainst.otherThanRunVersion && (
+            <div className="mb-2">
+              <Notice tone="caution" title="Judged against another version">
+                {evaluation.evaluatedAgainst.note ?? "This evaluation used another version of the procedure"}: not the version the run was carried out under.
+              </Notice>
+            </div>
+          )}
           <VerdictWords verdict={evaluation.verdict} />
           <p className="mt-2 text-xs text-ink-soft">
             Evaluated {stored.evaluatedAt.toISOString().replace("T", " ").slice(0, 16)} UTC
