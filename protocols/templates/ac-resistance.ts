@@ -1,5 +1,6 @@
 // AC internal resistance: IEC 61960-3:2017 clause 7.7 (AC method), Rac = Ua / Ia.
 import type { Procedure } from '../procedure';
+import { standardCharge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 export const acResistanceTemplate: Procedure = {
@@ -18,14 +19,7 @@ export const acResistanceTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'charge',
-      id: 'charge',
-      label: 'Charge',
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    standardCharge(),
     {
       kind: 'rest',
       id: 'rest',

@@ -1,5 +1,6 @@
 // Charge retention after storage: IEC 61960-3:2017 clause 7.4 (clause number recalled).
 import type { Procedure } from '../procedure';
+import { preconditionDischarge, standardCharge, measuredDischarge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 export const chargeRetentionTemplate: Procedure = {
@@ -20,22 +21,8 @@ export const chargeRetentionTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'discharge',
-      id: 'precondition',
-      label: 'Precondition discharge',
-      purpose: 'precondition',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
-    {
-      kind: 'charge',
-      id: 'charge',
-      label: 'Charge',
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    preconditionDischarge(),
+    standardCharge(),
     {
       kind: 'rest',
       id: 'storage',
@@ -43,14 +30,7 @@ export const chargeRetentionTemplate: Procedure = {
       minDuration: { value: 672, unit: 'h' },
       instructions: 'Store the cell on open circuit; do not connect it to a charger or a load.',
     },
-    {
-      kind: 'discharge',
-      id: 'discharge',
-      label: 'Discharge after storage',
-      purpose: 'measure',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
+    measuredDischarge({ id: 'discharge', label: 'Discharge after storage' }),
   ],
   acceptance: [],
 };

@@ -1,6 +1,7 @@
 // DC internal resistance by a two-level discharge pulse: IEC 61960-3:2017 clause 7.7
 // (DC method). R = (U1 − U2) / (I2 − I1) is computed in lib/analysis from the recorded log.
 import type { Procedure } from '../procedure';
+import { standardCharge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 export const dcResistanceTemplate: Procedure = {
@@ -20,14 +21,7 @@ export const dcResistanceTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'charge',
-      id: 'charge',
-      label: 'Charge',
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    standardCharge(),
     {
       kind: 'rest',
       id: 'rest',

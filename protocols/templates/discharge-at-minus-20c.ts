@@ -1,5 +1,6 @@
 // Discharge performance at −20 °C: IEC 61960-3:2017 clause 7.3.2 (clause number recalled).
 import type { Procedure } from '../procedure';
+import { preconditionDischarge, standardCharge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 export const dischargeAtMinus20cTemplate: Procedure = {
@@ -20,22 +21,8 @@ export const dischargeAtMinus20cTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'discharge',
-      id: 'precondition',
-      label: 'Precondition discharge',
-      purpose: 'precondition',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
-    {
-      kind: 'charge',
-      id: 'charge',
-      label: 'Charge at 20 °C',
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    preconditionDischarge(),
+    standardCharge({ label: 'Charge at 20 °C' }),
     {
       kind: 'soak',
       id: 'cold-soak',

@@ -3,6 +3,7 @@
 import type { Procedure } from '../procedure';
 import type { CurrentReference } from '../quantity';
 import type { Step } from '../step';
+import { measuredDischarge, preconditionDischarge, standardCharge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 // `words` follows "the … discharge"; `at` follows "Discharge at …".
@@ -15,28 +16,14 @@ const rates: ReadonlyArray<{ key: string; words: string; at: string; current: Cu
 
 function buildCycle(rate: (typeof rates)[number], isLast: boolean): Step[] {
   const cycle: Step[] = [
-    {
-      kind: 'charge',
-      id: `charge-${rate.key}`,
-      label: `Charge before the ${rate.words} discharge`,
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    standardCharge({ id: `charge-${rate.key}`, label: `Charge before the ${rate.words} discharge` }),
     {
       kind: 'rest',
       id: `rest-${rate.key}`,
       label: `Rest before the ${rate.words} discharge`,
       minDuration: { value: 1, unit: 'h' },
     },
-    {
-      kind: 'discharge',
-      id: `discharge-${rate.key}`,
-      label: `Discharge at ${rate.at}`,
-      purpose: 'measure',
-      current: rate.current,
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
+    measuredDischarge({ id: `discharge-${rate.key}`, label: `Discharge at ${rate.at}`, current: rate.current }),
   ];
   if (isLast) return cycle;
   return [
@@ -67,14 +54,7 @@ export const rateCapabilityTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'discharge',
-      id: 'precondition',
-      label: 'Precondition discharge',
-      purpose: 'precondition',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
+    preconditionDischarge(),
     ...rates.flatMap((rate, index) => buildCycle(rate, index === rates.length - 1)),
   ],
   acceptance: [],

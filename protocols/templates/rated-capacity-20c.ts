@@ -1,6 +1,7 @@
 // Rated capacity at 20 °C: IEC 61960-3:2017 clause 7.2 (charge for test purposes) and 7.3.1
 // (discharge performance at 20 °C). Values are template parameters; see `notes` for their marks.
 import type { Procedure } from '../procedure';
+import { preconditionDischarge, standardCharge, measuredDischarge } from './common-steps';
 import { notePractice, noteRecalled } from './template-notes';
 
 export const ratedCapacityAt20cTemplate: Procedure = {
@@ -20,22 +21,8 @@ export const ratedCapacityAt20cTemplate: Procedure = {
     ],
   },
   steps: [
-    {
-      kind: 'discharge',
-      id: 'precondition',
-      label: 'Precondition discharge',
-      purpose: 'precondition',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
-    {
-      kind: 'charge',
-      id: 'charge',
-      label: 'Charge',
-      current: { spec: 'standardChargeCurrent' },
-      voltage: { spec: 'chargeVoltage' },
-      termination: { kind: 'current', current: { spec: 'chargeTerminationCurrent' } },
-    },
+    preconditionDischarge(),
+    standardCharge(),
     {
       kind: 'rest',
       id: 'rest',
@@ -43,14 +30,7 @@ export const ratedCapacityAt20cTemplate: Procedure = {
       minDuration: { value: 1, unit: 'h' },
       maxDuration: { value: 4, unit: 'h' },
     },
-    {
-      kind: 'discharge',
-      id: 'discharge',
-      label: 'Capacity discharge at 0.2 It',
-      purpose: 'measure',
-      current: { multipleOfIt: 0.2 },
-      endVoltage: { spec: 'endOfDischargeVoltage' },
-    },
+    measuredDischarge({ id: 'discharge', label: 'Capacity discharge at 0.2 It' }),
   ],
   acceptance: [{ kind: 'capacity', id: 'rated-capacity', stepId: 'discharge', atLeastPercent: 100, of: 'rated' }],
   repeat: {
