@@ -79,8 +79,12 @@ export async function getRun(db: Executor, id: string, opts: { forUpdate?: boole
   return r ? toView(r) : null;
 }
 
-export async function listRuns(db: Executor, filter: { status?: RunStatus; specimenId?: string; limit?: number } = {}): Promise<RunView[]> {
+export async function listRuns(
+  db: Executor,
+  filter: { status?: RunStatus; specimenId?: string; operatorId?: string; limit?: number } = {},
+): Promise<RunView[]> {
   let q = runQuery(db).orderBy("r.created_at", "desc").limit(filter.limit ?? 200);
+  if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
   if (filter.status) q = q.where("r.status", "=", filter.status);
   if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
   return (await q.execute()).map(toView);

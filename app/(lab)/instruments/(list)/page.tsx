@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { z } from "zod";
 import { InstrumentRow } from "@/components/instruments/instrument-row";
 import { Notice } from "@/components/ui/notice";
+import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listInstruments } from "@/db/instruments";
@@ -37,9 +37,9 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
         lead={`Cycler channels, thermometers, climate chambers, balances and resistance meters with their calibration, those in use first. A run cannot start on an instrument that is overdue or out of use. Calibration dates are read against today, ${today}.`}
         actions={
           manage && (
-            <Link href="/instruments/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/instruments/new">
               Register an instrument
-            </Link>
+            </ActionLink>
           )
         }
       />

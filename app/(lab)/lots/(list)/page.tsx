@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { z } from "zod";
+import { ActionLink } from "@/components/ui/action-link";
+import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listLots } from "@/db/lots";
@@ -21,21 +23,13 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
         lead="Cells received together from one supplier. The specimens drawn from a lot for testing are registered under it."
         actions={
           can(user.role, "specimen.manage") && (
-            <Link href="/lots/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/lots/new">
               Register a lot
-            </Link>
+            </ActionLink>
           )
         }
       />
-      <form className="mb-4 flex items-end gap-2" role="search">
-        <label className="flex flex-col text-sm">
-          Lot, supplier, maker or model
-          <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
-        </label>
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
-      </form>
+      <TextSearch label="Lot, supplier, maker or model" value={q} />
       <div className="overflow-x-auto">
         <table className="figures w-full border-collapse text-sm">
           <thead>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { z } from "zod";
 import { StatusBadge } from "@/components/procedures/status-badge";
+import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listProcedures } from "@/db/procedures";
@@ -31,9 +32,9 @@ export default async function ProceduresPage({ searchParams }: { searchParams: P
         }
         actions={
           author && (
-            <Link href="/procedures/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/procedures/new">
               New procedure
-            </Link>
+            </ActionLink>
           )
         }
       />

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { z } from "zod";
+import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listRuns } from "@/db/runs";
@@ -20,9 +21,7 @@ const filterSchema = z.object({
 export default async function RunsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePagePermission("run.read");
   const filter = filterSchema.parse(await searchParams);
-  const all = await listRuns(getDb(), { status: filter.status });
-  // listRuns has no operator filter yet; the newest 200 are narrowed here.
-  const runs = filter.mine ? all.filter((r) => r.operator.id === user.id) : all;
+  const runs = await listRuns(getDb(), { status: filter.status, operatorId: filter.mine ? user.id : undefined });
   return (
     <>
       <PageHeader
@@ -30,9 +29,9 @@ export default async function RunsPage({ searchParams }: { searchParams: Promise
         lead="Each run is one procedure version carried out on one specimen, with its set-points frozen when it was started."
         actions={
           can(user.role, "run.operate") && (
-            <Link href="/runs/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/runs/new">
               Start a run
-            </Link>
+            </ActionLink>
           )
         }
       />

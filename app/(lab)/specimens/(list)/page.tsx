@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { z } from "zod";
 import { SpecimensTable } from "@/components/specimens/specimens-table";
+import { ActionLink } from "@/components/ui/action-link";
+import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listSpecimens } from "@/db/specimens";
@@ -21,21 +22,13 @@ export default async function SpecimensPage({ searchParams }: { searchParams: Pr
         lead="Each cell the lab tests, with its own identifier, its cell specification, its lot and how it arrived."
         actions={
           can(user.role, "specimen.manage") && (
-            <Link href="/specimens/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/specimens/new">
               Register a specimen
-            </Link>
+            </ActionLink>
           )
         }
       />
-      <form className="mb-4 flex items-end gap-2" role="search">
-        <label className="flex flex-col text-sm">
-          Specimen, lot, maker, model or condition
-          <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
-        </label>
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
-      </form>
+      <TextSearch label="Specimen, lot, maker, model or condition" value={q} />
       <SpecimensTable specimens={specimens} />
     </>
   );

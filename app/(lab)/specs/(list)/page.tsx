@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { z } from "zod";
+import { ActionLink } from "@/components/ui/action-link";
+import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
@@ -21,21 +23,13 @@ export default async function SpecsPage({ searchParams }: { searchParams: Promis
         lead="Datasheet values of each cell type the lab tests. Procedures resolve their currents and voltages from these."
         actions={
           can(user.role, "spec.manage") && (
-            <Link href="/specs/new" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <ActionLink href="/specs/new">
               New specification
-            </Link>
+            </ActionLink>
           )
         }
       />
-      <form className="mb-4 flex items-end gap-2" role="search">
-        <label className="flex flex-col text-sm">
-          Maker, model or designation
-          <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
-        </label>
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
-      </form>
+      <TextSearch label="Maker, model or designation" value={q} />
       <div className="overflow-x-auto">
         <table className="figures w-full border-collapse text-sm">
           <thead>
