@@ -173,7 +173,8 @@ describe("parseLog on arbitrary input", () => {
         if (result.ok) accepted++;
         expectWellFormed(result, text.split("\n").length);
       }),
-      { numRuns: 500 },
+      // Seeded: the count below checks the generator's reach, which must not depend on the draw.
+      { numRuns: 500, seed: 61960 },
     );
     // The damage is light enough that some logs get through whole.
     expect(accepted).toBeGreaterThan(10);
