@@ -145,6 +145,7 @@ export interface LotTable {
   created_by: string;
   created_at: DefaultedTimestamp;
   updated_at: DefaultedTimestamp;
+  customer: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface SpecimenTable {
@@ -228,6 +229,72 @@ export interface RunEvaluationTable {
   evaluated_at: DefaultedTimestamp;
 }
 
+export type SignatureMeaning = "reviewed" | "approved";
+
+export interface ElectronicSignatureTable {
+  id: Generated<string>;
+  signer_id: string;
+  printed_name: string;
+  meaning: SignatureMeaning;
+  signed_at: DefaultedTimestamp;
+  entity_type: "run" | "certificate";
+  entity_id: string;
+  record_sha256: string;
+}
+
+export type ReviewDecision = "returned" | "accepted";
+
+export interface RunReviewTable {
+  id: Generated<string>;
+  run_id: string;
+  reviewer_id: string;
+  decision: ReviewDecision;
+  comments: ColumnType<string, string | undefined, never>;
+  run_evaluation_id: string | null;
+  /** [{ findingId, note }]: the reviewer's note on each deviating finding. */
+  acknowledged_deviations: ColumnType<unknown, string | undefined, never>;
+  signature_id: string | null;
+  created_at: DefaultedTimestamp;
+}
+
+export interface CertificateTable {
+  id: Generated<string>;
+  number: Generated<string>;
+  run_id: string | null;
+  lot_id: string | null;
+  replaces_id: string | null;
+  amendment_reason: string | null;
+  payload: JsonColumn;
+  payload_sha256: string;
+  pdf_file_id: string;
+  pdf_sha256: string;
+  issued_by: string;
+  issued_at: DefaultedTimestamp;
+  signature_id: string;
+  revoked_at: Date | null;
+  revoked_by: string | null;
+  revocation_reason: string | null;
+}
+
+export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due";
+
+export interface MailMessageTable {
+  id: Generated<string>;
+  kind: MailKind;
+  recipients: string[];
+  subject: string;
+  body: string;
+  entity_type: string | null;
+  entity_id: string | null;
+  once_key: string | null;
+  created_at: DefaultedTimestamp;
+  attempts: ColumnType<number, number | undefined, number>;
+  next_attempt_at: DefaultedTimestamp;
+  sent_at: Date | null;
+  last_error: string | null;
+  smtp_message_id: string | null;
+}
+
 export interface Database {
   lab: LabTable;
   app_user: AppUserTable;
@@ -247,4 +314,8 @@ export interface Database {
   run_log: RunLogTable;
   run_log_chunk: RunLogChunkTable;
   run_evaluation: RunEvaluationTable;
+  electronic_signature: ElectronicSignatureTable;
+  run_review: RunReviewTable;
+  certificate: CertificateTable;
+  mail_message: MailMessageTable;
 }

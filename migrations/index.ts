@@ -3,6 +3,7 @@ import * as m0001 from "./0001_foundation";
 import * as m0002 from "./0002_procedures";
 import * as m0003 from "./0003_specimens_instruments";
 import * as m0004 from "./0004_runs";
+import * as m0005 from "./0005_review_certificates_mail";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -13,4 +14,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0002_procedures": m0002,
   "0003_specimens_instruments": m0003,
   "0004_runs": m0004,
+  "0005_review_certificates_mail": m0005,
 };
