@@ -14,6 +14,10 @@ const UNIQUE_MESSAGES: Record<string, string> = {
   instrument_identifier_key: "An instrument with this identifier is already registered.",
   lot_identifier_key: "A lot with this identifier is already registered.",
   specimen_identifier_key: "A specimen with this identifier is already registered.",
+  electronic_signature_once: "This record already carries a signature with that meaning; it is signed once only.",
+  certificate_replaces_id_key: "That certificate has already been replaced by an amendment; amend the newest one.",
+  run_review_signature_id_key: "This signature already belongs to another review.",
+  certificate_signature_id_key: "This signature already belongs to another certificate.",
 };
 
 const CHECK_MESSAGES: Record<string, string> = {
@@ -21,6 +25,10 @@ const CHECK_MESSAGES: Record<string, string> = {
   instrument_kind_known: "Choose a kind of instrument from the list.",
   instrument_due_after_calibration: "The calibration due date must be after the calibration date.",
   lot_quantity_received_positive: "The quantity received must be at least one cell.",
+  run_review_return_says_why: "Say what the operator must fix: a returned run needs comments.",
+  run_review_accept_is_signed: "Accepting a run needs the reviewer's signature and the evaluation reviewed.",
+  certificate_amendment_says_why: "An amendment must say why it replaces the earlier certificate.",
+  certificate_revocation_complete: "A revocation needs a reason, who revoked and when.",
 };
 
 /** Turns a constraint error from pg into a DomainError with a plain message, or returns null. */
