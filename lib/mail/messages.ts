@@ -1,0 +1,51 @@
+import { publicUrl } from "@/lib/public-url";
+
+/** Plain-text notices, in the lab's words. Each names the record and links to it. */
+export interface ComposedMail {
+  subject: string;
+  body: string;
+}
+
+const FOOTER = "\n\n— Cellwright, on behalf of your laboratory. This message was sent automatically; reply to your lab, not to it.";
+
+export function composeRunSubmitted(input: { runNumber: string; runId: string; specimen: string; procedure: string; operatorName: string }): ComposedMail {
+  return {
+    subject: `Run ${input.runNumber} submitted for review`,
+    body:
+      `${input.operatorName} submitted run ${input.runNumber} (${input.procedure} on specimen ${input.specimen}) for review.\n\n` +
+      `Review it (you may not review a run you operated): ${publicUrl(`/runs/${input.runId}/review`)}` +
+      FOOTER,
+  };
+}
+
+export function composeRunReturned(input: { runNumber: string; runId: string; reviewerName: string; comments: string }): ComposedMail {
+  return {
+    subject: `Run ${input.runNumber} returned to you`,
+    body:
+      `${input.reviewerName} returned run ${input.runNumber} with these comments:\n\n${input.comments}\n\n` +
+      `Correct the records or upload the log again, then submit the run: ${publicUrl(`/runs/${input.runId}`)}` +
+      FOOTER,
+  };
+}
+
+export function composeCertificateIssued(input: { certificateNumber: string; runOrLot: string; verdict: string; issuerName: string; replaces?: string }): ComposedMail {
+  return {
+    subject: `Certificate ${input.certificateNumber} issued${input.replaces ? ` (replaces ${input.replaces})` : ""}`,
+    body:
+      `${input.issuerName} issued certificate ${input.certificateNumber} for ${input.runOrLot}: ${input.verdict}.` +
+      (input.replaces ? `\nIt replaces certificate ${input.replaces}, which is now superseded.` : "") +
+      `\n\nOpen it: ${publicUrl(`/certificates/${input.certificateNumber}`)}\nPublic check: ${publicUrl(`/check/${input.certificateNumber}`)}` +
+      FOOTER,
+  };
+}
+
+export function composeCalibrationDue(input: { instrument: string; dueOn: string; daysLeft: number; instrumentId: string }): ComposedMail {
+  const when = input.daysLeft < 0 ? `was due on ${input.dueOn}` : input.daysLeft === 0 ? `is due today (${input.dueOn})` : `is due on ${input.dueOn}, in ${input.daysLeft} day${input.daysLeft === 1 ? "" : "s"}`;
+  return {
+    subject: `Calibration of ${input.instrument} ${input.daysLeft < 0 ? "overdue" : "due soon"}`,
+    body:
+      `The calibration of ${input.instrument} ${when}. Runs cannot start on an instrument whose calibration is overdue.\n\n` +
+      `Instrument record: ${publicUrl(`/instruments/${input.instrumentId}`)}` +
+      FOOTER,
+  };
+}
