@@ -1,4 +1,5 @@
 import type { AcceptanceCriterion } from './acceptance-criterion';
+import { readDecisionRule, type DecisionRule } from './decision-rule';
 import type { Procedure } from './procedure';
 import type { RepeatRule } from './repeat-rule';
 import type { Step } from './step';
@@ -33,6 +34,8 @@ export interface ProcedureComparison {
   /** Steps in the order of the second version, removed steps placed after their former neighbour. */
   steps: StepComparison[];
   acceptance: CriterionComparison[];
+  /** The decision rule of each version; a definition that names none is read as simple acceptance. */
+  decisionRule: { change: 'changed' | 'unchanged'; before: DecisionRule; after: DecisionRule };
   repeat: { change: ItemChange; before?: RepeatRule; after?: RepeatRule; changedFields: string[] };
 }
 
@@ -157,11 +160,14 @@ export function compareProcedures(before: Procedure, after: Procedure): Procedur
   const steps = compareSteps(before.steps, after.steps);
   const acceptance = compareCriteria(before.acceptance, after.acceptance);
   const repeat = compareRepeat(before.repeat, after.repeat);
+  const rules = { before: readDecisionRule(before), after: readDecisionRule(after) };
+  const decisionRule = { change: rules.before === rules.after ? ('unchanged' as const) : ('changed' as const), ...rules };
   const identical =
     headerChangedFields.length === 0 &&
     steps.every((entry) => entry.change === 'unchanged' && !entry.moved) &&
     acceptance.every((entry) => entry.change === 'unchanged') &&
     before.acceptance.map((c) => c.id).join('\n') === after.acceptance.map((c) => c.id).join('\n') &&
-    repeat.change === 'unchanged';
-  return { identical, headerChangedFields, steps, acceptance, repeat };
+    repeat.change === 'unchanged' &&
+    decisionRule.change === 'unchanged';
+  return { identical, headerChangedFields, steps, acceptance, decisionRule, repeat };
 }

@@ -5,6 +5,7 @@ export * from './assert-never';
 export * from './cell-specification';
 export * from './compare-procedures';
 export * from './compare-references';
+export * from './decision-rule';
 export * from './describe-criterion';
 export * from './describe-step';
 export * from './designation';

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { explainTypeError } from './explain-type-error';
 import { acceptanceCriterionSchema } from './acceptance-criterion';
+import { decisionRuleSchema } from './decision-rule';
 import { setPointTolerancesSchema } from './measurement-tolerances';
 import { checkProcedureConsistency } from './procedure-consistency';
 import { temperatureRangeSchema } from './quantity';
@@ -35,6 +36,11 @@ export const procedureSchema = z
     header: procedureHeaderSchema,
     steps: z.array(stepSchema).min(1, { error: 'a procedure needs at least one step' }),
     acceptance: z.array(acceptanceCriterionSchema),
+    /**
+     * How uncertainty enters the statement of conformity. Definitions stored before the field existed
+     * have none: read them with readDecisionRule, which gives simple acceptance.
+     */
+    decisionRule: decisionRuleSchema.optional(),
     repeat: repeatRuleSchema.optional(),
   })
   .superRefine((procedure, ctx) => checkProcedureConsistency(procedure, ctx));

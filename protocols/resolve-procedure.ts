@@ -1,6 +1,7 @@
 import { assertNever } from './assert-never';
 import type { CapacityCriterion } from './acceptance-criterion';
 import type { CellSpecification } from './cell-specification';
+import { readDecisionRule } from './decision-rule';
 import { formatNumber, roundSignificant } from './format-number';
 import type { Procedure } from './procedure';
 import { resolveDuration, resolveResistance, type ResolvedValue } from './resolve-quantity';
@@ -117,6 +118,7 @@ export function resolveProcedure(input: ResolveProcedureInput): ResolveProcedure
     resolution: {
       steps,
       acceptance,
+      decisionRule: readDecisionRule(procedure),
       ...(procedure.repeat && { repeat: procedure.repeat }),
       errors: issues.errors,
       cautions,

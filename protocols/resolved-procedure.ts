@@ -1,4 +1,5 @@
 import type { CapacityBasis } from './acceptance-criterion';
+import type { DecisionRule } from './decision-rule';
 import type { SetPointToleranceName } from './measurement-tolerances';
 import type { RepeatRule } from './repeat-rule';
 import type { ResolvedTemperatureRange, ResolvedValue } from './resolve-quantity';
@@ -133,6 +134,11 @@ export interface ResolutionCaution {
 export interface ProcedureResolution {
   steps: ResolvedStep[];
   acceptance: ResolvedCriterion[];
+  /**
+   * The procedure's decision rule for its acceptance criteria. Resolutions frozen on runs planned
+   * before procedures stated a rule have none: read them with readDecisionRule.
+   */
+  decisionRule: DecisionRule;
   repeat?: RepeatRule;
   errors: ResolutionError[];
   cautions: ResolutionCaution[];

@@ -8,6 +8,7 @@ import { createCriterion, type CriterionValue, type StepValue } from "./draft-va
 import { fieldId } from "./field-paths";
 import { inputClass, PathErrors } from "./field-shell";
 import { CRITERION_WORDS, CriterionCard } from "./criterion-card";
+import { DecisionRuleField } from "./decision-rule-field";
 import { useDraftValue, usePathErrors, useRevalidate } from "./use-draft-field";
 
 const PATH = "definition.acceptance";
@@ -31,6 +32,7 @@ export function AcceptanceEditor() {
         Capacity and duration criteria judge a discharge step; a resistance criterion judges a pulse or an AC resistance measurement.
         With none, results are reported without a pass/fail statement.
       </p>
+      <DecisionRuleField />
       <div id={fieldId(PATH)} tabIndex={-1}>
         <PathErrors path={PATH} errors={errors} />
       </div>

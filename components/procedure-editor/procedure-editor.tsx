@@ -4,6 +4,7 @@ import { useEffect, useRef, useState, useTransition } from "react";
 import { FormProvider, useForm, type FieldValues, type UseFormSetError } from "react-hook-form";
 import type { ActionState } from "@/lib/forms/action-state";
 import type { ProcedureDraftInput } from "@/lib/procedures/procedure-input";
+import { readDecisionRule } from "@/protocols";
 import { AcceptanceEditor } from "./acceptance-editor";
 import { draftResolver } from "./draft-resolver";
 import type { DraftFormValues } from "./draft-values";
@@ -36,7 +37,8 @@ export function ProcedureEditor({
 }) {
   const form = useForm<DraftFormValues, unknown, ProcedureDraftInput>({
     resolver: draftResolver,
-    defaultValues: initial,
+    // A draft saved before procedures named a decision rule opens with the rule it was judged by.
+    defaultValues: { ...initial, definition: { ...initial.definition, decisionRule: readDecisionRule(initial.definition) } },
     mode: "onSubmit",
   });
   const [answer, setAnswer] = useState<ActionState | null>(null);

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import type { ProcedureResolution } from "@/protocols";
+import { readDecisionRule, type ProcedureResolution } from "@/protocols";
 import { ProblemList } from "./problem-list";
 import { ResolutionCautions, ResolutionErrors } from "./resolution-issues";
 import { ResolvedAcceptance } from "./resolved-acceptance";
@@ -104,7 +104,7 @@ function ResolvedView({
       <ResolutionErrors errors={resolution.errors} />
       <ResolutionCautions cautions={resolution.cautions} acknowledged={acknowledged} onAcknowledgeChange={onAcknowledgeChange} />
       <ResolvedStepsTable steps={resolution.steps} flaggedStepIds={flagged} />
-      <ResolvedAcceptance acceptance={resolution.acceptance} steps={resolution.steps} repeat={resolution.repeat} />
+      <ResolvedAcceptance acceptance={resolution.acceptance} steps={resolution.steps} repeat={resolution.repeat} decisionRule={readDecisionRule(resolution)} />
       {resolution.unmatchedAcknowledgements.length > 0 && (
         <p className="text-xs text-ink-soft">
           {resolution.unmatchedAcknowledgements.length === 1 ? "One acknowledgement" : `${resolution.unmatchedAcknowledgements.length} acknowledgements`}{" "}

@@ -1,4 +1,13 @@
-import { assertNever, formatNumber, type RepeatRule, type ResolvedCriterion, type ResolvedStep, type ResolvedValue } from "@/protocols";
+import {
+  assertNever,
+  explainDecisionRule,
+  formatNumber,
+  type DecisionRule,
+  type RepeatRule,
+  type ResolvedCriterion,
+  type ResolvedStep,
+  type ResolvedValue,
+} from "@/protocols";
 import { formatResolvedValue } from "./format-resolved";
 
 function describeLimit(criterion: ResolvedCriterion): { words: string; sign: "≥" | "≤"; limit: ResolvedValue | null } {
@@ -18,15 +27,17 @@ function describeLimit(criterion: ResolvedCriterion): { words: string; sign: "�
   }
 }
 
-/** The acceptance limits for this cell, and the repeat rule that uses one of them. */
+/** The acceptance limits for this cell, the decision rule that judges them, and the repeat rule that uses one of them. */
 export function ResolvedAcceptance({
   acceptance,
   steps,
   repeat,
+  decisionRule,
 }: {
   acceptance: readonly ResolvedCriterion[];
   steps: readonly ResolvedStep[];
   repeat?: RepeatRule;
+  decisionRule: DecisionRule;
 }) {
   const nameStep = (id: string) => {
     const step = steps.find((candidate) => candidate.id === id);
@@ -60,6 +71,11 @@ export function ResolvedAcceptance({
             );
           })}
         </ul>
+      )}
+      {acceptance.length > 0 && (
+        <p className="text-sm" data-testid="preview-decision-rule">
+          Decision rule: <span className="font-medium">{decisionRule}</span>. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+        </p>
       )}
       {repeat && (
         <p className="text-sm">

@@ -1,6 +1,6 @@
 import { RichTextView } from "@/components/rich-text/rich-text-view";
 import type { RichTextDoc } from "@/lib/rich-text";
-import { describeCriterion, describeStep, formatQuantity, type Procedure } from "@/protocols";
+import { describeCriterion, describeStep, explainDecisionRule, formatQuantity, readDecisionRule, type Procedure } from "@/protocols";
 
 /** A procedure version read like a paper method sheet: header, steps in order, criteria, cautions. */
 export function ProcedureDefinitionView({
@@ -15,6 +15,8 @@ export function ProcedureDefinitionView({
   acknowledgedCautions: string[];
 }) {
   const { header, steps, acceptance, repeat } = definition;
+  // A definition stored before procedures named a rule was judged by simple acceptance.
+  const decisionRule = readDecisionRule(definition);
   return (
     <div className="flex flex-col gap-6">
       <section aria-labelledby="scope" className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
@@ -74,6 +76,11 @@ export function ProcedureDefinitionView({
               <li key={c.id}>{describeCriterion(c)}</li>
             ))}
           </ul>
+        )}
+        {acceptance.length > 0 && (
+          <p className="mt-2 text-sm" data-testid="decision-rule">
+            <span className="font-semibold">Decision rule:</span> {decisionRule}. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+          </p>
         )}
         {repeat && (
           <p className="mt-2 text-sm">

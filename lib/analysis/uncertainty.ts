@@ -19,6 +19,8 @@ export interface UncertaintySource {
   source: string;
   tolerance: Tolerance;
   distribution?: Distribution;
+  /** The limit in the words the instrument states it, e.g. "±50 ppm of the elapsed time"; else described from `tolerance`. */
+  statedLimit?: string;
 }
 
 /** One line of an uncertainty budget (GUM 8: the table shown on the certificate). */
@@ -136,6 +138,7 @@ export function createBudgetRow(input: {
   reading: number;
   unit: string;
   sensitivity: number;
+  statedLimit?: string;
 }): UncertaintyBudgetRow {
   const distribution = input.distribution ?? rectangular;
   const halfWidth = computeHalfWidth(input.tolerance, input.reading);
@@ -145,7 +148,7 @@ export function createBudgetRow(input: {
   return {
     quantity: input.quantity,
     source: input.source,
-    tolerance: describeTolerance(input.tolerance, input.unit),
+    tolerance: input.statedLimit ?? describeTolerance(input.tolerance, input.unit),
     halfWidth,
     unit: input.unit,
     distribution: distribution.kind,

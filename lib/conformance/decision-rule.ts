@@ -1,13 +1,15 @@
 import { fail, succeed, type AnalysisResult } from "@/lib/analysis/analysis-result";
+import type { DecisionRule } from "@/protocols";
 
 /**
- * The decision rule (ISO/IEC 17025:2017 3.7 and 7.8.6; ILAC-G8:09/2019; JCGM 106:2012):
+ * The decision rule (ISO/IEC 17025:2017 3.7 and 7.8.6; ILAC-G8:09/2019; JCGM 106:2012), named by
+ * the procedure (protocols/decision-rule.ts):
  * - simple acceptance: the measured value is compared with the limit as it is (guard band w = 0);
  * - guarded acceptance: a result conforms only when it clears the limit by the expanded
  *   uncertainty U (guard band w = U); a result on the wrong side of the limit does not conform;
  *   a result between the limit and the acceptance limit is not decided.
  */
-export type DecisionRule = "simple acceptance" | "guarded acceptance";
+export type { DecisionRule };
 
 export type ConformityOutcome = "conforms" | "does not conform" | "not decided";
 

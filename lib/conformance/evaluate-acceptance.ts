@@ -1,9 +1,16 @@
 import { assertNever, type ResolvedCriterion } from "@/protocols";
 import { hasStoppedBeforeEndVoltage } from "./check-end-condition";
 import { evaluateConformity, type ConformityOutcome, type DecisionRule, type SpecificationLimit } from "./decision-rule";
+import type { CriterionUncertainty, UncertaintyQuantity } from "./evaluate-uncertainty";
 import type { FindingUnit, FindingValue } from "./finding";
 import { citeProcedure, formatValue } from "./format-value";
 import type { StepContext } from "./step-context";
+
+/** How a criterion is judged: the procedure's decision rule and the measured value's uncertainty. */
+export interface AcceptanceJudgement {
+  rule: DecisionRule;
+  uncertainty: CriterionUncertainty;
+}
 
 /** One acceptance criterion judged on one cycle of its step. */
 export interface AcceptanceResult {
@@ -15,8 +22,13 @@ export interface AcceptanceResult {
   measured: FindingValue | null;
   outcome: ConformityOutcome;
   rule: DecisionRule;
-  /** U in the criterion's unit (Ah, s, Ω), when the caller gave one. */
+  /** U in the criterion's unit (Ah, s, Ω), when the step's budget gives one. */
   expandedUncertainty: number | null;
+  /**
+   * Where U came from (the step's budget: quantity, U/|y|, k), or why it was not evaluated. Absent
+   * in evaluations stored before budgets were made.
+   */
+  uncertainty: { evaluated: true; quantity: UncertaintyQuantity; relativeExpanded: number; coverageFactor: number } | { evaluated: false; reason: string };
   /** The decision rule applied and its outcome in words, for the certificate. */
   statement: string;
   clause: string;
@@ -75,18 +87,31 @@ function findMeasured(criterion: ResolvedCriterion, context: StepContext): { val
   }
 }
 
+const notGiven: AcceptanceJudgement = { rule: "simple acceptance", uncertainty: { evaluated: false, reason: "no uncertainty budget was given" } };
+
 /**
- * Judges one criterion on one cycle under the declared decision rule (decision-rule.ts: simple
- * acceptance unless the caller asks for guarded acceptance with an expanded uncertainty).
+ * Judges one criterion on one cycle under the procedure's decision rule (decision-rule.ts), with the
+ * expanded uncertainty of the step's budget as the guard band of guarded acceptance. Without a
+ * budget, simple acceptance still decides (and says the uncertainty was not evaluated); guarded
+ * acceptance cannot, so the result is not decided with that reason.
  * A discharge that stopped before its end voltage could only have delivered more, so a shortfall
  * on it is not decided rather than a failure (definition: capacity to the end voltage is at least
  * the capacity delivered so far).
  */
-export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepContext): AcceptanceResult {
+export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepContext, judgement: AcceptanceJudgement = notGiven): AcceptanceResult {
   const quantity = quantities[criterion.kind];
-  const rule = context.settings.decisionRule;
+  const { rule } = judgement;
   const limit = findLimit(criterion);
   const measured = findMeasured(criterion, context);
+  const budget = judgement.uncertainty.evaluated ? judgement.uncertainty.budget : null;
+  const uncertainty: AcceptanceResult["uncertainty"] = judgement.uncertainty.evaluated
+    ? {
+        evaluated: true,
+        quantity: judgement.uncertainty.quantity,
+        relativeExpanded: judgement.uncertainty.budget.relativeExpandedUncertainty,
+        coverageFactor: judgement.uncertainty.budget.coverageFactor,
+      }
+    : { evaluated: false, reason: judgement.uncertainty.reason };
   const base = {
     criterionId: criterion.id,
     kind: criterion.kind,
@@ -96,23 +121,24 @@ export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepCo
     clause: `${citeProcedure(context.citation, "acceptance criterion")}; decision rule: ISO/IEC 17025:2017 7.8.6, ILAC-G8:09/2019`,
     limit: limit && { text: `${limit.side === "lower" ? "at least" : "at most"} ${limit.explanation}`, value: limit.value, side: limit.side, unit: quantity.unit },
     measured: "reason" in measured ? null : { text: `${formatValue(measured.value, quantity.unit)}, ${measured.source}`, value: measured.value, unit: quantity.unit },
+    uncertainty,
   };
-  const uncertainty = context.settings.uncertainties[criterion.id];
-  const expanded =
-    uncertainty === undefined || "reason" in measured
-      ? null
-      : "expanded" in uncertainty
-        ? uncertainty.expanded
-        : uncertainty.relativeExpanded * Math.abs(measured.value);
+  // U scales with the measured value: the budget's relative U times |y| (the budget is made at this very value).
+  const expanded = budget === null || "reason" in measured ? null : budget.relativeExpandedUncertainty * Math.abs(measured.value);
+  const uncertaintyNote = uncertainty.evaluated ? null : `Measurement uncertainty not evaluated: ${uncertainty.reason}.`;
   const undecided = (why: string): AcceptanceResult => ({ ...base, expandedUncertainty: expanded, outcome: "not decided", statement: `Not decided: ${why}.`, notes: [] });
   if (limit === null) return undecided("the limit is not resolved on this cell specification");
   if ("reason" in measured) return undecided(measured.reason);
+  if (rule === "guarded acceptance" && expanded === null) {
+    return undecided(`guarded acceptance needs the expanded uncertainty, and it was not evaluated (${uncertainty.evaluated ? "no budget" : uncertainty.reason})`);
+  }
 
   const decision = evaluateConformity({
     measured: measured.value * quantity.scale,
     limit: { side: limit.side, value: limit.value * quantity.scale },
     rule,
     ...(expanded !== null && { expandedUncertainty: expanded * quantity.scale }),
+    ...(budget !== null && { coverageFactor: budget.coverageFactor }),
     unit: quantity.statementUnit,
     decimals: quantity.decimals,
   });
@@ -125,5 +151,5 @@ export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepCo
     if (outcome === "does not conform") outcome = "not decided";
   }
   const statement = outcome === decision.value.outcome ? decision.value.statement : `${decision.value.statement} Not decided, as the discharge stopped early.`;
-  return { ...base, expandedUncertainty: expanded, outcome, statement, notes };
+  return { ...base, expandedUncertainty: expanded, outcome, statement: uncertaintyNote === null ? statement : `${statement} ${uncertaintyNote}`, notes };
 }

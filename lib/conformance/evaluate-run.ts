@@ -1,5 +1,5 @@
 import type { DcResistancePulse, StepResults } from "@/lib/analysis";
-import type { FieldProblem, ProcedureResolution, ResolvedStep } from "@/protocols";
+import { readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
 import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
 import { checkAmbient } from "./check-ambient";
 import { checkCautionsAcknowledged } from "./check-cautions-acknowledged";
@@ -14,6 +14,12 @@ import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
 import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
+import {
+  evaluateStepUncertainties,
+  findCriterionUncertainty,
+  type StepUncertainty,
+  type UncertaintyNotEvaluated,
+} from "./evaluate-uncertainty";
 import { createRunFinding, type Finding } from "./finding";
 import { citeProcedure } from "./format-value";
 import { planRunSequence } from "./plan-run-sequence";
@@ -49,6 +55,18 @@ export interface RunEvaluation {
   /** Checks of the run as a whole. */
   runFindings: Finding[];
   log: RunLogSummary;
+  /**
+   * The procedure's decision rule, applied to every criterion. Absent in evaluations stored before the
+   * procedure named its rule (those were judged by simple acceptance).
+   */
+  decisionRule: DecisionRule;
+  /**
+   * Uncertainty budgets of each discharge step's capacity and energy and each pulse step's DC
+   * resistance, per cycle. Absent in evaluations stored before budgets were made: read with `?? []`.
+   */
+  uncertainty: StepUncertainty[];
+  /** Results with no budget, and why (no cycler channel, no stated accuracy). Absent in older stored evaluations. */
+  uncertaintyNotEvaluated: UncertaintyNotEvaluated[];
   /** Every criterion on every cycle of its step. */
   acceptance: AcceptanceResult[];
   repeat: RepeatOutcome | null;
@@ -140,8 +158,9 @@ function stateConformity({
 
 /**
  * Checks a run step by step against its resolved procedure: the records, the data log and the
- * cell's rating give findings per step and cycle; the acceptance criteria, under the declared
- * decision rule and the repeat rule, give the statement of conformity; the verdict keeps "was the
+ * cell's rating give findings per step and cycle; the run's instruments give the uncertainty budgets
+ * of the results; the acceptance criteria, under the procedure's decision rule with those budgets'
+ * expanded uncertainties, and the repeat rule, give the statement of conformity; the verdict keeps "was the
  * procedure followed?" apart from "does the specimen meet the requirement?". Pure and
  * deterministic: no clock, no randomness, the same input gives the same output, so a stored run can
  * be evaluated again (against a newer procedure version, marked in `evaluatedAgainst`).
@@ -149,7 +168,9 @@ function stateConformity({
 export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   const checked = checkRunEvaluationInput(input);
   if (!checked.ok) return checked;
-  const { resolution, cellRating, stepRecords, log, logStartedAt, procedureSource, options, evaluatedAgainst } = checked.value;
+  const { resolution, cellRating, stepRecords, log, logStartedAt, procedureSource, options, evaluatedAgainst, instruments } = checked.value;
+  // A resolution frozen on a run planned before procedures named a rule has none: simple acceptance.
+  const decisionRule = readDecisionRule(resolution);
   const citation = procedureSource ? `${procedureSource.standard} ${procedureSource.clause}` : null;
   const logStartMs = logStartedAt === undefined ? null : Date.parse(logStartedAt);
   const plan = planRunSequence({ resolution, stepRecords });
@@ -189,8 +210,16 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     };
   });
 
+  const uncertainties = evaluateStepUncertainties({ steps, instruments });
   const acceptance = resolution.acceptance.flatMap((criterion) =>
-    contexts.filter((context) => context.step.id === criterion.stepId).map((context) => evaluateAcceptance(criterion, context)),
+    contexts
+      .filter((context) => context.step.id === criterion.stepId)
+      .map((context) =>
+        evaluateAcceptance(criterion, context, {
+          rule: decisionRule,
+          uncertainty: findCriterionUncertainty({ criterion, step: context.step, cycle: context.cycle, uncertainties }),
+        }),
+      ),
   );
   const repeatEvaluation = resolution.repeat
     ? evaluateRepeatRule({ rule: resolution.repeat, cyclesRun: plan.cyclesRun, results: acceptance, citation })
@@ -217,6 +246,9 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       steps,
       runFindings,
       log: logAnalysis.summary,
+      decisionRule,
+      uncertainty: uncertainties.budgets,
+      uncertaintyNotEvaluated: uncertainties.notEvaluated,
       acceptance,
       repeat,
       conformity,

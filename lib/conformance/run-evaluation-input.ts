@@ -1,6 +1,8 @@
 import { z } from "zod";
 import type { LogColumns } from "@/lib/analysis";
-import { identifierSchema, type CellSpecification, type FieldProblem, type ProcedureResolution } from "@/protocols";
+import { accuracySpecificationSchema } from "@/lib/instruments/accuracy";
+import { INSTRUMENT_KINDS } from "@/lib/instruments/instrument-kind";
+import { decisionRuleSchema, type CellSpecification, type FieldProblem, type ProcedureResolution } from "@/protocols";
 import { recordedTimeSchema, stepRecordSchema, type StepRecord, type StepRecordInput } from "./step-record";
 
 const positive = (what: string) =>
@@ -29,15 +31,6 @@ export function readCellRating(cell: CellSpecification): CellRating {
   };
 }
 
-/** Expanded uncertainty U of a criterion's measured value: in the criterion's unit (Ah, s, Ω), or as a fraction of it. */
-export const criterionUncertaintySchema = z.union(
-  [
-    z.strictObject({ expanded: notNegative("the expanded uncertainty") }),
-    z.strictObject({ relativeExpanded: notNegative("the relative expanded uncertainty") }),
-  ],
-  { error: "an uncertainty is { expanded } in the criterion's unit or { relativeExpanded } as a fraction" },
-);
-
 const segmentOptionsSchema = z.strictObject({
   restCurrentA: notNegative("the rest current").optional(),
   minPhaseSamples: z.number().int().min(1).optional(),
@@ -55,7 +48,8 @@ const segmentOptionsSchema = z.strictObject({
 
 /**
  * Settings of an evaluation. The allowances are our own defaults, not taken from a standard; a lab
- * may set its own.
+ * may set its own. The decision rule is not a setting: it is the procedure's (its resolution's), and
+ * the expanded uncertainties come from the run's instruments (evaluate-uncertainty.ts).
  */
 export const evaluationOptionsSchema = z.strictObject({
   /** A pause between two steps longer than this needs a recorded reason, s. */
@@ -64,9 +58,6 @@ export const evaluationOptionsSchema = z.strictObject({
   timeAgreementS: notNegative("the time agreement").default(300),
   /** Share of constant-current samples allowed outside the tolerance (switching transients). */
   currentOutlierShare: z.number().min(0).max(1).default(0.02),
-  decisionRule: z.enum(["simple acceptance", "guarded acceptance"]).default("simple acceptance"),
-  /** By acceptance criterion id. */
-  uncertainties: z.record(identifierSchema, criterionUncertaintySchema).default({}),
   /** How the log is cut into phases (lib/analysis segment options). */
   segment: segmentOptionsSchema.optional(),
 });
@@ -106,6 +97,20 @@ export const storedRunEvaluationSchema = z.strictObject({
 
 export type StoredRunEvaluation = z.output<typeof storedRunEvaluationSchema>;
 
+/**
+ * One instrument the run used, as the register states it. A cycler channel's current, voltage and
+ * time accuracies enter the capacity, energy and DC-resistance budgets; other kinds do not measure the log.
+ */
+export const runInstrumentSchema = z.strictObject({
+  identifier: z.string({ error: "the identifier is text" }).trim().min(1, { error: "the identifier is required" }).max(100),
+  kind: z.enum(INSTRUMENT_KINDS, { error: `the kind is one of ${INSTRUMENT_KINDS.join(", ")}` }),
+  accuracy: accuracySpecificationSchema,
+});
+
+export type RunInstrument = z.infer<typeof runInstrumentSchema>;
+
+const runInstrumentsSchema = z.array(runInstrumentSchema).max(100, { error: "at most 100 instruments" });
+
 export interface RunEvaluationInput {
   /** The procedure version resolved against the run's cell specification (protocols' resolveProcedure). */
   resolution: ProcedureResolution;
@@ -116,6 +121,8 @@ export interface RunEvaluationInput {
   procedureSource?: ProcedureSource;
   options?: EvaluationOptionsInput;
   evaluatedAgainst?: EvaluatedAgainst;
+  /** The run's instruments from the register; none given means no uncertainty budget can be made. */
+  instruments?: readonly RunInstrument[];
 }
 
 /** The input with its stored parts checked and defaults filled in. */
@@ -123,6 +130,7 @@ export interface CheckedRunEvaluationInput extends StoredRunEvaluation {
   resolution: ProcedureResolution;
   stepRecords: StepRecord[];
   log?: LogColumns;
+  instruments: RunInstrument[];
 }
 
 export type RunEvaluationInputCheck = { ok: true; value: CheckedRunEvaluationInput } | { ok: false; problems: FieldProblem[] };
@@ -136,6 +144,8 @@ export function checkRunEvaluationInput(input: RunEvaluationInput): RunEvaluatio
   const resolution = input.resolution as Partial<ProcedureResolution> | undefined;
   if (typeof resolution !== "object" || resolution === null || !Array.isArray(resolution.steps) || !Array.isArray(resolution.acceptance)) {
     problems.push({ path: "resolution", message: "the resolution is the result of resolving the procedure version on the cell specification" });
+  } else if (resolution.decisionRule !== undefined && !decisionRuleSchema.safeParse(resolution.decisionRule).success) {
+    problems.push({ path: "resolution.decisionRule", message: "the decision rule is simple acceptance or guarded acceptance" });
   }
   const parsed = storedRunEvaluationSchema.safeParse({
     cellRating: input.cellRating,
@@ -148,9 +158,13 @@ export function checkRunEvaluationInput(input: RunEvaluationInput): RunEvaluatio
   if (!parsed.success) {
     problems.push(...parsed.error.issues.map((issue) => ({ path: issue.path.map(String).join("."), message: issue.message })));
   }
-  if (!parsed.success || problems.length > 0) return { ok: false, problems };
+  const instruments = runInstrumentsSchema.safeParse(input.instruments ?? []);
+  if (!instruments.success) {
+    problems.push(...instruments.error.issues.map((issue) => ({ path: ["instruments", ...issue.path.map(String)].join("."), message: issue.message })));
+  }
+  if (!parsed.success || !instruments.success || problems.length > 0) return { ok: false, problems };
   return {
     ok: true,
-    value: { ...parsed.data, resolution: input.resolution, ...(input.log !== undefined && { log: input.log }) },
+    value: { ...parsed.data, resolution: input.resolution, instruments: instruments.data, ...(input.log !== undefined && { log: input.log }) },
   };
 }

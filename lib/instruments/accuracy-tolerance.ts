@@ -44,6 +44,17 @@ const BUDGET_QUANTITIES = ["current", "voltage", "time"] as const satisfies read
 export function listUncertaintySources(input: { accuracy: AccuracySpecification; instrument: string }): UncertaintySource[] {
   return BUDGET_QUANTITIES.flatMap((quantity) => {
     const tolerance = toTolerance(input.accuracy, quantity);
-    return tolerance ? [{ quantity, source: `${input.instrument} ${quantity} accuracy`, tolerance, distribution: { kind: "rectangular" } as const }] : [];
+    if (!tolerance) return [];
+    // A time base is stated in ppm of the elapsed time; say it so rather than as a percent of reading.
+    const statedLimit = quantity === "time" && input.accuracy.time ? `±${input.accuracy.time.ppm} ppm of the elapsed time` : undefined;
+    return [
+      {
+        quantity,
+        source: `${input.instrument} ${quantity} accuracy`,
+        tolerance,
+        distribution: { kind: "rectangular" } as const,
+        ...(statedLimit !== undefined && { statedLimit }),
+      },
+    ];
   });
 }

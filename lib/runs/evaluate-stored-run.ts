@@ -2,17 +2,19 @@ import "server-only";
 import { getDb } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
 import { getCellSpecification } from "@/db/cell-specifications";
+import { getInstrument } from "@/db/instruments";
 import { getProcedureVersionById } from "@/db/procedures";
 import { getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
-import { getRun, listStepRecords } from "@/db/runs";
+import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
 import type { LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
-import { evaluateRun, type RunEvaluation } from "@/lib/conformance";
+import { evaluateRun, type RunEvaluation, type RunInstrument } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
 import { resolveProcedure, type ProcedureResolution } from "@/protocols";
 
 /**
- * Evaluates a run from what is stored (frozen set-points, step records, the current log) and keeps
+ * Evaluates a run from what is stored (frozen set-points, step records, the current log, the accuracy
+ * the instrument register states for the run's instruments, as it stands now) and keeps
  * the result. Deterministic: the same stored run gives the same findings. `columns` skips reading
  * the log back when the caller has just parsed it. `againstVersionId` judges the same records against
  * another released version of the same procedure (resolved on the specimen's cell as it is now); the
@@ -26,8 +28,12 @@ export async function evaluateStoredRun(
   const db = getDb();
   const run = await getRun(db, runId);
   if (!run) throw new DomainError("not-found", "No such run.");
+  // The reviewer signed for one evaluation; a later one would leave the certificate resting on a stale basis.
+  if (run.status === "accepted" || run.status === "certified") {
+    throw new DomainError("conflict", `Run ${run.number} is ${run.status}: the evaluation its reviewer signed for is final and is not evaluated again.`);
+  }
   const against = opts.againstVersionId && opts.againstVersionId !== run.procedureVersionId ? await resolveOtherVersion(run, opts.againstVersionId) : null;
-  const [records, log] = await Promise.all([listStepRecords(db, runId), getCurrentRunLog(db, runId)]);
+  const [records, log, instruments] = await Promise.all([listStepRecords(db, runId), getCurrentRunLog(db, runId), readRunInstruments(runId)]);
   const columns = opts.columns ?? (log ? await readRunLogColumns(db, log.id) : undefined);
   const stepRecords = records.map((r) => {
     const copy: Partial<typeof r> = { ...r };
@@ -43,6 +49,7 @@ export async function evaluateStoredRun(
     stepRecords,
     ...(columns && logStartedAt && { log: columns, logStartedAt }),
     procedureSource: run.procedureSource,
+    instruments,
     evaluatedAgainst: against
       ? { procedureVersionId: against.versionId, runProcedureVersionId: run.procedureVersionId, note: `re-evaluated against ${against.label}` }
       : { procedureVersionId: run.procedureVersionId },
@@ -87,4 +94,14 @@ async function resolveOtherVersion(
   const resolved = resolveProcedure({ procedure: version.definition, cellSpecification: spec.data, acknowledgedCautions: version.acknowledgedCautions });
   if (!resolved.ok || resolved.resolution.errors.length > 0) throw new DomainError("conflict", `${version.code} version ${version.number} cannot be resolved on this cell.`);
   return { versionId: version.id, label: `${version.code} version ${version.number}`, resolution: resolved.resolution };
+}
+
+/** The run's instruments with the accuracy the register states for them: the inputs of the uncertainty budgets. */
+async function readRunInstruments(runId: string): Promise<RunInstrument[]> {
+  const db = getDb();
+  const ids = await listRunInstrumentIds(db, runId);
+  const found = await Promise.all(ids.map((id) => getInstrument(db, id)));
+  return found
+    .filter((instrument) => instrument !== null)
+    .map((instrument) => ({ identifier: instrument.identifier, kind: instrument.kind, accuracy: instrument.accuracy }));
 }

@@ -37,4 +37,5 @@ export const acResistanceTemplate: Procedure = {
   acceptance: [
     { kind: 'resistance', id: 'ac-resistance-limit', stepId: 'ac-resistance', atMost: { spec: 'maxAcResistance' } },
   ],
+  decisionRule: 'simple acceptance',
 };

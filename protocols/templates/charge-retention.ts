@@ -33,4 +33,5 @@ export const chargeRetentionTemplate: Procedure = {
     measuredDischarge({ id: 'discharge', label: 'Discharge after storage' }),
   ],
   acceptance: [],
+  decisionRule: 'simple acceptance',
 };

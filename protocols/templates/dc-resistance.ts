@@ -40,4 +40,5 @@ export const dcResistanceTemplate: Procedure = {
     },
   ],
   acceptance: [],
+  decisionRule: 'simple acceptance',
 };

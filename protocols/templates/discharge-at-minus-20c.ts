@@ -42,4 +42,5 @@ export const dischargeAtMinus20cTemplate: Procedure = {
     },
   ],
   acceptance: [{ kind: 'capacity', id: 'cold-capacity', stepId: 'discharge', atLeastPercent: 30, of: 'rated' }],
+  decisionRule: 'simple acceptance',
 };

@@ -58,4 +58,5 @@ export const rateCapabilityTemplate: Procedure = {
     ...rates.flatMap((rate, index) => buildCycle(rate, index === rates.length - 1)),
   ],
   acceptance: [],
+  decisionRule: 'simple acceptance',
 };

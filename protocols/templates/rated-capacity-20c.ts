@@ -33,6 +33,7 @@ export const ratedCapacityAt20cTemplate: Procedure = {
     measuredDischarge({ id: 'discharge', label: 'Capacity discharge at 0.2 It' }),
   ],
   acceptance: [{ kind: 'capacity', id: 'rated-capacity', stepId: 'discharge', atLeastPercent: 100, of: 'rated' }],
+  decisionRule: 'simple acceptance',
   repeat: {
     label: 'Capacity cycle',
     stepIds: ['charge', 'rest', 'discharge'],

@@ -44,11 +44,11 @@ async function setUpLab(tag: string) {
   const { versionId } = await createProcedure(engineer, procedureDraftSchema.parse({ definition }));
   await submitForReview(engineer, versionId);
   await releaseVersion(second, versionId);
-  const instrument = async (identifier: string, dueOn: string) =>
+  const instrument = async (identifier: string, dueOn: string, accuracy: object = {}) =>
     (
       await getDb()
         .insertInto("instrument")
-        .values({ kind: "cycler-channel", identifier, serial: "S-1", accuracy: JSON.stringify({}), calibration_certificate: "CAL-1", calibrated_on: "2026-01-10", due_on: dueOn, created_by: engineer.id })
+        .values({ kind: "cycler-channel", identifier, serial: "S-1", accuracy: JSON.stringify(accuracy), calibration_certificate: "CAL-1", calibrated_on: "2026-01-10", due_on: dueOn, created_by: engineer.id })
         .returning("id")
         .executeTakeFirstOrThrow()
     ).id;
@@ -61,7 +61,13 @@ async function setUpLab(tag: string) {
       .returning("id")
       .executeTakeFirstOrThrow()
   ).id;
-  return { engineer, operator, specId, versionId, channel, overdue, specimen };
+  // REFERENCES.md §6 Example B: ±(0.05 % of reading + 0.05 % of the 5 A range), time base 100 ppm.
+  const exampleB = await instrument(`CH-B-${tag}`, "2027-01-10", {
+    current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+    voltage: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+    time: { ppm: 100 },
+  });
+  return { engineer, operator, specId, versionId, channel, overdue, exampleB, specimen };
 }
 
 describe("runs", () => {
@@ -177,5 +183,41 @@ describe("runs", () => {
     expect(restFindings.some((f) => f.outcome === "deviates")).toBe(true);
     const row = await getDb().selectFrom("run_evaluation").select("procedure_version_id").where("run_id", "=", run.id).orderBy("evaluated_at", "desc").executeTakeFirstOrThrow();
     expect(row.procedure_version_id).toBe(v2);
+  });
+
+  it("budgets the discharge capacity from the register's accuracy of the run's cycler channel (REFERENCES.md §6 Example B)", async () => {
+    const lab = await setUpLab("E");
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.exampleB] }, TODAY);
+    const built = buildRatedCapacityRun({ sampleIntervalS: 10 });
+    for (const record of built.input.stepRecords) await recordStep(lab.operator, run.id, record);
+    const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+    if (!csv.ok) throw new Error(csv.error.message);
+    const ingested = await ingestLog(lab.operator, run.id, { name: "e.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+    if (!ingested.ok) throw new Error(ingested.error.message);
+
+    const evaluation = await evaluateStoredRun(lab.operator, run.id);
+    const results = evaluation.steps.find((s) => s.stepId === "discharge")?.results;
+    const entry = evaluation.uncertainty.find((u) => u.stepId === "discharge" && u.cycle === 1 && u.quantity === "capacity");
+    if (!results || !entry) throw new Error("the discharge has no results or no capacity budget");
+    const { budget } = entry;
+    // The reading is the step's mean current Ī = Q / t, 0.2 It = 0.6 A of the invented 3 000 mAh cell.
+    const meanA = (results.capacityAh * 3600) / results.durationS;
+    expect(meanA).toBeCloseTo(0.6, 3);
+    // Example B arithmetic at this reading: a(I) = 0.05 % of Ī + 0.05 % of 5 A, u = a/√3 (GUM 4.3.7);
+    // u_r(t) = 100 ppm/√3; u_r(Q)² = u_r(I)² + u_r(t)² (GUM 5.1.6); U = 2·u_r(Q) (GUM 6.2.1).
+    const urI = (0.0005 * meanA + 0.0025) / Math.sqrt(3) / meanA;
+    const urT = 1e-4 / Math.sqrt(3);
+    expect(budget.rows.map((row) => row.source)).toEqual([`CH-B-E current accuracy`, `CH-B-E time accuracy`]);
+    expect(budget.rows[0]!.relativeStandardUncertainty).toBeCloseTo(urI, 12);
+    expect(budget.rows[1]!.relativeStandardUncertainty).toBeCloseTo(urT, 12);
+    expect(budget.relativeExpandedUncertainty).toBeCloseTo(2 * Math.hypot(urI, urT), 12);
+    // …which at 0.6 A is the published U = 0.539 % (REFERENCES.md §6 Example B).
+    expect(Math.abs(budget.relativeExpandedUncertainty * 100 - 0.539)).toBeLessThanOrEqual(0.0005);
+    expect(budget.expandedUncertainty).toBeCloseTo(budget.relativeExpandedUncertainty * results.capacityAh, 12);
+    expect(evaluation.acceptance[0]).toMatchObject({ rule: "simple acceptance", uncertainty: { evaluated: true, quantity: "capacity" } });
+
+    // Kept with the stored evaluation, as the results page and the certificate read it.
+    const stored = await getDb().selectFrom("run_evaluation").select("evaluation").where("run_id", "=", run.id).executeTakeFirstOrThrow();
+    expect((stored.evaluation as { uncertainty: unknown[] }).uncertainty).toHaveLength(evaluation.uncertainty.length);
   });
 });

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { evaluateCapacityUncertainty } from "@/lib/analysis/uncertainty";
 import { evaluateConformity, type DecisionRule } from "@/lib/conformance/decision-rule";
 
 // Source: REFERENCES.md §7 (ISO/IEC 17025:2017 7.8.6; ILAC-G8:09/2019; JCGM 106:2012): limit 100 % of 3.000 Ah,
@@ -28,7 +29,28 @@ describe("decision rule for a lower limit (REFERENCES.md §7 table)", () => {
     expect(guardedResult.ok && guardedResult.value.outcome).toBe(guarded);
   });
 
+  // The same table with U taken from the Example A budget itself (REFERENCES.md §6: 1.1605 %, made at each measured Q).
+  it.each(table)("%s Ah with U from the Example A budget: simple %s, guarded %s", (measured, simple, guarded) => {
+    const budget = evaluateCapacityUncertainty({
+      capacityAh: measured,
+      currentA: 0.6,
+      durationS: (measured / 0.6) * 3600,
+      sources: [
+        { quantity: "current", source: "clause 4 current", tolerance: { form: "percent-of-reading", percent: 1 } },
+        { quantity: "time", source: "clause 4 time", tolerance: { form: "percent-of-reading", percent: 0.1 } },
+      ],
+    });
+    if (!budget.ok) throw new Error(budget.error.message);
+    for (const [rule, expected] of [["simple acceptance", simple], ["guarded acceptance", guarded]] as const) {
+      const result = evaluateConformity({ measured, limit: { side: "lower", value: 3.0 }, rule, expandedUncertainty: budget.value.expandedUncertainty, unit: "Ah" });
+      expect(result.ok && result.value.outcome).toBe(expected);
+    }
+  });
+
   it("states the rule applied in plain words", () => {
+    // REFERENCES.md §7: the certificate states which rule was applied.
+    const simple = decide(3.02, "simple acceptance");
+    expect(simple.ok && simple.value.statement).toMatch(/^Decision rule: simple acceptance \(ILAC-G8:09\/2019, guard band zero\)/);
     const result = decide(3.02, "guarded acceptance");
     expect(result.ok).toBe(true);
     if (!result.ok) return;

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import type { StepResults } from "@/lib/analysis";
 import { evaluateDcResistanceUncertainty } from "@/lib/analysis/dc-resistance-uncertainty";
 import {
   computeHalfWidth,
@@ -7,6 +8,7 @@ import {
   evaluateEnergyUncertainty,
   type UncertaintySource,
 } from "@/lib/analysis/uncertainty";
+import { evaluateStepUncertainties, type RunInstrument } from "@/lib/conformance";
 
 /** Percent values given to a number of decimals in REFERENCES.md are checked to half a unit of the last digit. */
 function expectPercent(fraction: number, percent: number, decimals: number) {
@@ -103,5 +105,50 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
       expectPercent(result.value.relativeExpandedUncertainty, 1.633, 3);
       expect(result.value.expandedUncertainty).toBeCloseTo(0.000327, 6);
     });
+  });
+});
+
+// The same examples reached the way a run reaches them: the cycler channel's accuracy as the instrument register
+// states it (percent of reading and range, time base in ppm), turned into sources and budgets at the discharge
+// step's readings (Q = 3.060 Ah over t = 5.10 h, so Ī = Q / t = 0.600 A; E = 10.4805 Wh at a mean 3.425 V, REFERENCES.md §5).
+describe("budgets from the instrument register (REFERENCES.md §6 through a run's cycler channel)", () => {
+  const discharge = { capacityAh: 3.06, durationS: 5.1 * 3600, energyWh: 10.4805, meanVoltageV: 3.425 } as StepResults;
+  const budgetsOf = (accuracy: RunInstrument["accuracy"]) => {
+    const { budgets, notEvaluated } = evaluateStepUncertainties({
+      steps: [{ stepId: "discharge", cycle: 1, kind: "discharge", results: discharge, dcResistance: null }],
+      instruments: [{ identifier: "CH-REF", kind: "cycler-channel", accuracy }],
+    });
+    expect(notEvaluated).toEqual([]);
+    const find = (quantity: string) => budgets.find((entry) => entry.quantity === quantity)!.budget;
+    return { capacity: find("capacity"), energy: find("energy") };
+  };
+
+  // Source: REFERENCES.md §6 Example B: ±(0.05 % rdg + 0.05 % of 5 A range), time base 100 ppm.
+  it("Example B: U = 0.539 % = ±0.0165 Ah on 3.060 Ah", () => {
+    const { capacity } = budgetsOf({
+      current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+      voltage: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+      time: { ppm: 100 },
+    });
+    expect(capacity.rows[0]!.halfWidth).toBeCloseTo(0.0028, 12);
+    expectPercent(capacity.rows[0]!.relativeStandardUncertainty, 0.2694, 4);
+    expectPercent(capacity.relativeCombinedStandardUncertainty, 0.2695, 4);
+    expectPercent(capacity.relativeExpandedUncertainty, 0.539, 3);
+    expect(capacity.expandedUncertainty).toBeCloseTo(0.0165, 4);
+  });
+
+  // Source: REFERENCES.md §3 clause-4 limits as a channel's accuracy (±1 % current and voltage, ±0.1 % = 1 000 ppm time);
+  // §6 Example A and the energy case.
+  it("Example A and the energy case: U(Q) = 1.1605 % = ±0.0355 Ah, U(E) = 1.637 %", () => {
+    const { capacity, energy } = budgetsOf({
+      current: { percentOfReading: 1, percentOfRange: 0, range: 5 },
+      voltage: { percentOfReading: 1, percentOfRange: 0, range: 5 },
+      time: { ppm: 1000 },
+    });
+    expectPercent(capacity.relativeCombinedStandardUncertainty, 0.5802, 4);
+    expectPercent(capacity.relativeExpandedUncertainty, 1.1605, 4);
+    expect(capacity.expandedUncertainty).toBeCloseTo(0.0355, 4);
+    expectPercent(energy.relativeCombinedStandardUncertainty, 0.8185, 4);
+    expectPercent(energy.relativeExpandedUncertainty, 1.637, 3);
   });
 });

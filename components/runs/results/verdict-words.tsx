@@ -1,9 +1,10 @@
 import type { RunVerdict } from "@/lib/conformance";
+import type { DecisionRule } from "@/protocols";
 
 const FOLLOWED: Record<RunVerdict["procedureFollowed"], string> = { yes: "yes", no: "no", "not decided": "not decided" };
 
-/** The two answers of an evaluation, in words. */
-export function VerdictWords({ verdict }: { verdict: RunVerdict }) {
+/** The two answers of an evaluation, in words, with the decision rule the specimen's statement was made under when given. */
+export function VerdictWords({ verdict, decisionRule }: { verdict: RunVerdict; decisionRule?: DecisionRule }) {
   const conforms = verdict.specimenConforms === "conforms" ? "conforms" : verdict.specimenConforms === "does not conform" ? "does not conform" : "not decided";
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="verdict">
@@ -11,6 +12,12 @@ export function VerdictWords({ verdict }: { verdict: RunVerdict }) {
       <dd>{FOLLOWED[verdict.procedureFollowed]}</dd>
       <dt className="font-semibold">Specimen</dt>
       <dd>{conforms}</dd>
+      {decisionRule && (
+        <>
+          <dt className="font-semibold">Decision rule</dt>
+          <dd>{decisionRule}</dd>
+        </>
+      )}
       {verdict.beyondRating && (
         <>
           <dt className="font-semibold">Note</dt>

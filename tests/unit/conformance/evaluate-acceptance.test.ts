@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { evaluateCapacityUncertainty, type UncertaintySource } from "@/lib/analysis";
 import { evaluateAcceptance } from "@/lib/conformance";
 import type { ResolvedCriterion } from "@/protocols";
 import { contextOf, evidenceOf, levelOf, logOf, recordOf, steps, valueOf } from "./context-fixtures";
@@ -30,20 +31,42 @@ describe("evaluateAcceptance", () => {
     expect(evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(4.9) })).outcome).toBe("does not conform");
   });
 
-  it("applies guarded acceptance with the caller's expanded uncertainty, absolute or relative", () => {
-    const guarded = (uncertainty: { expanded: number } | { relativeExpanded: number }) =>
-      evaluateAcceptance(
-        capacity,
-        contextOf({ step: steps.discharge, evidence: dischargeFor(5.05), options: { decisionRule: "guarded acceptance", uncertainties: { "rated-capacity": uncertainty } } }),
-      );
-    // Measured 3.03 Ah: clear of 3.000 Ah by more than U = 0.02 Ah, but not by U = 1.16 % (0.0351 Ah).
-    expect(guarded({ expanded: 0.02 }).outcome).toBe("conforms");
-    const relative = guarded({ relativeExpanded: 0.0116 });
-    expect(relative.outcome).toBe("not decided");
-    expect(relative.expandedUncertainty).toBeCloseTo(0.0116 * 3.03, 12);
-    const missing = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.05), options: { decisionRule: "guarded acceptance" } }));
-    expect(missing).toMatchObject({ outcome: "not decided" });
-    expect(missing.statement).toContain("Guarded acceptance needs the expanded uncertainty");
+  it("applies guarded acceptance with the expanded uncertainty of the step's budget as guard band", () => {
+    // Measured 3.03 Ah over 5.05 h at 0.6 A. Example B limits (REFERENCES.md §6) give U = 0.539 % = 0.0163 Ah, which
+    // 3.03 Ah clears; clause-4 limits (Example A) give U = 1.1605 % = 0.0352 Ah, which it does not.
+    const guarded = (sources: UncertaintySource[]) => {
+      const budget = evaluateCapacityUncertainty({ capacityAh: 3.03, currentA: 0.6, durationS: 5.05 * 3600, sources });
+      if (!budget.ok) throw new Error(budget.error.message);
+      return evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.05) }), {
+        rule: "guarded acceptance",
+        uncertainty: { evaluated: true, quantity: "capacity", budget: budget.value },
+      });
+    };
+    const exampleB = guarded([
+      { quantity: "current", source: "channel", tolerance: { form: "percent-of-reading-and-range", percentOfReading: 0.05, percentOfRange: 0.05, range: 5 } },
+      { quantity: "time", source: "time base", tolerance: { form: "percent-of-reading", percent: 0.01 } },
+    ]);
+    expect(exampleB.outcome).toBe("conforms");
+    expect(exampleB.uncertainty).toMatchObject({ evaluated: true, quantity: "capacity", coverageFactor: 2 });
+    const clauseFour = guarded([
+      { quantity: "current", source: "clause 4", tolerance: { form: "percent-of-reading", percent: 1 } },
+      { quantity: "time", source: "clause 4", tolerance: { form: "percent-of-reading", percent: 0.1 } },
+    ]);
+    expect(clauseFour.outcome).toBe("not decided");
+    expect(clauseFour.expandedUncertainty).toBeCloseTo(0.011605 * 3.03, 5);
+    expect(clauseFour.statement).toContain("acceptance limit of 3.035 Ah");
+  });
+
+  it("without a budget, guarded acceptance is not decided and simple acceptance decides, both saying why", () => {
+    const notEvaluated = { evaluated: false as const, reason: "the cycler channel CH-1 states no current accuracy in the instrument register" };
+    const guarded = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.1) }), { rule: "guarded acceptance", uncertainty: notEvaluated });
+    expect(guarded).toMatchObject({ outcome: "not decided", expandedUncertainty: null, uncertainty: notEvaluated });
+    expect(guarded.statement).toBe(
+      "Not decided: guarded acceptance needs the expanded uncertainty, and it was not evaluated (the cycler channel CH-1 states no current accuracy in the instrument register).",
+    );
+    const simple = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.1) }), { rule: "simple acceptance", uncertainty: notEvaluated });
+    expect(simple.outcome).toBe("conforms");
+    expect(simple.statement).toMatch(/Measured 3\.060 Ah: conforms\. Measurement uncertainty not evaluated: the cycler channel CH-1 states no current accuracy/);
   });
 
   it("leaves a shortfall undecided when the discharge stopped before its end voltage", () => {

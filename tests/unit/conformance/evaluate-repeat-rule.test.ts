@@ -15,6 +15,7 @@ function resultsOf(...outcomes: ConformityOutcome[]): AcceptanceResult[] {
     outcome,
     rule: "simple acceptance",
     expandedUncertainty: null,
+    uncertainty: { evaluated: false, reason: "not needed by the repeat rule" },
     statement: outcome,
     clause: "",
     notes: [],

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { LogColumns } from "@/lib/analysis";
-import { evaluateRun, listFindings, readCellRating, type RunEvaluationInput } from "@/lib/conformance";
+import { evaluateRun, listFindings, readCellRating, type RunEvaluationInput, type RunInstrument } from "@/lib/conformance";
 import { procedureTemplates } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, logStartedAt, resolveOrThrow } from "../../support/rated-capacity-run";
 
@@ -15,6 +15,12 @@ const nominalLog = buildRatedCapacityRun().log.columns;
 const startMs = Date.parse(logStartedAt);
 const timeArbitrary = fc.integer({ min: startMs - 3_600_000, max: startMs + 100_000_000 }).map((ms) => new Date(ms).toISOString());
 const maybe = <T>(arbitrary: fc.Arbitrary<T>) => fc.option(arbitrary, { nil: undefined });
+/** Instruments a run may name: a fully stated cycler channel, one that states no time accuracy, a thermometer. */
+const instrumentChoices: RunInstrument[] = [
+  { identifier: "CH-1", kind: "cycler-channel", accuracy: { current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 }, voltage: { percentOfReading: 0.02, percentOfRange: 0.02, range: 5 }, time: { ppm: 100 } } },
+  { identifier: "CH-0", kind: "cycler-channel", accuracy: { current: { percentOfReading: 1, percentOfRange: 0, range: 5 }, voltage: { percentOfReading: 1, percentOfRange: 0, range: 5 } } },
+  { identifier: "TH-1", kind: "thermometer", accuracy: { temperature: { halfWidth: 0.5 } } },
+];
 const positive = fc.double({ min: 1e-6, max: 50_000, noNaN: true, noDefaultInfinity: true });
 
 /** Records a person could type: right or wrong steps, cycles, times, readings and set-points. */
@@ -57,22 +63,16 @@ const inputArbitrary: fc.Arbitrary<RunEvaluationInput> = fc
     stepRecords: fc.array(recordArbitrary, { maxLength: 14 }),
     log: fc.oneof(fc.constant(undefined), fc.constant(nominalLog), smallLogArbitrary),
     logStartedAt: maybe(timeArbitrary),
-    options: maybe(
-      fc.record(
-        {
-          gapAllowanceS: fc.integer({ min: 0, max: 10_000 }),
-          decisionRule: fc.constantFrom("simple acceptance" as const, "guarded acceptance" as const),
-          uncertainties: fc.constant({ "rated-capacity": { relativeExpanded: 0.0116 } }),
-        },
-        { requiredKeys: [] },
-      ),
-    ),
+    options: maybe(fc.record({ gapAllowanceS: fc.integer({ min: 0, max: 10_000 }) }, { requiredKeys: [] })),
+    decisionRule: fc.constantFrom("simple acceptance" as const, "guarded acceptance" as const),
+    instruments: fc.subarray(instrumentChoices),
   })
-  .map(({ pick, ...rest }) => {
+  .map(({ pick, decisionRule, ...rest }) => {
     const chosen = resolutions[pick] ?? resolutions[0];
     if (!chosen) throw new Error("no resolutions");
     return {
-      resolution: chosen.resolution,
+      resolution: { ...chosen.resolution, decisionRule },
+      instruments: rest.instruments,
       cellRating: readCellRating(chosen.cell),
       ...(rest.log !== undefined && { log: rest.log }),
       stepRecords: rest.stepRecords,
@@ -95,6 +95,26 @@ describe("evaluateRun properties", () => {
         const outcomes = new Set(findings.map((finding) => finding.outcome));
         expect(procedureFollowed === "no").toBe(outcomes.has("deviates"));
         expect(procedureFollowed === "yes").toBe(!outcomes.has("deviates") && !outcomes.has("not assessable"));
+
+        // Budgets belong to logged discharge and pulse steps, and only a cycler channel gives them.
+        const { evaluation } = first;
+        if (!input.instruments?.some((instrument) => instrument.kind === "cycler-channel")) expect(evaluation.uncertainty).toEqual([]);
+        for (const entry of evaluation.uncertainty) {
+          const step = evaluation.steps.find((candidate) => candidate.stepId === entry.stepId && candidate.cycle === entry.cycle);
+          expect(step?.kind).toBe(entry.quantity === "dc-resistance" ? "pulse" : "discharge");
+          expect(entry.budget.expandedUncertainty).toBeGreaterThanOrEqual(0);
+        }
+        // Guarded acceptance guards: a conforming result clears its limit by U; without U nothing conforms.
+        expect(evaluation.decisionRule).toBe(input.resolution.decisionRule);
+        for (const result of evaluation.acceptance) {
+          expect(result.rule).toBe(evaluation.decisionRule);
+          if (evaluation.decisionRule !== "guarded acceptance" || result.outcome !== "conforms") continue;
+          expect(result.expandedUncertainty).not.toBeNull();
+          const { limit, measured } = result;
+          if (limit?.value === undefined || measured?.value === undefined || result.expandedUncertainty === null) throw new Error("a conforming result has a limit, a value and U");
+          const clearance = (limit.side === "lower" ? 1 : -1) * (measured.value - limit.value);
+          expect(clearance).toBeGreaterThanOrEqual(result.expandedUncertainty - 1e-12);
+        }
       }),
       { numRuns: 120 },
     );

@@ -27,7 +27,7 @@ describe("stepRecordSchema", () => {
       stepRecords: [{ stepId: "rest", completed: true, ambientReadings: [{ at: "2026-03-02T08:00:00Z", celsius: 22.5 }] }],
     });
     expect(storedRunEvaluationSchema.parse(JSON.parse(JSON.stringify(stored)))).toEqual(stored);
-    expect(stored.options).toMatchObject({ gapAllowanceS: 600, decisionRule: "simple acceptance", uncertainties: {} });
+    expect(stored.options).toEqual({ gapAllowanceS: 600, timeAgreementS: 300, currentOutlierShare: 0.02 });
   });
 });
 

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { decisionRules } from '@/protocols';
 import type {
   AcceptanceCriterion,
   CellSpecification,
@@ -193,8 +194,10 @@ export const procedureArbitrary: fc.Arbitrary<Procedure> = fc
     bodies: fc.array(stepBodyArbitrary, { minLength: 1, maxLength: 12 }),
     withRepeat: fc.boolean(),
     ambient: temperatureArbitrary,
+    // Absent as in definitions stored before procedures named a rule.
+    decisionRule: fc.option(fc.constantFrom(...decisionRules), { nil: undefined }),
   })
-  .map(({ bodies, withRepeat, ambient }): Procedure => {
+  .map(({ bodies, withRepeat, ambient, decisionRule }): Procedure => {
     const steps = bodies.map((body, index) => dropUndefined({ ...body, id: `step-${index}`, label: `Step ${index + 1}` }) as Step);
     const acceptance = buildCriteria(steps);
     const repeat = withRepeat ? buildRepeat(steps, acceptance) : undefined;
@@ -209,6 +212,7 @@ export const procedureArbitrary: fc.Arbitrary<Procedure> = fc
       },
       steps,
       acceptance,
+      ...(decisionRule && { decisionRule }),
       ...(repeat && { repeat }),
     };
   });

@@ -83,6 +83,7 @@ describe('resolution properties', () => {
         if (!first.ok) return;
         const { resolution } = first;
         expect(resolution.steps.map((step) => step.id)).toEqual(procedure.steps.map((step) => step.id));
+        expect(resolution.decisionRule).toBe(procedure.decisionRule ?? 'simple acceptance');
         expect(resolution.ready).toBe(resolution.errors.length === 0 && resolution.cautionsNeedingAcknowledgement.length === 0);
         // Acknowledging every caution leaves only the errors standing.
         const acknowledged = resolveProcedure({
@@ -94,7 +95,7 @@ describe('resolution properties', () => {
       }),
       runs,
     );
-  });
+  }, 30_000);
 
   it('every resolved current above the maximum continuous discharge current is a caution', () => {
     fc.assert(

@@ -19,6 +19,7 @@ export function createBlankProcedure(code: string): Procedure {
     },
     steps: [{ kind: "rest", id: "rest", label: "Rest", minDuration: { value: 1, unit: "h" } }],
     acceptance: [],
+    decisionRule: "simple acceptance",
   };
 }
 

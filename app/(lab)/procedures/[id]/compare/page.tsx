@@ -68,6 +68,15 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
               </td>
             </tr>
           ))}
+          <tr className={CHANGE_STYLE[cmp.decisionRule.change]} data-testid="decision-rule">
+            <td className="p-2 align-top">
+              decision rule
+              <br />
+              <strong>{CHANGE_WORDS[cmp.decisionRule.change]}</strong>
+            </td>
+            <td className="p-2 align-top">{cmp.decisionRule.before}</td>
+            <td className="p-2 align-top">{cmp.decisionRule.after}</td>
+          </tr>
           {cmp.acceptance.map((c) => (
             <tr key={`crit-${c.criterionId}-${c.change}`} className={CHANGE_STYLE[c.change]}>
               <td className="p-2 align-top">

@@ -1,8 +1,10 @@
 import { z } from "zod";
+import { ConformityTable } from "@/components/runs/results/conformity-table";
 import { FindingsTable, type FindingRow } from "@/components/runs/results/findings-table";
 import { ResultsTable } from "@/components/runs/results/results-table";
 import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots";
 import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
+import { UncertaintySection } from "@/components/runs/results/uncertainty-section";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
@@ -35,8 +37,10 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
       </div>
     );
   }
-  // Written only by evaluateStoredRun.
+  // Written only by evaluateStoredRun. Evaluations stored before budgets and the procedure's decision
+  // rule were recorded lack those fields: they were judged by simple acceptance, without budgets.
   const evaluation = stored.evaluation as RunEvaluation;
+  const decisionRule = evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? "simple acceptance";
   const labels = new Map(evaluation.steps.map((s) => [s.stepId, s.label]));
   const findings: FindingRow[] = [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)].map((f) => ({
     ...f,
@@ -58,7 +62,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
               </Notice>
             </div>
           )}
-          <VerdictWords verdict={evaluation.verdict} />
+          <VerdictWords verdict={evaluation.verdict} decisionRule={evaluation.conformity.length > 0 ? decisionRule : undefined} />
           <p className="mt-2 text-xs text-ink-soft">
             Evaluated {stored.evaluatedAt.toISOString().replace("T", " ").slice(0, 16)} UTC
             {stored.runLogId === null ? " without a data log" : onCurrentLog ? " on the current data log" : " on an earlier data log"}.{" "}
@@ -84,6 +88,18 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
           Results per step
         </h2>
         <ResultsTable rows={listResultRows(evaluation)} />
+      </section>
+      <section aria-labelledby="conformity-heading">
+        <h2 id="conformity-heading" className="mb-2 text-lg font-semibold">
+          Statement of conformity
+        </h2>
+        <ConformityTable decisionRule={decisionRule} conformity={evaluation.conformity} acceptance={evaluation.acceptance} />
+      </section>
+      <section aria-labelledby="uncertainty-heading">
+        <h2 id="uncertainty-heading" className="mb-2 text-lg font-semibold">
+          Measurement uncertainty
+        </h2>
+        <UncertaintySection steps={evaluation.steps} uncertainty={evaluation.uncertainty} notEvaluated={evaluation.uncertaintyNotEvaluated} />
       </section>
       {onCurrentLog && (
         <section aria-labelledby="plots-heading" className="flex flex-col gap-6">

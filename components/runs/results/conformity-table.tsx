@@ -1,0 +1,95 @@
+import { formatValue, type AcceptanceResult, type ConformityOutcome, type CriterionConformity } from "@/lib/conformance";
+import { explainDecisionRule, type DecisionRule } from "@/protocols";
+
+const OUTCOME: Record<ConformityOutcome, { mark: string; tone: string }> = {
+  conforms: { mark: "✓", tone: "text-meets" },
+  "does not conform": { mark: "✕", tone: "text-deviates" },
+  "not decided": { mark: "?", tone: "text-ink-soft" },
+};
+
+function showLimit(result: AcceptanceResult | undefined): { limit: string; acceptance: string | null } {
+  const limit = result?.limit;
+  if (!result || !limit || limit.value === undefined || limit.unit === undefined) return { limit: "—", acceptance: null };
+  const sign = limit.side === "lower" ? "≥" : "≤";
+  // Guarded acceptance moves the limit inward by U (ILAC-G8:09/2019): the value a result must reach to conform.
+  const guarded = result.rule === "guarded acceptance" && result.expandedUncertainty !== null;
+  const inward = limit.side === "lower" ? 1 : -1;
+  return {
+    limit: `${sign} ${formatValue(limit.value, limit.unit)}`,
+    acceptance: guarded ? `acceptance limit ${sign} ${formatValue(limit.value + inward * (result.expandedUncertainty ?? 0), limit.unit)}` : null,
+  };
+}
+
+function showExpanded(result: AcceptanceResult | undefined): string {
+  if (!result || result.expandedUncertainty === null || result.measured?.unit === undefined) {
+    // Evaluations stored before budgets were made carry no `uncertainty`.
+    return result?.uncertainty && !result.uncertainty.evaluated ? "not evaluated" : "—";
+  }
+  const percent = result.uncertainty?.evaluated ? ` (${(result.uncertainty.relativeExpanded * 100).toFixed(3)} %)` : "";
+  return `±${formatValue(result.expandedUncertainty, result.measured.unit)}${percent}`;
+}
+
+/**
+ * The statement of conformity per criterion, with the decision rule it was made under named above
+ * it (ISO/IEC 17025:2017 7.8.6): limit, measured value, expanded uncertainty and outcome in words.
+ * Each criterion's full statement is in the verdict's reasons above it.
+ */
+export function ConformityTable({
+  decisionRule,
+  conformity,
+  acceptance,
+}: {
+  decisionRule: DecisionRule;
+  conformity: readonly CriterionConformity[];
+  acceptance: readonly AcceptanceResult[];
+}) {
+  if (conformity.length === 0) {
+    return <p className="text-sm text-ink-soft">The procedure states no acceptance criterion, so no statement of conformity is made.</p>;
+  }
+  return (
+    <div className="flex flex-col gap-2">
+      <p className="text-sm" data-testid="decision-rule">
+        <span className="font-semibold">Decision rule applied: {decisionRule}</span> (ISO/IEC 17025:2017 7.8.6; ILAC-G8:09/2019).{" "}
+        <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+      </p>
+      <div className="overflow-x-auto">
+        <table className="w-full border-collapse text-sm" data-testid="conformity-table">
+          <thead>
+            <tr className="border-b border-rule text-left">
+              {["Criterion", "Cycle", "Limit", "Measured", "Expanded uncertainty U (k = 2)", "Outcome"].map((h) => (
+                <th key={h} scope="col" className="px-2 py-1">
+                  {h}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {conformity.map((entry) => {
+              const result = acceptance.find((candidate) => candidate.criterionId === entry.criterionId && candidate.cycle === entry.cycle);
+              const o = OUTCOME[entry.outcome];
+              const limits = showLimit(result);
+              return (
+                <tr key={entry.criterionId} className="border-b border-rule align-top">
+                  <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+                    {entry.criterionId}
+                  </th>
+                  <td className="px-2 py-1">{entry.cycle ?? "—"}</td>
+                  <td className="whitespace-nowrap px-2 py-1">
+                    {limits.limit}
+                    {limits.acceptance && <span className="block text-xs text-ink-soft">{limits.acceptance}</span>}
+                  </td>
+                  <td className="whitespace-nowrap px-2 py-1">{result?.measured?.value !== undefined && result.measured.unit ? formatValue(result.measured.value, result.measured.unit) : "—"}</td>
+                  <td className="whitespace-nowrap px-2 py-1">{showExpanded(result)}</td>
+                  <td className={`whitespace-nowrap px-2 py-1 font-semibold ${o.tone}`}>
+                    <span aria-hidden="true">{o.mark} </span>
+                    {entry.outcome}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}
