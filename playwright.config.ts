@@ -43,6 +43,14 @@ export default defineConfig({
       DATABASE_URL: process.env.E2E_DATABASE_URL ?? "",
       S3_ENDPOINT: process.env.S3_ENDPOINT ?? "",
       S3_BUCKET: process.env.S3_BUCKET ?? "cellwright",
+      // Links in e-mails and certificates point at the app under test.
+      CELLWRIGHT_PUBLIC_URL: baseURL,
+      // The test mail catcher (scripts/test.sh starts it); the outbox is sent every 2 s, not 30 s.
+      SMTP_HOST: process.env.SMTP_HOST ?? "",
+      SMTP_PORT: process.env.SMTP_PORT ?? "",
+      MAIL_FROM: process.env.MAIL_FROM ?? "",
+      MAIL_CATCHER_URL: process.env.MAIL_CATCHER_URL ?? "",
+      MAIL_DISPATCH_INTERVAL_MS: "2000",
       NEXT_TELEMETRY_DISABLED: "1",
     },
   },

@@ -11,4 +11,5 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/instruments", label: "Instruments", permission: "run.read" },
   { href: "/audit", label: "Audit trail", permission: "audit.read" },
   { href: "/admin/users", label: "Users", permission: "user.manage" },
+  { href: "/admin/mail", label: "E-mail", permission: "mail.read" },
 ];

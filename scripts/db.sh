@@ -69,9 +69,19 @@ stop_s3_fake() {
   rm -f "$S3_PID_FILE"
 }
 
+stop_mail_catcher() {
+  case "$1" in demo | test) ;; *) return 0 ;; esac
+  mail_profile "$1"
+  if [ -f "$MAIL_PID_FILE" ] && kill -0 "$(cat "$MAIL_PID_FILE")" 2>/dev/null; then
+    kill -- -"$(cat "$MAIL_PID_FILE")" 2>/dev/null || kill "$(cat "$MAIL_PID_FILE")"
+    echo "mail catcher on port $MAIL_SMTP_PORT stopped"
+  fi
+  rm -f "$MAIL_PID_FILE"
+}
+
 case "$cmd" in
   start) start ;;
-  stop) stop; stop_s3_fake "${2:-demo}" ;;
+  stop) stop; stop_s3_fake "${2:-demo}"; stop_mail_catcher "${2:-demo}" ;;
   status) as_pg "$(pg_bin)/pg_ctl" -D "$PG_DATA" status ;;
   *) echo "usage: db.sh start|stop|status [demo|test]" >&2; exit 2 ;;
 esac

@@ -9,7 +9,10 @@ PORT="${PORT:-3000}"
 ensure_dependencies
 bash scripts/db.sh start demo
 start_s3_fake demo
+start_mail_catcher demo
 cw_profile demo
+# Links in e-mails and on certificates point at this app.
+export CELLWRIGHT_PUBLIC_URL="${CELLWRIGHT_PUBLIC_URL:-http://localhost:$PORT}"
 log "migrating"; npx tsx scripts/migrate.ts
 log "seeding the demo lab"; npx tsx --conditions=react-server scripts/seed.ts
 
@@ -33,5 +36,6 @@ done
 curl -fs "http://localhost:$PORT/api/health" >/dev/null || { echo "the app did not start; see .data/app.log" >&2; tail -20 .data/app.log; exit 1; }
 
 npx tsx scripts/print-accounts.ts "http://localhost:$PORT"
-echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL and the S3 fake keep running: npm run db:stop stops both)."
+echo "E-mail goes to the local mail catcher (inbox: $MAIL_CATCHER_URL/messages, or Administration → E-mail in the app)."
+echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL, the S3 fake and the mail catcher keep running: npm run db:stop stops them)."
 wait

@@ -59,3 +59,33 @@ start_s3_fake() {
   done
   echo "the S3 fake did not start; see .data/s3-$1.log" >&2; cat "$ROOT/.data/s3-$1.log" >&2; return 1
 }
+
+# The local mail catcher (scripts/mail-catcher.mjs): a stand-in for the lab's SMTP server, one per
+# profile, keeping every message it receives under .data/ and listing them over HTTP for the tests
+# and the admin's e-mail page. A real lab sets SMTP_HOST (and SMTP_PORT, MAIL_FROM) to its own server.
+mail_profile() {
+  case "${1:-demo}" in
+    demo) MAIL_SMTP_PORT=54342; MAIL_HTTP_PORT=54344 ;;
+    test) MAIL_SMTP_PORT=54343; MAIL_HTTP_PORT=54345 ;;
+    *) echo "unknown mail profile: $1 (demo|test)" >&2; return 2 ;;
+  esac
+  MAIL_DIR="$ROOT/.data/mail-${1:-demo}"
+  MAIL_PID_FILE="$ROOT/.data/mail-${1:-demo}.pid"
+  export SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT" MAIL_FROM="Cellwright <cellwright@lab.localhost>"
+  export MAIL_CATCHER_URL="http://127.0.0.1:$MAIL_HTTP_PORT"
+}
+
+start_mail_catcher() {
+  mail_profile "$1" || return
+  mkdir -p "$MAIL_DIR"
+  if [ -f "$MAIL_PID_FILE" ] && kill -0 "$(cat "$MAIL_PID_FILE")" 2>/dev/null; then
+    echo "mail catcher already running on 127.0.0.1:$MAIL_SMTP_PORT"; return 0
+  fi
+  setsid node "$ROOT/scripts/mail-catcher.mjs" "$MAIL_SMTP_PORT" "$MAIL_HTTP_PORT" "$MAIL_DIR" >"$ROOT/.data/mail-$1.log" 2>&1 &
+  echo $! >"$MAIL_PID_FILE"
+  for _ in $(seq 1 50); do
+    (exec 3<>"/dev/tcp/127.0.0.1/$MAIL_HTTP_PORT") 2>/dev/null && { echo "mail catcher started: SMTP 127.0.0.1:$MAIL_SMTP_PORT, inbox $MAIL_CATCHER_URL/messages"; return 0; }
+    sleep 0.1
+  done
+  echo "the mail catcher did not start; see .data/mail-$1.log" >&2; cat "$ROOT/.data/mail-$1.log" >&2; return 1
+}

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# `npm test`: installs what is missing, starts the test database (its own cluster and port) and the
-# local S3 fake, then
+# `npm test`: installs what is missing, starts the test database (its own cluster and port), the
+# local S3 fake and the local mail catcher, then
 # typecheck, lint, unit + reference, integration and browser tests. Never touches demo data.
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
@@ -9,12 +9,18 @@ started=$(date +%s)
 
 ensure_dependencies
 if [ ! -x /usr/bin/chromium ]; then log "installing Debian's chromium for browser tests"; apt_install chromium; fi
+# pdfsig checks the certificates' PDF signatures independently of the code that made them.
+if ! command -v pdfsig >/dev/null; then log "installing Debian's poppler-utils (pdfsig)"; apt_install poppler-utils; fi
 
 bash scripts/db.sh start test
 start_s3_fake test
-# Leave nothing running behind: the test cluster and the S3 fake stop when the tests end.
+start_mail_catcher test
+# Leave nothing running behind: the test cluster, the S3 fake and the mail catcher stop when the tests end.
 trap 'bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true' EXIT
+# Each run starts with an empty catcher inbox.
+curl -fsS -X DELETE "$MAIL_CATCHER_URL/messages" >/dev/null
 cw_profile test
+export CELLWRIGHT_PUBLIC_URL="http://localhost:${E2E_PORT:-3100}"
 export TEST_DATABASE_URL="$DATABASE_URL"
 export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/cellwright_e2e"
 unset DATABASE_URL

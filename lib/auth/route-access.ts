@@ -15,6 +15,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/sign-in": "public",
   "/audit": "audit.read",
   "/admin/users": "user.manage",
+  "/admin/mail": "mail.read",
   "/procedures": "procedure.read",
   "/procedures/new": "procedure.author",
   "/procedures/[id]": "procedure.read",

@@ -42,10 +42,10 @@ export function composeCertificateIssued(input: { certificateNumber: string; run
 export function composeCalibrationDue(input: { instrument: string; dueOn: string; daysLeft: number; instrumentId: string }): ComposedMail {
   const when = input.daysLeft < 0 ? `was due on ${input.dueOn}` : input.daysLeft === 0 ? `is due today (${input.dueOn})` : `is due on ${input.dueOn}, in ${input.daysLeft} day${input.daysLeft === 1 ? "" : "s"}`;
   return {
-    subject: `Calibration of ${input.instrument} ${input.daysLeft < 0 ? "overdue" : "due soon"}`,
+    subject: `Calibration of ${input.instrument} ${input.daysLeft < 0 ? `overdue (was due on ${input.dueOn})` : `due on ${input.dueOn}`}`,
     body:
       `The calibration of ${input.instrument} ${when}. Runs cannot start on an instrument whose calibration is overdue.\n\n` +
-      `Instrument record: ${publicUrl(`/instruments/${input.instrumentId}`)}` +
+      `Once it is recalibrated, record the new certificate and due date: ${publicUrl(`/instruments/${input.instrumentId}/edit`)}` +
       FOOTER,
   };
 }

@@ -4,10 +4,14 @@ import { recordAuditEvent } from "@/db/audit";
 import { getRun, listStepRecords, setRunStatus } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
+import { kickMailDispatch } from "@/lib/mail/dispatch";
+import { enqueueMail, listRecipientsByRole } from "@/lib/mail/enqueue-mail";
+import { composeRunSubmitted } from "@/lib/mail/messages";
 
 /**
  * Hands a run to review. Every step outside a repeated block must be ticked, and the first cycle of
- * the block too; the audit event is the notice to the engineers (e-mail comes with certificates).
+ * the block too. The engineers are told by e-mail, queued in the same transaction (a failed send
+ * never undoes the submission) and sent once it has committed.
  */
 export async function submitRun(actor: SignedInUser, runId: string): Promise<void> {
   await getDb().transaction().execute(async (tx) => {
@@ -31,5 +35,17 @@ export async function submitRun(actor: SignedInUser, runId: string): Promise<voi
       after: { status: "submitted" },
       detail: { notify: "engineers", number: run.number },
     });
+    // Never to the run's own operator, should they hold the engineer's role: they may not review it.
+    const operator = await tx.selectFrom("app_user").select("email").where("id", "=", run.operator.id).executeTakeFirst();
+    const engineers = (await listRecipientsByRole(tx, "engineer")).filter((email) => email.toLowerCase() !== operator?.email.toLowerCase());
+    const notice = composeRunSubmitted({
+      runNumber: run.number,
+      runId,
+      specimen: run.specimen.identifier,
+      procedure: `${run.procedure.code} v${run.procedure.number} “${run.procedure.title}”`,
+      operatorName: run.operator.name,
+    });
+    await enqueueMail(tx, { kind: "run-submitted", recipients: engineers, ...notice, entityType: "run", entityId: runId });
   });
+  kickMailDispatch();
 }
