@@ -17,18 +17,19 @@ export const ROLE_OVERVIEW: Record<Role, { job: string; later: string[]; now: { 
       { href: "/procedures", label: "Write procedures, send them for review, release a colleague's" },
       { href: "/procedures/new", label: "Start a procedure from a built-in template" },
       { href: "/specs", label: "Keep the cell specification library and datasheets" },
-      { href: "/runs?status=submitted", label: "See submitted runs with their findings" },
+      { href: "/runs?status=submitted", label: "Review submitted runs you did not operate: return them or sign them as reviewed" },
     ],
-    later: ["Review and signing of submitted runs, and certificates", "Lot statistics and rate-capability comparisons"],
+    later: ["Lot statistics and rate-capability comparisons"],
   },
   operator: {
     job: "You run released procedures on a cycler channel: tick off each step, record the ambient temperature and the set-points you programmed, upload the cycler's data log and submit the run.",
     now: [
       { href: "/runs/new", label: "Start a run of a released procedure on a specimen" },
       { href: "/runs", label: "Continue a run: step sheet, data log, findings" },
+      { href: "/runs?status=returned&mine=1", label: "Correct runs returned to you with a reviewer's comments" },
       { href: "/specimens", label: "Register specimens and lots as they arrive" },
     ],
-    later: ["Returned runs with the reviewer's comments"],
+    later: [],
   },
   auditor: {
     job: "You check the lab's work without changing it: released procedures, runs with their evidence, certificates and their signatures, and the audit trail behind them.",

@@ -4,13 +4,18 @@ import clsx from "clsx";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-/** The three views of one run: what was done, the cycler's log, and what the checks found. */
-export function RunTabs({ runId }: { runId: string }) {
+/**
+ * The views of one run: what was done, the cycler's log, what the checks found, the review (for
+ * engineers, and for the operator to see why it is not theirs) and its history of reviews and changes.
+ */
+export function RunTabs({ runId, showReview }: { runId: string; showReview: boolean }) {
   const pathname = usePathname();
   const tabs = [
     { href: `/runs/${runId}`, label: "Step sheet" },
     { href: `/runs/${runId}/log`, label: "Data log" },
     { href: `/runs/${runId}/results`, label: "Findings and results" },
+    ...(showReview ? [{ href: `/runs/${runId}/review`, label: "Review" }] : []),
+    { href: `/runs/${runId}/history`, label: "History" },
   ];
   return (
     <nav aria-label="Views of this run" className="mb-6 border-b border-rule">

@@ -53,6 +53,8 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/specimens": { GET: "run.read", POST: "specimen.manage" },
   "/runs/[id]/log": "run.read",
   "/runs/[id]/results": "run.read",
+  "/runs/[id]/review": "run.read",
+  "/runs/[id]/history": "run.read",
   "/api/runs": { GET: "run.read" },
   "/api/runs/[id]": { GET: "run.read" },
   "/api/runs/[id]/series": { GET: "run.read" },

@@ -3,17 +3,20 @@ import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import { z } from "zod";
 import { RunTabs } from "@/components/runs/run-tabs";
+import { SignatureList } from "@/components/signatures/signature-manifestation";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
+import { listRunSignatures } from "@/db/reviews";
 import { getRun } from "@/db/runs";
 import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 
-/** The run's header and its three views; loading boundaries sit inside each view. */
+/** The run's header with its signatures, and its views; loading boundaries sit inside each view. */
 export default async function RunLayout({ children, params }: { children: ReactNode; params: Promise<{ id: string }> }) {
-  await requirePagePermission("run.read");
+  const user = await requirePagePermission("run.read");
   const id = z.uuid().safeParse((await params).id);
-  const run = id.success ? await getRun(getDb(), id.data) : null;
+  const [run, signatures] = id.success ? await Promise.all([getRun(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
   if (!run) notFound();
   const status = RUN_STATUS_WORDS[run.status];
   return (
@@ -37,7 +40,10 @@ export default async function RunLayout({ children, params }: { children: ReactN
           </>
         }
       />
-      <RunTabs runId={run.id} />
+      {/* 21 CFR 11.50: a signed record shows who signed, when and what it meant, wherever it is shown. */}
+      <SignatureList signatures={signatures} className="-mt-3 mb-4 flex flex-col gap-1 text-sm" />
+      {/* Engineers review; the run's operator sees there why they may not. */}
+      <RunTabs runId={run.id} showReview={can(user.role, "run.review") || run.operator.id === user.id} />
       {children}
     </>
   );

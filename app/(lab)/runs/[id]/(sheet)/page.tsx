@@ -7,9 +7,11 @@ import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
 import { getInstrument } from "@/db/instruments";
 import { getProcedureVersionById } from "@/db/procedures";
+import { getLatestRunReview } from "@/db/reviews";
 import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
+import { formatDateTime } from "@/lib/format-date-time";
 import { INSTRUMENT_KIND_LABELS } from "@/lib/instruments/instrument-kind";
 import { isRunOpen, RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 import { markStepEndAction, markStepStartAction, saveStepRecordAction, submitRunAction } from "../actions";
@@ -30,9 +32,10 @@ export default async function StepSheetPage({
   const db = getDb();
   const [run, records, instrumentIds] = await Promise.all([getRun(db, id.data), listStepRecords(db, id.data), listRunInstrumentIds(db, id.data)]);
   if (!run) notFound();
-  const [version, instruments] = await Promise.all([
+  const [version, instruments, lastReview] = await Promise.all([
     getProcedureVersionById(db, run.procedureVersionId),
     Promise.all(instrumentIds.map((i) => getInstrument(db, i))),
+    run.status === "returned" ? getLatestRunReview(db, run.id) : null,
   ]);
   const open = isRunOpen(run.status);
   const mayOperate = can(user.role, "run.operate");
@@ -44,6 +47,19 @@ export default async function StepSheetPage({
     : `This run is ${RUN_STATUS_WORDS[run.status].words}; its records can no longer change.`;
   return (
     <div className="flex flex-col gap-4">
+      {lastReview?.decision === "returned" && (
+        <div data-testid="return-comments">
+          <Notice
+            title={`Returned to ${run.operator.id === user.id ? "you" : run.operator.name} by ${lastReview.reviewer.name} on ${formatDateTime(lastReview.createdAt)}: what to fix`}
+          >
+            <blockquote className="whitespace-pre-line border-l-2 border-ink-soft pl-3">{lastReview.comments}</blockquote>
+            <p className="mt-2">
+              Correct the records below or upload the data log again, then submit the run once more. Everything recorded so far is kept; the History tab shows
+              each review.
+            </p>
+          </Notice>
+        </div>
+      )}
       <p className="text-sm text-ink-soft">
         Instruments on this run:{" "}
         {instruments.flatMap((i) => (i ? [`${INSTRUMENT_KIND_LABELS[i.kind]} ${i.identifier}`] : [])).join(", ") || "none recorded"}.

@@ -1,0 +1,98 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { Notice } from "@/components/ui/notice";
+import { getDb } from "@/db";
+import { listRunCertificateNumbers, listRunReviews } from "@/db/reviews";
+import { getCurrentRunLog } from "@/db/run-logs";
+import { getLatestRunEvaluation } from "@/db/run-series";
+import { getRun } from "@/db/runs";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import type { RunEvaluation } from "@/lib/conformance";
+import { formatDateTime } from "@/lib/format-date-time";
+import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
+import { AcceptedView } from "./accepted-view";
+import { ReviewWorkspace } from "./review-workspace";
+
+export const metadata: Metadata = { title: "Review" };
+
+export default async function RunReviewPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePagePermission("run.read");
+  const id = z.uuid().safeParse((await params).id);
+  if (!id.success) notFound();
+  const db = getDb();
+  const [run, stored, log, reviews, certificates] = await Promise.all([
+    getRun(db, id.data),
+    getLatestRunEvaluation(db, id.data),
+    getCurrentRunLog(db, id.data),
+    listRunReviews(db, id.data),
+    listRunCertificateNumbers(db, id.data),
+  ]);
+  if (!run) notFound();
+  const status = RUN_STATUS_WORDS[run.status].words;
+
+  if (run.operator.id === user.id) {
+    return (
+      <div className="max-w-3xl" data-testid="review-refused">
+        <Notice title="You operated this run, so you cannot review it">
+          <p>
+            A run is reviewed and signed by an engineer who did not carry it out, so that the check is independent of the person who did the work. Another
+            engineer reviews run {run.number}; the database refuses a review or signature by its operator whatever the screen shows.
+          </p>
+          <p className="mt-2">
+            The run is {status}.
+            {run.status === "returned" && " The reviewer's comments are at the top of the step sheet."} The History tab shows every review and signature.
+          </p>
+        </Notice>
+      </div>
+    );
+  }
+  if (!can(user.role, "run.review")) {
+    return (
+      <div className="max-w-3xl">
+        <Notice title="Engineers review runs">
+          Runs are reviewed and signed by an engineer who did not operate them; your role reads them. Run {run.number} is {status}. The History tab shows its
+          reviews, signatures and audit trail.
+        </Notice>
+      </div>
+    );
+  }
+  if (run.status === "planned" || run.status === "in_progress") {
+    return (
+      <div className="max-w-3xl">
+        <Notice title="Not submitted yet">Run {run.number} is {status}. You can review it once its operator submits it.</Notice>
+      </div>
+    );
+  }
+  if (run.status === "returned") {
+    const last = reviews.findLast((r) => r.decision === "returned");
+    return (
+      <div className="max-w-3xl">
+        <Notice title="Returned to the operator">
+          {last && (
+            <p>
+              {last.reviewer.name} returned run {run.number} on {formatDateTime(last.createdAt)} with these comments:
+            </p>
+          )}
+          {last && <blockquote className="my-2 whitespace-pre-line border-l-2 border-rule pl-3">{last.comments}</blockquote>}
+          <p>It comes back to review when {run.operator.name} submits it again.</p>
+        </Notice>
+      </div>
+    );
+  }
+  // Written only by lib/runs/evaluate-stored-run.ts.
+  const evaluation = stored ? { id: stored.id, evaluatedAt: stored.evaluatedAt, onCurrentLog: log === null || stored.runLogId === log.id, data: stored.evaluation as RunEvaluation } : null;
+  if (run.status === "submitted") {
+    return <ReviewWorkspace run={run} user={user} evaluation={evaluation} reviews={reviews} />;
+  }
+  return (
+    <AcceptedView
+      run={run}
+      user={user}
+      acceptance={reviews.findLast((r) => r.decision === "accepted") ?? null}
+      certificates={certificates}
+      mayIssue={can(user.role, "certificate.sign") && run.status === "accepted"}
+    />
+  );
+}
