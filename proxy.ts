@@ -27,7 +27,9 @@ export async function proxy(request: NextRequest) {
 /**
  * A log upload (up to 200 MB) is left out: the proxy would buffer its whole body. That route makes
  * the same origin check itself before it reads a byte (app/api/runs/[id]/logs/route.ts).
+ * The public certificate check is left out too: it changes nothing, needs no session, and an
+ * assessor may call it from a script (`curl --data-binary @certificate.pdf`), which sends no Origin.
  */
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$).*)"],
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/check/).*)"],
 };

@@ -33,6 +33,15 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "run.submit": "submitted a run for review (engineers notified)",
   "run.upload-log": "uploaded a run's data log",
   "run.evaluate": "checked a run against its procedure",
+  "run.return": "returned a run to its operator with comments",
+  "run.accept": "accepted a run and signed it as reviewed",
+  "signature.refused": "refused a signature (wrong password)",
+  "mail.failed": "an e-mail could not be sent (tried again later)",
+  "certificate.issue": "signed and issued a certificate",
+  "certificate.amend": "issued an amended certificate that replaces an earlier one",
+  "certificate.supersede": "a certificate was replaced by an amendment",
+  "certificate.revoke": "revoked a certificate (with a reason)",
+  "run.certify": "a run was certified",
 };
 
 export function describeAuditAction(action: string): string {

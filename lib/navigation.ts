@@ -9,6 +9,7 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/lots", label: "Lots", permission: "run.read" },
   { href: "/specimens", label: "Specimens", permission: "run.read" },
   { href: "/instruments", label: "Instruments", permission: "run.read" },
+  { href: "/certificates", label: "Certificates", permission: "certificate.read" },
   { href: "/audit", label: "Audit trail", permission: "audit.read" },
   { href: "/admin/users", label: "Users", permission: "user.manage" },
   { href: "/admin/mail", label: "E-mail", permission: "mail.read" },

@@ -12,3 +12,4 @@ cw_profile bench
 log "2-million-row log: ingest, store, evaluate, read back"
 npx tsx scripts/bench/log-ingest.ts --make
 node --import tsx scripts/bench/log-ingest.ts
+log "certificate: render and sign"; NODE_ENV=production npx tsx scripts/bench/certificate.ts

@@ -4,7 +4,7 @@ import type { ReactNode } from "react";
 type Tone = "info" | "caution" | "problem" | "done";
 
 const TONES: Record<Tone, { box: string; word: string; mark: string }> = {
-  info: { box: "border-rule bg-paper-deep", word: "Note", mark: "ⓘ" },
+  info: { box: "border-rule bg-paper-deep", word: "Note", mark: "i" },
   caution: { box: "border-copper bg-copper-wash", word: "Caution", mark: "⚠" },
   problem: { box: "border-deviates bg-white", word: "Problem", mark: "✕" },
   done: { box: "border-meets bg-white", word: "Done", mark: "✓" },
@@ -16,7 +16,11 @@ export function Notice({ tone = "info", title, children, role }: { tone?: Tone; 
   return (
     <div role={role} className={clsx("rounded border-l-4 px-4 py-3 text-sm", t.box)}>
       <p className="font-semibold">
-        <span aria-hidden="true">{t.mark} </span>
+        {/* "i" in a drawn circle: the circled-i character is missing from common Linux fonts. */}
+        <span aria-hidden="true" className={tone === "info" ? "mr-1.5 inline-flex h-4 w-4 items-center justify-center rounded-full border border-current font-serif text-[0.65rem] leading-none" : undefined}>
+          {t.mark}
+          {tone === "info" ? "" : " "}
+        </span>
         {title ?? t.word}
       </p>
       <div className="mt-1 text-ink">{children}</div>

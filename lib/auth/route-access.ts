@@ -63,4 +63,12 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/runs/[id]/evaluations": { POST: ["run.operate", "run.review"] },
   "/api/runs/[id]/results.csv": { GET: "run.read" },
   "/api/runs/[id]/results.json": { GET: "run.read" },
+  "/certificates": "certificate.read",
+  "/certificates/[number]": "certificate.read",
+  "/check/[number]": "public",
+  "/api/certificates": { GET: "certificate.read" },
+  "/api/certificates/[number]": { GET: "certificate.read" },
+  "/api/certificates/[number]/pdf": { GET: "certificate.read" },
+  "/api/certificates/[number]/evidence": { GET: "certificate.read" },
+  "/api/check/[number]": { GET: "public", POST: "public" },
 };

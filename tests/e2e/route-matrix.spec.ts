@@ -51,6 +51,7 @@ async function sampleParams(): Promise<Record<string, string>> {
     const specimen = await c.query(`select id from specimen order by identifier limit 1`);
     // The seeded demo run (scripts/seed-library.ts), planned with nothing recorded.
     const run = await c.query(`select id from run order by number limit 1`);
+    const certificate = await c.query(`select number from certificate order by number limit 1`);
     return {
       procedure: proc.rows[0].id,
       n: String(proc.rows[0].number),
@@ -59,6 +60,9 @@ async function sampleParams(): Promise<Record<string, string>> {
       lot: lot.rows[0].id,
       specimen: specimen.rows[0].id,
       run: run.rows[0].id,
+      // The seeded certificate (scripts/demo-scenario.ts); a number never issued if there is none.
+      certificate: certificate.rows[0]?.number ?? "C-99999",
+      hasCertificate: String(certificate.rows.length > 0),
     };
   } finally {
     await c.end();
@@ -73,6 +77,7 @@ function toUrl(route: string, p: Record<string, string>): string {
     .replace("/instruments/[id]", `/instruments/${p.instrument}`)
     .replace("/lots/[id]", `/lots/${p.lot}`)
     .replace("/specimens/[id]", `/specimens/${p.specimen}`)
+    .replace("[number]", p.certificate!)
     .replace("[n]", p.n!)
     .replace(/\[(\w+)\]/, (_, name: string) => {
       throw new Error(`no sample value for [${name}] in ${route}: add one in route-matrix.spec.ts`);
@@ -97,6 +102,7 @@ function expected(access: Access, kind: "page" | "api", method: HttpMethod, role
 
 /** Routes that answer 404 for a run lacking what they show (the sample run may have no log yet). */
 function expectedForSample(route: string, want: number | "sign-in", p: Record<string, string>): number | "sign-in" {
+  if (route.includes("[number]") && p.hasCertificate !== "true" && (want === 200 || want === 422)) return 404;
   if (want !== 200) return want;
   if (["/api/runs/[id]/series", "/api/runs/[id]/logs/current"].includes(route) && p.runHasLog !== "true") return 404;
   if (["/api/runs/[id]/results.csv", "/api/runs/[id]/results.json"].includes(route) && p.runHasEvaluation !== "true") return 404;

@@ -13,5 +13,14 @@ process.env.DATABASE_URL = adminUrl(base, name);
 
 afterAll(async () => {
   await closePool();
-  await withAdminClient(base, (c) => c.query(`drop database if exists ${name} with (force)`));
+  // pool.end() resolves before its sockets have closed; a forced drop at that moment kills them and the
+  // dying clients report it as an error of this file. Wait for them to go; force only as a last resort.
+  await withAdminClient(base, async (c) => {
+    for (let attempt = 0; attempt < 30; attempt++) {
+      const open = await c.query("select count(*)::int as n from pg_stat_activity where datname = $1", [name]);
+      if (open.rows[0].n === 0) break;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    await c.query(`drop database if exists ${name} with (force)`);
+  });
 });

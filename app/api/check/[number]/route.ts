@@ -1,0 +1,61 @@
+import { getDb } from "@/db";
+import { getCertificateByNumber } from "@/db/certificates";
+import { toErrorResponse } from "@/lib/api/error-response";
+import { checkCertificatePdf } from "@/lib/certificates/check-pdf";
+import { certificateNumberSchema } from "@/lib/certificate-list/certificate-number";
+import { toPublicCertificate } from "@/lib/certificate-list/public-certificate";
+import { DomainError } from "@/lib/errors";
+
+export const dynamic = "force-dynamic";
+
+/** A certificate PDF is a few hundred kB; anything far larger is not one of ours. */
+const MAX_PDF_BYTES = 20 * 1024 * 1024;
+
+type Context = { params: Promise<{ number: string }> };
+
+async function findCertificate(ctx: Context) {
+  const number = certificateNumberSchema.parse((await ctx.params).number);
+  const certificate = await getCertificateByNumber(getDb(), number);
+  if (!certificate) throw new DomainError("not-found", `No certificate ${number} was issued by this laboratory.`);
+  return certificate;
+}
+
+/** Public (no sign-in): the certificate's state and what it states. */
+export async function GET(_req: Request, ctx: Context): Promise<Response> {
+  try {
+    return Response.json({ certificate: toPublicCertificate(await findCertificate(ctx)) });
+  } catch (error) {
+    return toErrorResponse(error);
+  }
+}
+
+/**
+ * Public (no sign-in), changes nothing: is this PDF byte-identical to the one issued, and does its
+ * embedded signature verify? Body: the PDF itself, or a form with the file in field "pdf".
+ */
+export async function POST(req: Request, ctx: Context): Promise<Response> {
+  try {
+    const certificate = await findCertificate(ctx);
+    const declared = Number(req.headers.get("content-length") ?? 0);
+    if (declared > MAX_PDF_BYTES) throw new DomainError("invalid", "That file is larger than 20 MB; a certificate PDF is much smaller.");
+    const bytes = await readPdf(req);
+    if (bytes.byteLength === 0) throw new DomainError("invalid", "Choose a PDF file to check.");
+    if (bytes.byteLength > MAX_PDF_BYTES) throw new DomainError("invalid", "That file is larger than 20 MB; a certificate PDF is much smaller.");
+    const result = await checkCertificatePdf(certificate.number, bytes);
+    return Response.json({ certificate: toPublicCertificate(certificate), check: result });
+  } catch (error) {
+    return toErrorResponse(error);
+  }
+}
+
+async function readPdf(req: Request): Promise<Uint8Array> {
+  const type = req.headers.get("content-type") ?? "";
+  if (type.startsWith("multipart/form-data")) {
+    const form = await req.formData();
+    const file = form.get("pdf");
+    if (!(file instanceof File)) throw new DomainError("invalid", "Choose a PDF file to check.");
+    return new Uint8Array(await file.arrayBuffer());
+  }
+  if (type.startsWith("application/pdf") || type.startsWith("application/octet-stream")) return new Uint8Array(await req.arrayBuffer());
+  throw new DomainError("invalid", "Send the PDF itself (content-type application/pdf) or a form with the file in field \"pdf\".");
+}

@@ -1,0 +1,113 @@
+import "server-only";
+import { getDb } from "@/db";
+import { recordAuditEvent } from "@/db/audit";
+import { getCertificateRecord, setCertificateRevoked, type CertificateRecord } from "@/db/certificates";
+import { getRun } from "@/db/runs";
+import type { SignedInUser } from "@/lib/auth/signed-in-user";
+import { DomainError } from "@/lib/errors";
+import { kickMailDispatch } from "@/lib/mail/dispatch";
+import { confirmSignerPassword } from "@/lib/signatures/sign-record";
+import type { Executor } from "@/db";
+import { actorLabel, assertMaySignCertificates, queueCertificateNotice } from "./issue-certificate";
+import { issueProducedCertificate, produceRunCertificate } from "./produce-certificate";
+import { confirmBasisUnchanged, gatherRunCertificateBasis } from "./run-certificate-basis";
+
+function requireReason(reason: string, what: string): string {
+  const text = reason.trim();
+  if (text.length === 0) throw new DomainError("invalid", `Say why the certificate is ${what}: the reason is kept with it.`);
+  if (text.length > 2000) throw new DomainError("invalid", "Keep the reason to 2 000 characters.");
+  return text;
+}
+
+/** The certificate as it stands, refused unless it is the valid (neither revoked nor replaced) one. */
+async function requireValidCertificate(db: Executor, number: string, options: { forUpdate?: boolean } = {}): Promise<CertificateRecord> {
+  const certificate = await getCertificateRecord(db, number, options);
+  if (!certificate) throw new DomainError("not-found", `No certificate ${number}.`);
+  if (certificate.revokedAt) throw new DomainError("conflict", `Certificate ${number} is revoked; a revoked certificate is neither amended nor revoked again.`);
+  if (certificate.replacedByNumber) {
+    throw new DomainError("conflict", `Certificate ${number} is already replaced by ${certificate.replacedByNumber}; act on ${certificate.replacedByNumber} instead.`);
+  }
+  return certificate;
+}
+
+/**
+ * Amends a certificate (ISO/IEC 17025:2017 7.8.8): a new certificate, made from the run's records as
+ * they are now, that names the one it replaces and says why; the old one then shows as superseded.
+ * Needs the signer's password, like the first issue; both steps are in the audit trail.
+ */
+export async function amendCertificate(actor: SignedInUser, number: string, input: { password: string; reason: string }): Promise<{ number: string }> {
+  assertMaySignCertificates(actor);
+  const reason = requireReason(input.reason, "amended");
+  const old = await requireValidCertificate(getDb(), number);
+  if (!old.runId) throw new DomainError("invalid", `Certificate ${number} is not a run certificate; only run certificates can be amended here.`);
+  const { basis, curves } = await gatherRunCertificateBasis(actor, old.runId, "certified");
+  await confirmSignerPassword(actor, input.password, `amendment of certificate ${number}`);
+  const produced = await produceRunCertificate({ actor, basis, curves, replaces: { number, reason } });
+  await issueProducedCertificate(
+    actor,
+    produced,
+    { runId: old.runId, lotId: null, replacesId: old.id, amendmentReason: reason },
+    {
+      check: async (tx) => {
+        await requireValidCertificate(tx, number, { forUpdate: true });
+        await confirmBasisUnchanged(tx, basis, "certified");
+      },
+      record: async (tx) => {
+        await recordAuditEvent(tx, {
+          actorId: actor.id,
+          actorLabel: actorLabel(actor),
+          action: "certificate.amend",
+          entityType: "certificate",
+          entityId: produced.id,
+          after: { number: produced.number, replaces: number, verdict: produced.payload.conformity.specimenConforms, pdfSha256: produced.pdfSha256 },
+          detail: { reason },
+        });
+        await recordAuditEvent(tx, {
+          actorId: actor.id,
+          actorLabel: actorLabel(actor),
+          action: "certificate.supersede",
+          entityType: "certificate",
+          entityId: old.id,
+          before: { status: "valid" },
+          after: { status: "superseded", replacedBy: produced.number },
+          detail: { reason },
+        });
+        await queueCertificateNotice(tx, actor, produced, basis, number);
+      },
+    },
+  );
+  kickMailDispatch();
+  return { number: produced.number };
+}
+
+/**
+ * Revokes a certificate: it stays on record, marked revoked, with who, when and why; its PDF and
+ * what it states never change. Needs the signer's password; the run's operator may not revoke it.
+ */
+export async function revokeCertificate(actor: SignedInUser, number: string, input: { password: string; reason: string }): Promise<void> {
+  assertMaySignCertificates(actor);
+  const reason = requireReason(input.reason, "revoked");
+  const certificate = await requireValidCertificate(getDb(), number);
+  if (certificate.runId) {
+    const run = await getRun(getDb(), certificate.runId);
+    if (run?.operator.id === actor.id) throw new DomainError("forbidden", `You operated run ${run.number}; someone else must revoke its certificate.`);
+  }
+  await confirmSignerPassword(actor, input.password, `revocation of certificate ${number}`);
+  await getDb()
+    .transaction()
+    .execute(async (tx) => {
+      const locked = await requireValidCertificate(tx, number, { forUpdate: true });
+      const at = new Date();
+      await setCertificateRevoked(tx, locked.id, { by: actor.id, at, reason });
+      await recordAuditEvent(tx, {
+        actorId: actor.id,
+        actorLabel: actorLabel(actor),
+        action: "certificate.revoke",
+        entityType: "certificate",
+        entityId: locked.id,
+        before: { status: "valid" },
+        after: { status: "revoked", revokedAt: at.toISOString() },
+        detail: { number, reason },
+      });
+    });
+}

@@ -1,0 +1,277 @@
+import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
+import type { DecisionRule, Finding, RunEvaluation, StepRecord } from "@/lib/conformance";
+import type { CellSpecification, ProcedureResolution } from "@/protocols";
+import { hashCanonicalJson } from "./canonical-json";
+import {
+  CERTIFICATE_PAYLOAD_FORMAT,
+  type CertificateAmbient,
+  type CertificateCriterion,
+  type CertificateFinding,
+  type CertificateInstrument,
+  type CertificateStepResult,
+  type CertificateUncertainty,
+  type RunCertificatePayload,
+  type SignatureStatement,
+} from "./certificate-payload";
+import { listEvaluationFindings, type AcknowledgedDeviation } from "./review-coverage";
+
+/**
+ * An evaluation as stored. Evaluations stored before the procedure named its decision rule, or
+ * before uncertainty budgets were made, lack those fields: they read as simple acceptance and as
+ * "uncertainty not evaluated".
+ */
+interface LaterEvaluationFields {
+  decisionRule?: DecisionRule;
+  uncertainty?: { stepId: string; cycle: number; quantity: "capacity" | "energy" | "dc-resistance"; budget: UncertaintyBudget }[];
+  uncertaintyNotEvaluated?: { stepId: string; cycle: number; quantity: string; reason: string }[];
+}
+export type StoredEvaluation = Omit<RunEvaluation, keyof LaterEvaluationFields> & LaterEvaluationFields;
+
+/** The decision rule an evaluation applied: its own field, else the one its acceptance results name, else simple acceptance. */
+export function readDecisionRule(evaluation: StoredEvaluation): DecisionRule {
+  const legacy = (evaluation.settings as { decisionRule?: DecisionRule } | undefined)?.decisionRule;
+  return evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? legacy ?? "simple acceptance";
+}
+
+export interface RecordedInstrument {
+  identifier: string;
+  kind: string;
+  serial: string;
+  calibrationCertificate: string;
+  calibratedOn: string;
+  dueOn: string;
+  usedFor: "run" | "ambient readings";
+}
+
+/** Everything a run certificate states, gathered from the records (lib/certificates/gather-run-records.ts). */
+export interface RunCertificateRecords {
+  number: string;
+  issuedAt: Date;
+  lab: { name: string; address: string; accreditation: string | null };
+  customer: string | null;
+  replaces: { number: string; reason: string } | null;
+  run: { number: string; procedureSource: { standard: string; clause: string }; resolution: ProcedureResolution };
+  procedure: { code: string; title: string; version: number };
+  specimen: { identifier: string; receivedOn: string; conditionOnReceipt: string };
+  lot: { identifier: string; supplier: string; receivedOn: string } | null;
+  cell: { maker: string; model: string; designation: string; data: CellSpecification };
+  instruments: RecordedInstrument[];
+  stepRecords: StepRecord[];
+  evaluation: { evaluatedAt: Date; value: StoredEvaluation; stored: unknown };
+  logs: { fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date }[];
+  review: { printedName: string; signedAt: Date; comments: string; acknowledged: AcknowledgedDeviation[] };
+  approval: { printedName: string; signedAt: Date };
+  meaningWords: { reviewed: string; approved: string };
+}
+
+export const RESULTS_RELATE_TO_ITEM = "The results relate only to the item tested, as received.";
+export const NO_EXTERNAL_PROVIDERS = "No result on this certificate comes from an external provider.";
+export const REPRODUCTION = "This certificate may be copied in full only; an extract needs the laboratory's written consent.";
+
+/** First and last moment any step record names. */
+function findTestingSpan(records: readonly StepRecord[]): { from: string | null; to: string | null } {
+  const times = records.flatMap((r) => [r.startedAt, r.endedAt, ...r.ambientReadings.map((a) => a.at)]).filter((t): t is string => Boolean(t));
+  const ms = times.map((t) => Date.parse(t)).filter(Number.isFinite);
+  if (ms.length === 0) return { from: null, to: null };
+  return { from: new Date(Math.min(...ms)).toISOString(), to: new Date(Math.max(...ms)).toISOString() };
+}
+
+/** A calibration covers the testing when every day of it falls within [calibrated on, due on]. */
+function coversTesting(instrument: RecordedInstrument, testing: { from: string | null; to: string | null }): boolean {
+  if (testing.from === null || testing.to === null) return false;
+  return instrument.calibratedOn <= testing.from.slice(0, 10) && testing.to.slice(0, 10) <= instrument.dueOn;
+}
+
+function labelOf(evaluation: StoredEvaluation, stepId: string | null, cycle: number | null): string {
+  if (stepId === null) return "the run as a whole";
+  const label = evaluation.steps.find((s) => s.stepId === stepId)?.label ?? stepId;
+  const cycles = new Set(evaluation.steps.filter((s) => s.stepId === stepId).map((s) => s.cycle));
+  return cycles.size > 1 && cycle !== null ? `${label}, cycle ${cycle}` : label;
+}
+
+function describeFinding(evaluation: StoredEvaluation, finding: Finding, note: string | null): CertificateFinding {
+  return {
+    findingId: finding.id,
+    where: labelOf(evaluation, finding.stepId, finding.cycle),
+    title: finding.title,
+    expected: finding.expected.text,
+    observed: finding.observed.text,
+    clause: finding.clause,
+    reviewerNote: note,
+  };
+}
+
+function summariseAmbient(evaluation: StoredEvaluation, records: readonly StepRecord[], resolution: ProcedureResolution): CertificateAmbient[] {
+  return evaluation.steps.flatMap((step): CertificateAmbient[] => {
+    const resolved = resolution.steps.find((s) => s.id === step.stepId);
+    if (!resolved) return [];
+    const readings = records.find((r) => r.stepId === step.stepId && r.cycle === step.cycle)?.ambientReadings.map((a) => a.celsius) ?? [];
+    const ambientFindings = step.findings.filter((f) => f.rule === "ambient-in-range");
+    const outcome = ambientFindings.some((f) => f.outcome === "deviates")
+      ? "deviates"
+      : ambientFindings.some((f) => f.outcome === "not assessable")
+        ? "not assessable"
+        : ambientFindings.length > 0
+          ? "meets"
+          : null;
+    return [
+      {
+        stepId: step.stepId,
+        cycle: step.cycle,
+        label: labelOf(evaluation, step.stepId, step.cycle),
+        requiredMinC: resolved.ambient.minC,
+        requiredMaxC: resolved.ambient.maxC,
+        readings: readings.length,
+        minC: readings.length ? Math.min(...readings) : null,
+        maxC: readings.length ? Math.max(...readings) : null,
+        meanC: readings.length ? readings.reduce((s, x) => s + x, 0) / readings.length : null,
+        outcome,
+      },
+    ];
+  });
+}
+
+function listResults(evaluation: StoredEvaluation): CertificateStepResult[] {
+  return evaluation.steps.flatMap((step): CertificateStepResult[] => {
+    const r = step.results;
+    if (!r || step.kind === "rest" || step.kind === "soak" || step.kind === "measure") return [];
+    return [
+      {
+        stepId: step.stepId,
+        cycle: step.cycle,
+        label: labelOf(evaluation, step.stepId, step.cycle),
+        kind: step.kind,
+        durationS: r.durationS,
+        capacityMAh: r.capacityMAh,
+        energyWh: r.energyWh,
+        meanVoltageV: r.meanVoltageV,
+        endVoltageV: r.endVoltageV,
+        maxTemperatureC: r.maxTemperatureC,
+        dcResistanceOhm: step.dcResistance?.resistanceOhm ?? null,
+        beyondRating: step.findings.some((f) => f.beyondRating === true),
+      },
+    ];
+  });
+}
+
+function listCriteria(evaluation: StoredEvaluation): CertificateCriterion[] {
+  return evaluation.conformity.map((entry) => {
+    const result = evaluation.acceptance.find((a) => a.criterionId === entry.criterionId && a.cycle === entry.cycle);
+    const stepId = result?.stepId ?? null;
+    return {
+      criterionId: entry.criterionId,
+      stepLabel: stepId === null ? entry.criterionId : labelOf(evaluation, stepId, entry.cycle),
+      cycle: entry.cycle,
+      requirement: result?.limit?.text ?? "limit not resolved",
+      measured: result?.measured?.text ?? null,
+      outcome: entry.outcome,
+      statement: entry.statement,
+    };
+  });
+}
+
+function listUncertainty(evaluation: StoredEvaluation): CertificateUncertainty[] {
+  return (evaluation.uncertainty ?? []).map((entry) => ({
+    stepId: entry.stepId,
+    cycle: entry.cycle,
+    stepLabel: labelOf(evaluation, entry.stepId, entry.cycle),
+    quantity: entry.quantity,
+    budget: entry.budget,
+  }));
+}
+
+function listInstruments(records: RunCertificateRecords, testing: { from: string | null; to: string | null }): CertificateInstrument[] {
+  return records.instruments.map((i) => ({
+    identifier: i.identifier,
+    kind: i.kind,
+    serial: i.serial,
+    calibrationCertificate: i.calibrationCertificate,
+    calibratedOn: i.calibratedOn,
+    dueOn: i.dueOn,
+    calibratedForTesting: coversTesting(i, testing),
+    usedFor: i.usedFor,
+  }));
+}
+
+function sign(printedName: string, meaning: "reviewed" | "approved", meaningWords: string, signedAt: Date): SignatureStatement {
+  return { printedName, meaning, meaningWords, signedAt: signedAt.toISOString() };
+}
+
+/**
+ * The payload of a run certificate from the gathered records. Pure: the same records give the same
+ * payload (and hash). It does not decide whether a certificate may be issued; issue-certificate.ts does.
+ */
+export function buildRunCertificatePayload(records: RunCertificateRecords): RunCertificatePayload {
+  const evaluation = records.evaluation.value;
+  const findings = listEvaluationFindings(evaluation);
+  const notes = new Map(records.review.acknowledged.map((a) => [a.findingId, a.note.trim()]));
+  const testing = findTestingSpan(records.stepRecords);
+  const cell = records.cell.data;
+  const count = (outcome: Finding["outcome"]) => findings.filter((f) => f.outcome === outcome).length;
+  return {
+    format: CERTIFICATE_PAYLOAD_FORMAT,
+    subject: "run",
+    title: "Test certificate",
+    number: records.number,
+    issuedAt: records.issuedAt.toISOString(),
+    lab: records.lab,
+    placeOfWork: `At the laboratory's premises: ${records.lab.address}`,
+    customer: records.customer,
+    replaces: records.replaces,
+    statements: { resultsRelateToItem: RESULTS_RELATE_TO_ITEM, externalProviders: NO_EXTERNAL_PROVIDERS, reproduction: REPRODUCTION },
+    approval: sign(records.approval.printedName, "approved", records.meaningWords.approved, records.approval.signedAt),
+    run: { number: records.run.number },
+    item: {
+      specimen: records.specimen,
+      lot: records.lot,
+      cell: {
+        maker: records.cell.maker,
+        model: records.cell.model,
+        designation: records.cell.designation,
+        chemistry: cell.chemistry.label,
+        ratedCapacityMah: cell.ratedCapacityMah,
+        minimumCapacityMah: cell.minimumCapacityMah ?? null,
+        nominalVoltageV: cell.nominalVoltageV,
+        chargeVoltageV: cell.chargeVoltageV,
+        endOfDischargeVoltageV: cell.endOfDischargeVoltageV,
+      },
+    },
+    sampling: records.lot
+      ? `Not applicable: the specimen was tested as submitted from lot ${records.lot.identifier}; this certificate makes no statement about the lot.`
+      : "Not applicable: the specimen was tested as submitted.",
+    method: {
+      code: records.procedure.code,
+      title: records.procedure.title,
+      version: records.procedure.version,
+      standard: records.run.procedureSource.standard,
+      clause: records.run.procedureSource.clause,
+      note: evaluation.evaluatedAgainst.otherThanRunVersion ? (evaluation.verdict.reasons[0] ?? "judged against another procedure version") : null,
+    },
+    testing,
+    conditions: summariseAmbient(evaluation, records.stepRecords, records.run.resolution),
+    instruments: listInstruments(records, testing),
+    results: listResults(evaluation),
+    conformity: {
+      decisionRule: readDecisionRule(evaluation),
+      specimenConforms: evaluation.verdict.specimenConforms,
+      procedureFollowed: evaluation.verdict.procedureFollowed,
+      beyondRating: evaluation.verdict.beyondRating,
+      criteria: listCriteria(evaluation),
+    },
+    uncertainty: listUncertainty(evaluation),
+    uncertaintyNotEvaluated: (evaluation.uncertaintyNotEvaluated ?? []).map((entry) => ({
+      stepLabel: labelOf(evaluation, entry.stepId, entry.cycle),
+      quantity: entry.quantity,
+      reason: entry.reason,
+    })),
+    deviations: findings.filter((f) => f.outcome === "deviates").map((f) => describeFinding(evaluation, f, notes.get(f.id) ?? null)),
+    notAssessable: findings.filter((f) => f.outcome === "not assessable").map((f) => describeFinding(evaluation, f, null)),
+    checks: { total: findings.length, meets: count("meets"), deviates: count("deviates"), notAssessable: count("not assessable") },
+    evidence: {
+      evaluatedAt: records.evaluation.evaluatedAt.toISOString(),
+      evaluationSha256: hashCanonicalJson(records.evaluation.stored),
+      logs: records.logs.map((l) => ({ fileName: l.fileName, sha256: l.sha256, sizeBytes: l.sizeBytes, samples: l.samples, uploadedAt: l.uploadedAt.toISOString() })),
+    },
+    review: { ...sign(records.review.printedName, "reviewed", records.meaningWords.reviewed, records.review.signedAt), comments: records.review.comments },
+  };
+}

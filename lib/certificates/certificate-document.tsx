@@ -1,0 +1,115 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { Document, Font, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
+import { CopperRule, QrCode } from "./certificate-figures";
+import { convertWoffToSfnt } from "./woff-to-sfnt";
+import type { CertificatePayload } from "./certificate-payload";
+import { ink, inkSoft, rule, styles, Tx } from "./certificate-primitives";
+import {
+  ConditionsSection,
+  ConformitySection,
+  DeviationsSection,
+  EvidenceSection,
+  InstrumentsSection,
+  ItemSection,
+  LabSection,
+  MethodSection,
+  ResultsSection,
+  SignatureBlock,
+  TitleBlock,
+} from "./certificate-sections";
+import { UncertaintySection } from "./certificate-uncertainty-section";
+import type { QrModules } from "./qr-modules";
+import type { DischargeCurve } from "./vq-plot";
+
+// This module is the one place that imports @react-pdf/renderer (0.3–0.5 s, STACK.md); it is loaded
+// lazily by render-certificate.ts, once per process, and registers the fonts when it loads.
+const FONT_DIR = join(process.cwd(), "node_modules", "@fontsource", "merriweather", "files");
+/** A face as a data URL of the unpacked font (woff-to-sfnt.ts), read from the package once per process. */
+function unpackedFace(subset: string, fontWeight: 400 | 700) {
+  const sfnt = convertWoffToSfnt(readFileSync(join(FONT_DIR, `merriweather-${subset}-${fontWeight}-normal.woff`)));
+  return { src: `data:font/ttf;base64,${sfnt.toString("base64")}`, fontWeight };
+}
+// Regular and bold only: the certificate sets no italic.
+const faces = (subset: string) => [unpackedFace(subset, 400), unpackedFace(subset, 700)];
+Font.register({ family: "Merriweather", fonts: faces("latin") });
+Font.register({ family: "MerriweatherExt", fonts: faces("latin-ext") });
+// Identifiers, hashes and units must print as written: no hyphen is ever added inside a word.
+Font.registerHyphenationCallback((word) => [word]);
+
+/** A4 height in points (ISO 216: 297 mm). */
+const A4_HEIGHT = 841.89;
+
+export interface CertificateDocumentInput {
+  payload: CertificatePayload;
+  payloadSha256: string;
+  curves: DischargeCurve[];
+  checkUrl: string;
+  qr: QrModules;
+  /** Common name of the lab's signing certificate, printed beside the digital signature note. */
+  signingSubject: string;
+}
+
+function PageChrome({ payload }: { payload: CertificatePayload }) {
+  return (
+    <>
+      <View fixed style={{ position: "absolute", top: 28, left: 48, right: 48 }}>
+        <View style={{ flexDirection: "row", justifyContent: "space-between", alignItems: "flex-end" }}>
+          <View>
+            <Tx style={{ fontSize: 10, fontWeight: 700 }}>{payload.lab.name}</Tx>
+            <Tx style={{ fontSize: 7, color: inkSoft }}>{payload.lab.address}</Tx>
+          </View>
+          <Tx style={{ fontSize: 9, fontWeight: 700 }}>{`${payload.title} ${payload.number}`}</Tx>
+        </View>
+        <CopperRule />
+      </View>
+      <View fixed style={{ position: "absolute", top: A4_HEIGHT - 40, left: 48, right: 48, height: 16, borderTopWidth: 0.5, borderTopColor: rule }} />
+      <Tx fixed style={{ position: "absolute", top: A4_HEIGHT - 36, left: 48, width: 380, fontSize: 7, color: inkSoft }}>
+        {`${payload.number} · ${payload.statements.resultsRelateToItem}`}
+      </Tx>
+      <Text
+        fixed
+        style={{ position: "absolute", top: A4_HEIGHT - 36, right: 48, width: 100, fontSize: 7, color: ink, textAlign: "right" }}
+        render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`}
+      />
+    </>
+  );
+}
+
+export function CertificateDocument({ payload, payloadSha256, curves, checkUrl, qr, signingSubject }: CertificateDocumentInput) {
+  return (
+    <Document title={`${payload.title} ${payload.number}`} author={payload.lab.name} subject={`${payload.title} ${payload.number}`} creator="Cellwright" producer="Cellwright" language="en">
+      <Page size="A4" style={styles.page}>
+        <PageChrome payload={payload} />
+        <TitleBlock payload={payload} />
+        <LabSection payload={payload} />
+        <ItemSection payload={payload} />
+        <MethodSection payload={payload} />
+        <ConditionsSection payload={payload} />
+        <InstrumentsSection payload={payload} />
+        <ResultsSection payload={payload} curves={curves} />
+        <ConformitySection payload={payload} />
+        <UncertaintySection payload={payload} />
+        <DeviationsSection payload={payload} />
+        <EvidenceSection payload={payload} payloadSha256={payloadSha256} />
+        <View wrap={false}>
+          <Tx style={styles.heading}>11  Review and authorisation</Tx>
+          <View style={{ flexDirection: "row", alignItems: "flex-start" }}>
+            <SignatureBlock heading="Reviewed by" s={payload.review} note={payload.review.comments ? `Comments: ${payload.review.comments}` : undefined} />
+            <SignatureBlock heading="Approved for issue by" s={payload.approval} />
+            <QrCode modules={qr} size={62} />
+          </View>
+          <Tx style={{ marginTop: 4 }}>{`Digitally signed with the laboratory's key (PKCS#7, certificate "${signingSubject}"): any change to this file breaks the signature. Check the certificate, its state and this file at ${checkUrl}`}</Tx>
+          <Tx style={{ ...styles.small, marginTop: 2 }}>{`${payload.statements.resultsRelateToItem} ${payload.statements.externalProviders} ${payload.statements.reproduction}`}</Tx>
+          <View style={{ marginTop: 8, borderTopWidth: 0.8, borderBottomWidth: 0.8, borderColor: ink, paddingVertical: 3 }}>
+            <Tx style={{ textAlign: "center", fontWeight: 700, fontSize: 8.5 }}>{`End of certificate ${payload.number}`}</Tx>
+          </View>
+        </View>
+      </Page>
+    </Document>
+  );
+}
+
+export async function renderCertificateDocument(input: CertificateDocumentInput): Promise<Buffer> {
+  return renderToBuffer(<CertificateDocument {...input} />);
+}

@@ -1,0 +1,176 @@
+import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
+import type { ConformityOutcome, DecisionRule, FindingOutcome, RunVerdict } from "@/lib/conformance";
+
+/**
+ * What a certificate states, as plain JSON. Its canonical form (canonical-json.ts) is hashed and the
+ * hash stored with the certificate; the PDF is drawn from it. The items of ISO/IEC 17025:2017
+ * 7.8.2.1 a–p and 7.8.3.1 each have a field (REFERENCES.md §8). Times are ISO 8601 in UTC; calendar
+ * dates YYYY-MM-DD; values in SI units as the field names say. Never rename a field: stored payloads
+ * keep their shape, and their hashes must recompute.
+ */
+export const CERTIFICATE_PAYLOAD_FORMAT = "cellwright-certificate-1";
+
+/** A signature as it is shown on the record (21 CFR 11.50): printed name, date and time, meaning. */
+export interface SignatureStatement {
+  printedName: string;
+  meaning: "reviewed" | "approved";
+  /** The meaning in words, as printed. */
+  meaningWords: string;
+  signedAt: string;
+}
+
+/** Parts every certificate has, whatever it is about. */
+export interface CertificateCommon {
+  format: typeof CERTIFICATE_PAYLOAD_FORMAT;
+  /** 7.8.2.1 a, c: the title and the unique identification printed on every page. */
+  title: string;
+  number: string;
+  issuedAt: string;
+  /** 7.8.2.1 b: the laboratory. */
+  lab: { name: string; address: string; accreditation: string | null };
+  /** 7.8.2.1 b: where the work was done. */
+  placeOfWork: string;
+  /** 7.8.2.1 d: null for in-house work. */
+  customer: string | null;
+  /** 7.8.8: the certificate this one replaces, and why. */
+  replaces: { number: string; reason: string } | null;
+  /** 7.8.2.1 h, o, p and the wording that must stand on the certificate. */
+  statements: { resultsRelateToItem: string; externalProviders: string; reproduction: string };
+  /** 7.8.2.1 o: who authorised the certificate. */
+  approval: SignatureStatement;
+}
+
+export interface CertificateCell {
+  maker: string;
+  model: string;
+  designation: string;
+  chemistry: string;
+  ratedCapacityMah: number;
+  minimumCapacityMah: number | null;
+  nominalVoltageV: number;
+  chargeVoltageV: number;
+  endOfDischargeVoltageV: number;
+}
+
+export interface CertificateInstrument {
+  identifier: string;
+  kind: string;
+  serial: string;
+  calibrationCertificate: string;
+  calibratedOn: string;
+  dueOn: string;
+  /** The calibration period covers every day of testing. */
+  calibratedForTesting: boolean;
+  /** Why it is listed: "run" (chosen for the run) or "ambient readings" (named by a reading). */
+  usedFor: string;
+}
+
+export interface CertificateAmbient {
+  stepId: string;
+  cycle: number;
+  label: string;
+  requiredMinC: number;
+  requiredMaxC: number;
+  readings: number;
+  minC: number | null;
+  maxC: number | null;
+  meanC: number | null;
+  outcome: FindingOutcome | null;
+}
+
+export interface CertificateStepResult {
+  stepId: string;
+  cycle: number;
+  label: string;
+  kind: string;
+  durationS: number;
+  capacityMAh: number;
+  energyWh: number;
+  meanVoltageV: number | null;
+  endVoltageV: number;
+  maxTemperatureC: number | null;
+  dcResistanceOhm: number | null;
+  /** The step ran outside the cell's rating. */
+  beyondRating: boolean;
+}
+
+export interface CertificateCriterion {
+  criterionId: string;
+  stepLabel: string;
+  cycle: number | null;
+  requirement: string;
+  measured: string | null;
+  outcome: ConformityOutcome;
+  statement: string;
+}
+
+export interface CertificateUncertainty {
+  stepId: string;
+  cycle: number;
+  stepLabel: string;
+  quantity: "capacity" | "energy" | "dc-resistance";
+  budget: UncertaintyBudget;
+}
+
+export interface CertificateFinding {
+  findingId: string;
+  where: string;
+  title: string;
+  expected: string;
+  observed: string;
+  clause: string;
+  /** The reviewer's note on a deviating finding. */
+  reviewerNote: string | null;
+}
+
+export interface CertificateLog {
+  fileName: string;
+  sha256: string;
+  sizeBytes: number;
+  samples: number;
+  uploadedAt: string;
+}
+
+/** A certificate of one run on one specimen. (A lot certificate will add `subject: "lot"`.) */
+export interface RunCertificatePayload extends CertificateCommon {
+  subject: "run";
+  run: { number: string };
+  item: {
+    specimen: { identifier: string; receivedOn: string; conditionOnReceipt: string };
+    lot: { identifier: string; supplier: string; receivedOn: string } | null;
+    cell: CertificateCell;
+  };
+  /** 7.8.2.1 k. */
+  sampling: string;
+  /** 7.8.2.1 e. */
+  method: { code: string; title: string; version: number; standard: string; clause: string; note: string | null };
+  /** 7.8.2.1 h: first and last recorded moment of the run, ISO; null when nothing was timed. */
+  testing: { from: string | null; to: string | null };
+  /** 7.8.3.1 a: the ambient of each step as recorded. */
+  conditions: CertificateAmbient[];
+  instruments: CertificateInstrument[];
+  /** 7.8.2.1 m: results with units. */
+  results: CertificateStepResult[];
+  /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
+  conformity: {
+    decisionRule: DecisionRule;
+    specimenConforms: ConformityOutcome;
+    procedureFollowed: RunVerdict["procedureFollowed"];
+    beyondRating: boolean;
+    criteria: CertificateCriterion[];
+  };
+  /** 7.8.3.1 c: empty when the evaluation carried no uncertainty budget. */
+  uncertainty: CertificateUncertainty[];
+  /** Results without a budget, and why. */
+  uncertaintyNotEvaluated: { stepLabel: string; quantity: string; reason: string }[];
+  /** 7.8.2.1 n: deviations from the method, each with the reviewer's note. */
+  deviations: CertificateFinding[];
+  notAssessable: CertificateFinding[];
+  checks: { total: number; meets: number; deviates: number; notAssessable: number };
+  /** The raw evidence the results rest on. */
+  evidence: { evaluatedAt: string; evaluationSha256: string; logs: CertificateLog[] };
+  /** 7.8.1: the review before release. */
+  review: SignatureStatement & { comments: string };
+}
+
+export type CertificatePayload = RunCertificatePayload;

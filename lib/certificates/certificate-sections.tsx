@@ -1,0 +1,340 @@
+import { View } from "@react-pdf/renderer";
+import type { ConformityOutcome } from "@/lib/conformance";
+import {
+  formatCelsius,
+  formatCelsiusRange,
+  formatDuration,
+  formatFigure,
+  formatMah,
+  formatMilliohm,
+  formatMoment,
+  formatVolts,
+  formatWh,
+} from "./certificate-format";
+import { OutcomeMark, VqPlot, type OutcomeTone } from "./certificate-figures";
+import type { CertificateFinding, RunCertificatePayload } from "./certificate-payload";
+import { Field, Heading, ink, outcomeColour, rule, styles, Table, Tx } from "./certificate-primitives";
+import type { DischargeCurve } from "./vq-plot";
+
+type P = { payload: RunCertificatePayload };
+
+export function toneOfConformity(outcome: ConformityOutcome): OutcomeTone {
+  return outcome === "conforms" ? "meets" : outcome === "does not conform" ? "deviates" : "open";
+}
+
+function OutcomeLine({ tone, words, rest, large }: { tone: OutcomeTone; words: string; rest: string; large?: boolean }) {
+  return (
+    <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 3 }} wrap={false}>
+      <OutcomeMark tone={tone} size={large ? 12 : 9} />
+      <Tx style={{ marginLeft: 5, fontSize: large ? 12 : 8.5, flex: 1 }}>
+        <Tx style={{ fontWeight: 700, color: outcomeColour[tone] }}>{words}</Tx>
+        {rest}
+      </Tx>
+    </View>
+  );
+}
+
+const PROCEDURE_WORDS = { yes: "yes", no: "no", "not decided": "not decided" } as const;
+
+export function TitleBlock({ payload }: P) {
+  const c = payload.conformity;
+  const rule_ = c.decisionRule;
+  const followed =
+    c.procedureFollowed === "yes"
+      ? ` — all ${payload.checks.total} checks of the records and the data log meet.`
+      : c.procedureFollowed === "no"
+        ? ` — ${payload.checks.deviates} of ${payload.checks.total} checks ${payload.checks.deviates === 1 ? "deviates; it is" : "deviate; each is"} stated in section 9 with the reviewer's note.`
+        : ` — ${payload.checks.notAssessable} of ${payload.checks.total} checks could not be assessed, none deviates (section 9).`;
+  return (
+    <View>
+      <Tx style={{ fontSize: 20, fontWeight: 700, lineHeight: 1.2 }}>{payload.title}</Tx>
+      <Tx style={{ fontSize: 10, marginTop: 4 }}>
+        {`No. ${payload.number}   ·   issued ${formatMoment(payload.issuedAt)}   ·   run ${payload.run.number}`}
+      </Tx>
+      {payload.replaces && (
+        <View style={{ marginTop: 8, padding: 6, borderWidth: 0.8, borderColor: ink, borderStyle: "solid" }} wrap={false}>
+          <Tx style={styles.strong}>{`Amendment: this certificate replaces certificate ${payload.replaces.number}, which is withdrawn.`}</Tx>
+          <Tx>{`Reason: ${payload.replaces.reason}`}</Tx>
+        </View>
+      )}
+      <View style={{ marginTop: 10, paddingVertical: 6, borderTopWidth: 0.8, borderBottomWidth: 0.8, borderColor: rule }}>
+        <OutcomeLine
+          large
+          tone={toneOfConformity(c.specimenConforms)}
+          words={c.specimenConforms === "conforms" ? "Conforms" : c.specimenConforms === "does not conform" ? "Does not conform" : "Not decided"}
+          rest={` — statement of conformity of specimen ${payload.item.specimen.identifier} to the acceptance criteria of ${payload.method.code}, under ${rule_} (section 7).`}
+        />
+        <OutcomeLine
+          tone={c.procedureFollowed === "yes" ? "meets" : c.procedureFollowed === "no" ? "deviates" : "open"}
+          words={`Procedure followed: ${PROCEDURE_WORDS[c.procedureFollowed]}`}
+          rest={followed}
+        />
+        {c.beyondRating && <OutcomeLine tone="deviates" words="Outside the cell's rating" rest=" — at least one step ran beyond the cell's rated current or voltage; its results are marked so." />}
+      </View>
+    </View>
+  );
+}
+
+export function LabSection({ payload }: P) {
+  return (
+    <View wrap={false}>
+      <Heading number={1}>Laboratory and customer</Heading>
+      <Field label="Laboratory">{payload.lab.name}</Field>
+      <Field label="Address">{payload.lab.address}</Field>
+      {payload.lab.accreditation && <Field label="Accreditation">{payload.lab.accreditation}</Field>}
+      <Field label="Place of the work">{payload.placeOfWork}</Field>
+      <Field label="Customer">{payload.customer ?? "None: in-house work of the laboratory."}</Field>
+    </View>
+  );
+}
+
+export function ItemSection({ payload }: P) {
+  const { specimen, lot, cell } = payload.item;
+  return (
+    <View wrap={false}>
+      <Heading number={2}>Item tested</Heading>
+      <Field label="Specimen">{specimen.identifier}</Field>
+      <Field label="Cell">{`${cell.maker} ${cell.model}, ${cell.designation}, ${cell.chemistry}`}</Field>
+      <Field label="Datasheet values">
+        {`rated capacity ${formatMah(cell.ratedCapacityMah)}${cell.minimumCapacityMah !== null ? `, minimum ${formatMah(cell.minimumCapacityMah)}` : ""}, nominal ${formatVolts(cell.nominalVoltageV)}, charge ${formatVolts(cell.chargeVoltageV)}, end of discharge ${formatVolts(cell.endOfDischargeVoltageV)}`}
+      </Field>
+      {lot && <Field label="Lot">{`${lot.identifier} from ${lot.supplier}, received ${lot.receivedOn}`}</Field>}
+      <Field label="Date of receipt">{specimen.receivedOn}</Field>
+      <Field label="Condition on receipt">{specimen.conditionOnReceipt}</Field>
+      <Field label="Sampling">{payload.sampling}</Field>
+    </View>
+  );
+}
+
+export function MethodSection({ payload }: P) {
+  const m = payload.method;
+  const t = payload.testing;
+  return (
+    <View wrap={false}>
+      <Heading number={3}>Method and dates</Heading>
+      <Field label="Procedure">{`${m.code} version ${m.version}: ${m.title}`}</Field>
+      <Field label="Standard and clause">{`${m.standard}, ${m.clause}`}</Field>
+      {m.note && <Field label="Note">{m.note}</Field>}
+      <Field label="Dates of testing">{t.from && t.to ? `${formatMoment(t.from)} to ${formatMoment(t.to)}` : "not recorded"}</Field>
+      <Field label="Date of issue">{formatMoment(payload.issuedAt)}</Field>
+    </View>
+  );
+}
+
+const outcomeWords = (o: string | null) => o ?? "not checked";
+
+export function ConditionsSection({ payload }: P) {
+  return (
+    <View>
+      <Table
+        lead={<Heading number={4}>Test conditions: ambient temperature</Heading>}
+        columns={[
+          { title: "Step", width: 30 },
+          { title: "Required", width: 22 },
+          { title: "Recorded", width: 26 },
+          { title: "Mean", width: 10, align: "right" },
+          { title: "Outcome", width: 12 },
+        ]}
+        rows={payload.conditions.map((a) => [
+          a.label,
+          formatCelsiusRange(a.requiredMinC, a.requiredMaxC),
+          a.minC !== null && a.maxC !== null ? `${formatCelsiusRange(a.minC, a.maxC)} (${a.readings} reading${a.readings === 1 ? "" : "s"})` : "no reading",
+          a.meanC !== null ? formatCelsius(a.meanC) : "–",
+          outcomeWords(a.outcome),
+        ])}
+      />
+    </View>
+  );
+}
+
+export function InstrumentsSection({ payload }: P) {
+  return (
+    <View>
+      {payload.instruments.length === 0 ? (
+        <View wrap={false}>
+          <Heading number={5}>Instruments and their calibration</Heading>
+          <Tx>No instrument was recorded for this run.</Tx>
+        </View>
+      ) : (
+        <Table
+          lead={<Heading number={5}>Instruments and their calibration</Heading>}
+          columns={[
+            { title: "Instrument", width: 16 },
+            { title: "Kind", width: 15 },
+            { title: "Serial", width: 12 },
+            { title: "Calibration certificate", width: 19 },
+            { title: "Calibrated", width: 12 },
+            { title: "Due", width: 12 },
+            { title: "Covers testing", width: 14 },
+          ]}
+          rows={payload.instruments.map((i) => [
+            i.identifier,
+            i.kind.replace(/-/g, " "),
+            i.serial,
+            i.calibrationCertificate,
+            i.calibratedOn,
+            i.dueOn,
+            i.calibratedForTesting ? "yes" : "NO: outside the calibration period",
+          ])}
+        />
+      )}
+    </View>
+  );
+}
+
+export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve[] }) {
+  const withResistance = payload.results.some((r) => r.dcResistanceOhm !== null);
+  const columns = [
+    { title: "Step", width: withResistance ? 22 : 26 },
+    { title: "Duration", width: 12, align: "right" as const },
+    { title: "Capacity", width: 12, align: "right" as const },
+    { title: "Energy", width: 11, align: "right" as const },
+    { title: "Mean voltage", width: 12, align: "right" as const },
+    { title: "End voltage", width: 12, align: "right" as const },
+    { title: "Highest temp.", width: withResistance ? 9 : 15, align: "right" as const },
+    ...(withResistance ? [{ title: "DC resistance", width: 10, align: "right" as const }] : []),
+  ];
+  return (
+    <View>
+      <Table
+        lead={
+          <>
+            <Heading number={6}>Results</Heading>
+            <Tx style={{ ...styles.small, marginBottom: 3 }}>
+              Capacity Q = integral of |I| dt and energy E = integral of U·|I| dt over each step, trapezoid rule on the stored log; mean voltage = E / Q.
+            </Tx>
+          </>
+        }
+        columns={columns}
+        rows={payload.results.map((r) => [
+          `${r.label}${r.beyondRating ? " (outside rating)" : ""}`,
+          formatDuration(r.durationS),
+          formatMah(r.capacityMAh),
+          formatWh(r.energyWh),
+          r.meanVoltageV !== null ? formatVolts(r.meanVoltageV) : "–",
+          formatVolts(r.endVoltageV),
+          r.maxTemperatureC !== null ? formatCelsius(r.maxTemperatureC) : "not logged",
+          ...(withResistance ? [r.dcResistanceOhm !== null ? formatMilliohm(r.dcResistanceOhm) : "–"] : []),
+        ])}
+      />
+      {curves.map((curve, i) => (
+        <VqPlot key={`${curve.stepId}#${curve.cycle}`} curve={curve} figure={i + 1} />
+      ))}
+    </View>
+  );
+}
+
+function CriterionItem({ k }: { k: RunCertificatePayload["conformity"]["criteria"][number] }) {
+  return (
+    <View style={{ marginTop: 4 }} wrap={false}>
+      <OutcomeLine tone={toneOfConformity(k.outcome)} words={k.outcome} rest={` — ${k.stepLabel}${k.cycle !== null && k.cycle > 1 ? ` (cycle ${k.cycle})` : ""}`} />
+      <Field label="Requirement">{k.requirement}</Field>
+      <Field label="Measured">{k.measured ?? "no measured value"}</Field>
+      <Tx style={styles.small}>{k.statement}</Tx>
+    </View>
+  );
+}
+
+export function ConformitySection({ payload }: P) {
+  const c = payload.conformity;
+  const [first, ...rest] = c.criteria;
+  return (
+    <View>
+      <View wrap={false}>
+        <Heading number={7}>Statement of conformity</Heading>
+        <Field label="Decision rule">
+          {c.decisionRule === "simple acceptance"
+            ? "Simple acceptance (ILAC-G8:09/2019): the measured value is compared with the limit as it is."
+            : "Guarded acceptance (ILAC-G8:09/2019, JCGM 106:2012): the guard band equals the expanded uncertainty."}
+        </Field>
+        {first ? <CriterionItem k={first} /> : <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>}
+      </View>
+      {rest.map((k) => (
+        <CriterionItem key={k.criterionId} k={k} />
+      ))}
+    </View>
+  );
+}
+
+function FindingItem({ f }: { f: CertificateFinding }) {
+  return (
+    <View style={{ marginBottom: 4 }} wrap={false}>
+      <Tx style={styles.strong}>{`${f.where}: ${f.title}`}</Tx>
+      <Tx>{`Expected ${f.expected}; observed ${f.observed}.`}</Tx>
+      <Tx style={styles.small}>{`Requirement from ${f.clause}.`}</Tx>
+      {f.reviewerNote !== null && <Tx>{`Reviewer's note: ${f.reviewerNote}`}</Tx>}
+    </View>
+  );
+}
+
+export function DeviationsSection({ payload }: P) {
+  const [first, ...rest] = payload.deviations;
+  return (
+    <View>
+      <View wrap={false}>
+        <Heading number={9}>Deviations from the method</Heading>
+        {first ? <FindingItem f={first} /> : <Tx>{`None: no check of the records or the data log deviates (${payload.checks.meets} of ${payload.checks.total} checks meet).`}</Tx>}
+      </View>
+      {rest.map((f) => (
+        <FindingItem key={f.findingId} f={f} />
+      ))}
+      {payload.notAssessable.length > 0 && (
+        <View style={{ marginTop: 4 }}>
+          <Tx style={{ ...styles.label, marginBottom: 2 }}>{`Checks that could not be assessed (${payload.notAssessable.length}):`}</Tx>
+          {payload.notAssessable.map((f) => (
+            <FindingItem key={f.findingId} f={f} />
+          ))}
+        </View>
+      )}
+    </View>
+  );
+}
+
+/** A line of text with a SHA-256 under it, kept on one page. */
+function HashField({ label, text, hash }: { label: string; text: string; hash: string }) {
+  return (
+    <View wrap={false}>
+      <Field label={label}>{text}</Field>
+      <Field label="">
+        <Tx style={styles.hash}>{hash}</Tx>
+      </Field>
+    </View>
+  );
+}
+
+export function EvidenceSection({ payload, payloadSha256 }: P & { payloadSha256: string }) {
+  return (
+    <View wrap={false}>
+      <Heading number={10}>Evidence</Heading>
+      <HashField label="Evaluation" text={`made ${formatMoment(payload.evidence.evaluatedAt)}; its findings and results hash (SHA-256 of canonical JSON) to`} hash={payload.evidence.evaluationSha256} />
+      {payload.evidence.logs.map((l) => (
+        <HashField
+          key={l.sha256}
+          label="Data log"
+          text={`${l.fileName}: ${formatFigure(l.samples, 0)} samples, ${formatFigure(l.sizeBytes, 0)} bytes, uploaded ${formatMoment(l.uploadedAt)}; SHA-256`}
+          hash={l.sha256}
+        />
+      ))}
+      {payload.evidence.logs.length === 0 && <Field label="Data log">none: no data log was evaluated</Field>}
+      <HashField label="This certificate" text="what it states hashes (SHA-256 of its canonical JSON) to" hash={payloadSha256} />
+    </View>
+  );
+}
+
+/** "reviewed: checked the records…" reads as "reviewed (checked the records…)". */
+function describeMeaning(words: string): string {
+  const at = words.indexOf(": ");
+  return at < 0 ? words : `${words.slice(0, at)} (${words.slice(at + 2)})`;
+}
+
+export function SignatureBlock({ heading, s, note }: { heading: string; s: { printedName: string; signedAt: string; meaningWords: string }; note?: string }) {
+  return (
+    <View style={{ flex: 1, paddingRight: 10 }} wrap={false}>
+      <Tx style={{ ...styles.label, fontSize: 7.5 }}>{heading}</Tx>
+      <Tx style={{ fontSize: 10.5, fontWeight: 700, marginTop: 1 }}>{s.printedName}</Tx>
+      <Tx>{formatMoment(s.signedAt)}</Tx>
+      <Tx style={styles.small}>{`Meaning: ${describeMeaning(s.meaningWords)}`}</Tx>
+      {note && <Tx style={{ ...styles.small, marginTop: 2 }}>{note}</Tx>}
+    </View>
+  );
+}

@@ -1,0 +1,379 @@
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { sql } from "kysely";
+import { afterAll, describe, expect, it } from "vitest";
+import { getDb } from "@/db";
+import { listAuditEvents } from "@/db/audit";
+import { getCertificateByNumber, listCertificates } from "@/db/certificates";
+import { upsertLab } from "@/db/lab";
+import { closePool } from "@/db/pool";
+import { getRun, setRunStatus } from "@/db/runs";
+import { formatLogCsv } from "@/lib/analysis";
+import { hashPassword } from "@/lib/auth/password";
+import type { SignedInUser } from "@/lib/auth/signed-in-user";
+import { amendCertificate, revokeCertificate } from "@/lib/certificates/amend-certificate";
+import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
+import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
+import { checkCertificatePdf } from "@/lib/certificates/check-pdf";
+import { issueRunCertificate } from "@/lib/certificates/issue-certificate";
+import { describeLabSigningKey } from "@/lib/certificates/lab-signing-key";
+import { issueProducedCertificate, produceRunCertificate } from "@/lib/certificates/produce-certificate";
+import { gatherRunCertificateBasis } from "@/lib/certificates/run-certificate-basis";
+import { createSelfSignedP12 } from "@/lib/certificates/self-signed-p12";
+import { signPdf } from "@/lib/certificates/sign-pdf";
+import { listFindings, type RunEvaluation } from "@/lib/conformance";
+import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
+import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
+import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
+import { ingestLog } from "@/lib/runs/ingest-log";
+import { recordStep } from "@/lib/runs/record-step";
+import { startRun } from "@/lib/runs/start-run";
+import { submitRun } from "@/lib/runs/submit-run";
+import { createCellSpecification } from "@/lib/specs/cell-specifications";
+import { listObjectKeys } from "@/lib/storage";
+import { ratedCapacityAt20cTemplate } from "@/protocols";
+import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { makeUser } from "./fixtures";
+
+// Each test database gets its own generated lab key, in a folder of this file's own.
+const signingDir = mkdtempSync(join(tmpdir(), "cellwright-signing-"));
+process.env.CELLWRIGHT_SIGNING_DIR = signingDir;
+afterAll(async () => {
+  rmSync(signingDir, { recursive: true, force: true });
+  // pg's pool.end() resolves before its sockets close; the database is dropped (with force) right
+  // after this hook, so let the server see the connections go first.
+  await closePool();
+  await new Promise((resolve) => setTimeout(resolve, 300));
+});
+
+const PASSWORD = "correct horse battery staple";
+const TODAY = "2026-12-01";
+const MAPPING = {
+  time: { form: "elapsed", column: "Time (s)", unit: "s" },
+  voltage: { column: "Voltage (V)", unit: "V" },
+  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
+  delimiter: ",",
+  decimalSeparator: ".",
+  headerLine: 1,
+};
+
+async function* chunksOf(text: string, size = 64 * 1024) {
+  const bytes = new TextEncoder().encode(text);
+  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
+}
+
+async function withPassword(user: SignedInUser): Promise<SignedInUser> {
+  await getDb().updateTable("app_user").set({ password_hash: await hashPassword(PASSWORD) }).where("id", "=", user.id).execute();
+  return user;
+}
+
+async function setUpLab() {
+  const issuer = await withPassword(await makeUser("engineer", "Ida Issuer"));
+  const reviewer = await makeUser("engineer", "Rex Reviewer");
+  const operator = await withPassword(await makeUser("operator", "Oda Operator"));
+  const auditor = await makeUser("auditor", "Aud Auditor");
+  await upsertLab(getDb(), { name: "Harbourside Cell Test Laboratory", address: "Unit 4, 17 Ropewalk Lane, Portmere", accreditation: null });
+  const specId = await createCellSpecification(issuer, { maker: "Testmoor Cells", model: "TM-CERT", data: inventedCell });
+  const definition = structuredClone(ratedCapacityAt20cTemplate);
+  definition.header.code = "T-CERT";
+  const { versionId } = await createProcedure(issuer, procedureDraftSchema.parse({ definition }));
+  await submitForReview(issuer, versionId);
+  await releaseVersion(reviewer, versionId);
+  const register = async (kind: "cycler-channel" | "thermometer", identifier: string, accuracy: object) =>
+    (
+      await getDb()
+        .insertInto("instrument")
+        .values({ kind, identifier, serial: `S-${identifier}`, accuracy: JSON.stringify(accuracy), calibration_certificate: `CAL-${identifier}`, calibrated_on: "2026-01-10", due_on: "2027-01-10", created_by: issuer.id })
+        .returning("id")
+        .executeTakeFirstOrThrow()
+    ).id;
+  // REFERENCES.md §6 Example B accuracy, so the evaluation carries an uncertainty budget.
+  const channel = await register("cycler-channel", "CH-C1", {
+    current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+    voltage: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
+    time: { ppm: 100 },
+  });
+  await register("thermometer", "TH-07", { temperature: { halfWidth: 0.3 } });
+  const lot = (
+    await getDb()
+      .insertInto("lot")
+      .values({ identifier: "L-CERT", cell_specification_id: specId, supplier: "Larkfield Supply", quantity_received: 20, received_on: "2026-02-20", created_by: issuer.id, customer: "Quayside Packs Ltd" })
+      .returning("id")
+      .executeTakeFirstOrThrow()
+  ).id;
+  return { issuer, reviewer, operator, auditor, specId, versionId, channel, lot };
+}
+
+type Lab = Awaited<ReturnType<typeof setUpLab>>;
+let labPromise: Promise<Lab> | null = null;
+const lab = () => (labPromise ??= setUpLab());
+
+/** A run carried out, logged, evaluated and submitted; `ambientOnRest` puts one rest outside 20 °C ± 5 °C. */
+async function runToSubmitted(tag: string, options: { ambientOnRest?: number } = {}) {
+  const l = await lab();
+  const specimen = (
+    await getDb()
+      .insertInto("specimen")
+      .values({ identifier: `SP-${tag}`, cell_specification_id: l.specId, lot_id: l.lot, received_on: "2026-02-26", condition_on_receipt: "intact, 3.48 V", created_by: l.issuer.id })
+      .returning("id")
+      .executeTakeFirstOrThrow()
+  ).id;
+  const run = await startRun(l.operator, { procedureVersionId: l.versionId, specimenId: specimen, instrumentIds: [l.channel] }, TODAY);
+  const built = buildRatedCapacityRun({
+    sampleIntervalS: 10,
+    ...(options.ambientOnRest !== undefined && { ambient: (stepId: string) => (stepId === "rest" ? [22.5, options.ambientOnRest as number] : [22.5, 22.5]) }),
+  });
+  for (const record of built.input.stepRecords) await recordStep(l.operator, run.id, record);
+  const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+  if (!csv.ok) throw new Error(csv.error.message);
+  const ingested = await ingestLog(l.operator, run.id, { name: `${tag}.csv`, chunks: chunksOf(csv.value), mapping: MAPPING });
+  if (!ingested.ok) throw new Error(ingested.error.message);
+  const evaluation = await evaluateStoredRun(l.operator, run.id, { columns: ingested.columns });
+  await submitRun(l.operator, run.id);
+  return { runId: run.id, number: run.number, evaluation };
+}
+
+/** The accepting review as the review screen writes it: a 'reviewed' signature and the review row, then the run accepted. */
+async function accept(runId: string, notes: "all" | "none" = "all") {
+  const l = await lab();
+  const latest = await getDb().selectFrom("run_evaluation").select(["id", "evaluation"]).where("run_id", "=", runId).orderBy("evaluated_at", "desc").executeTakeFirstOrThrow();
+  const deviating = listFindings(latest.evaluation as RunEvaluation).filter((f) => f.outcome === "deviates");
+  const acknowledged = notes === "all" ? deviating.map((f) => ({ findingId: f.id, note: "Cabinet door open for a minute; the rest lasted far beyond its minimum." })) : [];
+  const signature = await getDb()
+    .insertInto("electronic_signature")
+    .values({ signer_id: l.reviewer.id, printed_name: l.reviewer.displayName, meaning: "reviewed", entity_type: "run", entity_id: runId, record_sha256: hashCanonicalJson(latest.evaluation) })
+    .returning("id")
+    .executeTakeFirstOrThrow();
+  await getDb()
+    .insertInto("run_review")
+    .values({ run_id: runId, reviewer_id: l.reviewer.id, decision: "accepted", comments: "Records complete.", run_evaluation_id: latest.id, acknowledged_deviations: JSON.stringify(acknowledged), signature_id: signature.id })
+    .execute();
+  await setRunStatus(getDb(), runId, "accepted");
+  return deviating;
+}
+
+async function countWrites() {
+  const db = getDb();
+  const [certificates, signatures, files, objects, mail] = await Promise.all([
+    db.selectFrom("certificate").select((eb) => eb.fn.countAll<string>().as("n")).executeTakeFirstOrThrow(),
+    db.selectFrom("electronic_signature").select((eb) => eb.fn.countAll<string>().as("n")).where("meaning", "=", "approved").executeTakeFirstOrThrow(),
+    db.selectFrom("stored_file").select((eb) => eb.fn.countAll<string>().as("n")).where("purpose", "=", "certificate").executeTakeFirstOrThrow(),
+    listObjectKeys("certificates/"),
+    db.selectFrom("mail_message").select((eb) => eb.fn.countAll<string>().as("n")).where("kind", "=", "certificate-issued").executeTakeFirstOrThrow(),
+  ]);
+  return { certificates: Number(certificates.n), signatures: Number(signatures.n), files: Number(files.n), objects: objects.length, mail: Number(mail.n) };
+}
+
+function pdfsig(bytes: Uint8Array): string {
+  const dir = mkdtempSync(join(tmpdir(), "cellwright-pdfsig-"));
+  try {
+    const file = join(dir, "c.pdf");
+    writeFileSync(file, bytes);
+    try {
+      return execFileSync("pdfsig", [file], { encoding: "utf8" });
+    } catch (error) {
+      return String((error as { stdout?: string }).stdout ?? error);
+    }
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+describe("run certificates", () => {
+  it("issues a signed certificate for an accepted run: certified, stored, audited, auditors told, the hashes recompute", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("ISSUE");
+    expect(run.evaluation.verdict).toMatchObject({ procedureFollowed: "yes", specimenConforms: "conforms" });
+    await accept(run.runId);
+    const before = await countWrites();
+
+    const { number } = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    expect(number).toMatch(/^C-\d{5}$/);
+    expect((await getRun(getDb(), run.runId))?.status).toBe("certified");
+    expect(await countWrites()).toEqual({ ...before, certificates: before.certificates + 1, signatures: before.signatures + 1, files: before.files + 1, objects: before.objects + 1, mail: before.mail + 1 });
+
+    const view = await getCertificateByNumber(getDb(), number);
+    expect(view).toMatchObject({
+      number,
+      subject: "run",
+      runId: run.runId,
+      runNumber: run.number,
+      lotId: l.lot,
+      lotIdentifier: "L-CERT",
+      specimenIdentifier: "SP-ISSUE",
+      cellSpecificationId: l.specId,
+      cellLabel: "Testmoor Cells TM-CERT (INR22/71)",
+      verdict: "conforms",
+      status: "valid",
+      issuedByName: "Ida Issuer",
+      replacesNumber: null,
+      replacedByNumber: null,
+      labName: "Harbourside Cell Test Laboratory",
+      signature: { printedName: "Ida Issuer", meaning: "approved" },
+    });
+    // The approval's time on the record is the issue time the PDF prints.
+    expect(view?.signature.signedAt.toISOString()).toBe(view?.issuedAt.toISOString());
+    // What it states, read back from jsonb, hashes to the stored hash (canonical JSON, sorted keys).
+    expect(hashCanonicalJson(view?.payload)).toBe(view?.payloadSha256);
+    expect(view?.payload.customer).toBe("Quayside Packs Ltd");
+    expect(view?.payload.uncertainty.map((u) => u.quantity)).toEqual(expect.arrayContaining(["capacity", "energy"]));
+    expect(view?.payload.instruments.map((i) => [i.identifier, i.calibratedForTesting])).toEqual([
+      ["CH-C1", true],
+      ["TH-07", true],
+    ]);
+    const log = await getDb().selectFrom("run_log as rl").innerJoin("stored_file as f", "f.id", "rl.stored_file_id").select("f.sha256").where("rl.run_id", "=", run.runId).executeTakeFirstOrThrow();
+    expect(view?.payload.evidence.logs.map((x) => x.sha256)).toEqual([log.sha256]);
+
+    const pdf = await readCertificatePdf(number);
+    if (!pdf) throw new Error("the issued PDF must be readable");
+    expect(pdf.fileName).toBe(`${number}.pdf`);
+    expect(pdfsig(pdf.bytes)).toMatch(/Signature Validation: Signature is Valid\./);
+    const check = await checkCertificatePdf(number, pdf.bytes);
+    expect(check).toMatchObject({ known: true, byteIdentical: true, signature: { present: true, valid: true, signedByLab: true, signer: "Harbourside Cell Test Laboratory" } });
+    const key = await describeLabSigningKey();
+    expect(key).toMatchObject({ commonName: "Harbourside Cell Test Laboratory", source: "generated" });
+    expect(key.fingerprintSha256).toMatch(/^[0-9a-f]{64}$/);
+    writeFileSync("/tmp/cert-integration.pdf", pdf.bytes);
+
+    const mail = await getDb().selectFrom("mail_message").select(["recipients", "subject", "body", "entity_id"]).where("kind", "=", "certificate-issued").where("entity_id", "=", view!.id).executeTakeFirstOrThrow();
+    expect(mail.recipients).toEqual([l.auditor.email]);
+    expect(mail.subject).toContain(number);
+    expect(mail.body).toContain(`/check/${number}`);
+
+    const actions = (await listAuditEvents(getDb(), { entityType: "certificate", entityId: view!.id })).map((e) => e.action);
+    expect(actions).toContain("certificate.issue");
+    expect((await listAuditEvents(getDb(), { entityType: "run", entityId: run.runId })).map((e) => e.action)).toContain("run.certify");
+    expect((await listCertificates(getDb(), { runId: run.runId })).map((c) => c.number)).toEqual([number]);
+    expect(await listCertificates(getDb(), { lotId: l.lot, verdict: "does not conform" })).toEqual([]);
+    const today = new Date().toISOString().slice(0, 10);
+    expect((await listCertificates(getDb(), { cellSpecificationId: l.specId, issuedFrom: today, issuedTo: today })).map((c) => c.number)).toContain(number);
+    expect(await listCertificates(getDb(), { issuedTo: "2000-01-01" })).toEqual([]);
+
+    // Signing twice is refused, and changes nothing.
+    const after = await countWrites();
+    await expect(issueRunCertificate(l.issuer, run.runId, { password: PASSWORD })).rejects.toThrow(/already certified/);
+    expect(await countWrites()).toEqual(after);
+    // What an issued certificate states and its PDF never change.
+    await expect(sql`update certificate set pdf_sha256 = ${"0".repeat(64)} where number = ${number}`.execute(getDb())).rejects.toThrow(/never change/);
+    await expect(sql`delete from certificate where number = ${number}`.execute(getDb())).rejects.toThrow(/cannot be deleted/);
+  });
+
+  it("refuses the run's operator, a wrong password (audited), and a run that is not accepted, writing nothing", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("REFUSE");
+    const before = await countWrites();
+    await expect(issueRunCertificate(l.issuer, run.runId, { password: PASSWORD })).rejects.toThrow(/submitted for review: only an accepted run gets a certificate/);
+    await accept(run.runId);
+    // An operator has no signing role; the operator of this very run is refused even as an engineer.
+    await expect(issueRunCertificate(l.operator, run.runId, { password: PASSWORD })).rejects.toThrow(/Only an engineer/);
+    await expect(issueRunCertificate({ ...l.operator, role: "engineer" }, run.runId, { password: PASSWORD })).rejects.toThrow(/You operated run/);
+    await expect(issueRunCertificate(l.issuer, run.runId, { password: "not my password" })).rejects.toThrow(/password is not right/);
+    const refused = await listAuditEvents(getDb(), { action: "signature.refused" });
+    expect(refused[0]).toMatchObject({ actorLabel: expect.stringContaining("Ida Issuer"), detail: { what: `certificate of run ${run.number}`, reason: "wrong password" } });
+    expect(await countWrites()).toEqual(before);
+    expect((await getRun(getDb(), run.runId))?.status).toBe("accepted");
+
+    // A transaction that fails after the PDF was stored removes the stored PDF again.
+    const { basis, curves } = await gatherRunCertificateBasis(l.issuer, run.runId, "accepted");
+    const produced = await produceRunCertificate({ actor: l.issuer, basis, curves, replaces: null });
+    expect(await listObjectKeys(`certificates/${produced.id}/`)).toHaveLength(1);
+    const failing = { check: async () => {}, record: async () => Promise.reject(new Error("the mail table is gone")) };
+    await expect(issueProducedCertificate(l.issuer, produced, { runId: run.runId, lotId: null, replacesId: null, amendmentReason: null }, failing)).rejects.toThrow(/mail table is gone/);
+    expect(await listObjectKeys(`certificates/${produced.id}/`)).toEqual([]);
+    expect(await countWrites()).toEqual(before);
+  });
+
+  it("refuses when the accepted review left a deviation without a note, or a newer evaluation exists than the one reviewed", async () => {
+    const l = await lab();
+    const unnoted = await runToSubmitted("UNNOTED", { ambientOnRest: 27.5 });
+    expect(unnoted.evaluation.verdict.procedureFollowed).toBe("no");
+    const deviating = await accept(unnoted.runId, "none");
+    expect(deviating.map((f) => f.rule)).toContain("ambient-in-range");
+    const before = await countWrites();
+    await expect(issueRunCertificate(l.issuer, unnoted.runId, { password: PASSWORD })).rejects.toThrow(/does not note this deviation/);
+
+    const reevaluated = await runToSubmitted("REEVALUATED", { ambientOnRest: 27.5 });
+    await accept(reevaluated.runId, "all");
+    await evaluateStoredRun(l.issuer, reevaluated.runId);
+    await expect(issueRunCertificate(l.issuer, reevaluated.runId, { password: PASSWORD })).rejects.toThrow(/evaluated again after its review/);
+    expect(await countWrites()).toEqual(before);
+    expect((await getRun(getDb(), unnoted.runId))?.status).toBe("accepted");
+
+    // Each deviation noted by the reviewer: the certificate states them, with the notes.
+    const noted = await runToSubmitted("NOTED", { ambientOnRest: 27.5 });
+    await accept(noted.runId, "all");
+    const { number } = await issueRunCertificate(l.issuer, noted.runId, { password: PASSWORD });
+    const view = await getCertificateByNumber(getDb(), number);
+    expect(view?.procedureFollowed).toBe("no");
+    expect(view?.payload.deviations.length).toBe(deviating.length);
+    expect(view?.payload.deviations.every((d) => d.reviewerNote?.startsWith("Cabinet door"))).toBe(true);
+  });
+
+  it("amends (the old one superseded, the new one names it) and revokes only with a reason and the password", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("AMEND");
+    await accept(run.runId);
+    const first = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    await expect(amendCertificate(l.issuer, first.number, { password: PASSWORD, reason: "   " })).rejects.toThrow(/Say why/);
+    await expect(amendCertificate(l.issuer, first.number, { password: "wrong", reason: "Customer name corrected" })).rejects.toThrow(/password is not right/);
+    await expect(amendCertificate(l.issuer, "C-99999", { password: PASSWORD, reason: "x" })).rejects.toThrow(/No certificate C-99999/);
+
+    await getDb().updateTable("lot").set({ customer: "Quayside Packs Limited" }).where("id", "=", l.lot).execute();
+    const second = await amendCertificate(l.issuer, first.number, { password: PASSWORD, reason: "Customer's legal name corrected" });
+    const old = await getCertificateByNumber(getDb(), first.number);
+    const replacement = await getCertificateByNumber(getDb(), second.number);
+    expect(old).toMatchObject({ status: "superseded", replacedByNumber: second.number });
+    expect(replacement).toMatchObject({ status: "valid", replacesNumber: first.number, amendmentReason: "Customer's legal name corrected" });
+    expect(replacement?.payload.replaces).toEqual({ number: first.number, reason: "Customer's legal name corrected" });
+    expect(replacement?.payload.customer).toBe("Quayside Packs Limited");
+    await expect(amendCertificate(l.issuer, first.number, { password: PASSWORD, reason: "again" })).rejects.toThrow(new RegExp(`already replaced by ${second.number}`));
+    expect((await listAuditEvents(getDb(), { entityType: "certificate", entityId: old!.id })).map((e) => e.action)).toContain("certificate.supersede");
+
+    await expect(revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "" })).rejects.toThrow(/Say why/);
+    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, second.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You operated run/);
+    await expect(revokeCertificate(l.issuer, second.number, { password: "wrong", reason: "Channel found out of tolerance" })).rejects.toThrow(/password is not right/);
+    expect((await getCertificateByNumber(getDb(), second.number))?.status).toBe("valid");
+    await revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "Cycler channel found out of tolerance at its next calibration" });
+    const revoked = await getCertificateByNumber(getDb(), second.number);
+    expect(revoked).toMatchObject({ status: "revoked", revokedByName: "Ida Issuer", revocationReason: "Cycler channel found out of tolerance at its next calibration" });
+    await expect(revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "twice" })).rejects.toThrow(/is revoked/);
+    expect((await listAuditEvents(getDb(), { entityType: "certificate", entityId: revoked!.id })).map((e) => e.action)).toContain("certificate.revoke");
+    // The revoked PDF is still served exactly as issued.
+    expect((await readCertificatePdf(second.number))?.bytes.byteLength).toBeGreaterThan(10_000);
+  });
+
+  it("checks a PDF: tampered and foreign files are told apart from the one issued; an unknown number is unknown", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("CHECK");
+    await accept(run.runId);
+    const { number } = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    const pdf = (await readCertificatePdf(number))!.bytes;
+
+    const tampered = Buffer.from(pdf);
+    tampered[Math.floor(tampered.length / 3)]! ^= 0x01;
+    const tamperedCheck = await checkCertificatePdf(number, tampered);
+    expect(tamperedCheck).toMatchObject({ known: true, byteIdentical: false, signature: { present: true, valid: false, signedByLab: false } });
+    expect(tamperedCheck.signature.reason).toMatch(/changed after it was signed/);
+
+    const foreignKey = createSelfSignedP12("Harbourside Cell Test Laboratory", "pw");
+    const foreign = await signPdf(await import("pdf-lib").then(async ({ PDFDocument }) => PDFDocument.create().then(async (d) => (d.addPage(), d.save()))), { p12: foreignKey, passphrase: "pw" }, {
+      reason: "look-alike",
+      name: "someone",
+      location: "elsewhere",
+      contactInfo: "",
+      signingTime: new Date(),
+    });
+    const foreignCheck = await checkCertificatePdf(number, foreign);
+    expect(foreignCheck).toMatchObject({ known: true, byteIdentical: false, signature: { present: true, valid: true, signedByLab: false } });
+    expect(foreignCheck.signature.reason).toMatch(/not signed by the lab/);
+
+    const unknown = await checkCertificatePdf("C-99999", pdf);
+    expect(unknown).toMatchObject({ known: false, byteIdentical: false, signature: { valid: true, signedByLab: true } });
+    expect(await readCertificatePdf("C-99999")).toBeNull();
+    expect(await getCertificateByNumber(getDb(), "C-99999")).toBeNull();
+    const unsigned = await checkCertificatePdf(number, new TextEncoder().encode("%PDF-1.7\n%%EOF\n"));
+    expect(unsigned.signature).toMatchObject({ present: false, valid: false, signedByLab: false });
+  });
+});

@@ -1,0 +1,121 @@
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
+import { formatCelsius, formatMah, formatWh } from "@/lib/certificates/certificate-format";
+import type { RunCertificatePayload } from "@/lib/certificates/certificate-payload";
+import { renderCertificatePdf } from "@/lib/certificates/render-certificate";
+import type { DischargeCurve } from "@/lib/certificates/vq-plot";
+import { buildFixturePayload } from "../unit/certificates/fixture-payload";
+
+// What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as REFERENCES.md §8
+// lists them [published]. The text is read back with Debian's pdftotext (poppler-utils), page by page.
+const dir = mkdtempSync(join(tmpdir(), "cellwright-certificate-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+async function renderPages(payload: RunCertificatePayload, curves: DischargeCurve[], name: string): Promise<{ pages: string[]; file: string }> {
+  const pdf = await renderCertificatePdf({ payload, payloadSha256: hashCanonicalJson(payload), curves, checkUrl: `http://localhost:3000/check/${payload.number}`, signingSubject: "Harbourside Cell Test Laboratory" });
+  const file = join(dir, `${name}.pdf`);
+  writeFileSync(file, pdf);
+  const text = execFileSync("pdftotext", ["-raw", "-enc", "UTF-8", file, "-"], { encoding: "utf8" });
+  // pdftotext ends every page with a form feed; no-break spaces read as spaces.
+  const pages = text.replace(/\u00a0/g, " ").split("\f").slice(0, -1);
+  return { pages, file };
+}
+
+const squash = (s: string) => s.replace(/\s+/g, " ");
+
+describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", async () => {
+  const { payload, curves } = buildFixturePayload();
+  const { pages, file } = await renderPages(payload, curves, "full");
+  const all = squash(pages.join("\n"));
+
+  it("is a paged A4 document whose every page carries the certificate's number and 'page x of y', and the last ends clearly (7.8.2.1 c)", () => {
+    expect(pages.length).toBeGreaterThanOrEqual(2);
+    pages.forEach((page, i) => {
+      expect(page).toContain("C-00042");
+      expect(squash(page)).toContain(`page ${i + 1} of ${pages.length}`);
+    });
+    expect(squash(pages.at(-1)!)).toContain("End of certificate C-00042");
+    expect(pages.slice(0, -1).some((p) => p.includes("End of certificate"))).toBe(false);
+    expect(execFileSync("pdfinfo", [file], { encoding: "utf8" })).toMatch(/Page size:\s+595\.28 x 841\.89 pts \(A4\)/);
+  });
+
+  it("embeds the shipped Merriweather font for its text", () => {
+    const fonts = execFileSync("pdffonts", [file], { encoding: "utf8" });
+    expect(fonts).toMatch(/Merriweather-Regular\s+CID TrueType\s+Identity-H\s+yes\s+yes\s+yes/);
+    expect(fonts).toMatch(/Merriweather-Bold/);
+  });
+
+  it("states the title, the lab's name and address, the place of the work and the customer (a, b, d)", () => {
+    expect(all).toContain("Test certificate");
+    expect(all).toContain("Harbourside Cell Test Laboratory");
+    expect(all).toContain("Unit 4, 17 Ropewalk Lane, Portmere PM3 9QX");
+    expect(all).toMatch(/Place of the work\s+At the laboratory's premises/);
+    expect(all).toMatch(/Customer\s+Quayside Packs Ltd/);
+  });
+
+  it("identifies the method, the item, its condition, receipt, the dates of testing and of issue, and sampling (e, f, g, h, i, k)", () => {
+    expect(all).toMatch(/Procedure\s+TPL-RC20 version 2: Rated capacity at 20 °C/);
+    expect(all).toMatch(/Standard and clause\s+IEC 61960-3:2017, 7\.2, 7\.3\.1/);
+    expect(all).toMatch(/Specimen\s+SP-0042/);
+    expect(all).toContain("Testmoor Cells TM-21700-30, INR22/71, NMC");
+    expect(all).toMatch(/Condition on receipt\s+intact, no dents, open-circuit voltage 3\.48 V/);
+    expect(all).toMatch(/Date of receipt\s+2026-02-26/);
+    expect(all).toMatch(/Dates of testing\s+2026-03-02 08:00 UTC to 2026-03-02 \d\d:\d\d UTC/);
+    expect(all).toMatch(/Date of issue\s+2026-03-04 09:30 UTC/);
+    expect(all).toMatch(/Sampling\s+Not applicable/);
+  });
+
+  it("gives results with units, the V–Q plot, and the deviations from the method with the reviewer's note (m, n)", () => {
+    const measured = payload.results.find((r) => r.stepId === "discharge")!;
+    expect(all).toContain(formatMah(measured.capacityMAh).replace(/\u00a0/g, " "));
+    expect(all).toContain(formatWh(measured.energyWh).replace(/\u00a0/g, " "));
+    expect(all).toMatch(/\d\.\d\d V/);
+    expect(all).toContain("Charge delivered (mAh)");
+    expect(all).toContain("Voltage (V)");
+    expect(all).toContain("Figure 1: Capacity discharge at 0.2 It");
+    expect(all).toContain("Deviations from the method");
+    expect(all).toContain("Rest after charge: Ambient temperature within its range");
+    expect(all).toContain("Reviewer's note: Door of the climate cabinet left open");
+  });
+
+  it("states that results relate only to the item tested, that no result is from an external provider, and who reviewed and authorised it, when and meaning what (h, o, p; 7.8.1)", () => {
+    expect(all).toContain("The results relate only to the item tested");
+    expect(all).toContain("No result on this certificate comes from an external provider");
+    expect(all).toMatch(/Reviewed by .*Rhea Okafor/);
+    expect(all).toMatch(/Approved for issue by .*Tomas Lindqvist/);
+    expect(all).toContain("2026-03-04 08:12 UTC");
+    expect(all).toContain("Meaning: reviewed (checked the records, findings and results against the procedure)");
+    expect(all).toContain("Meaning: approved (authorised the certificate for issue)");
+    expect(all).toContain("http://localhost:3000/check/C-00042");
+  });
+
+  it("gives the test conditions, the statement of conformity with its decision rule, and the uncertainty (7.8.3.1 a–c)", () => {
+    expect(all).toContain("Test conditions: ambient temperature");
+    expect(all).toContain(`${formatCelsius(15).replace(/\u00a0/g, " ")} to ${formatCelsius(25).replace(/\u00a0/g, " ")}`);
+    expect(all).toContain("22.4 °C to 26.5 °C (3 readings)");
+    expect(all).toMatch(/Conforms — statement of conformity of specimen SP-0042/);
+    expect(all).toMatch(/Decision rule\s+Simple acceptance \(ILAC-G8:09\/2019\)/);
+    const capacity = payload.uncertainty.find((u) => u.quantity === "capacity")!.budget;
+    expect(all).toContain(`U = ±${formatMah(capacity.expandedUncertainty * 1000).replace(/\u00a0/g, " ")}`);
+    expect(all).toContain("sqrt 3");
+    expect(all).not.toContain("Uncertainty not evaluated");
+  });
+
+  it("says 'uncertainty not evaluated' when the evaluation carried no budget", async () => {
+    const bare = buildFixturePayload({ uncertainty: false });
+    const text = squash((await renderPages(bare.payload, bare.curves, "bare")).pages.join("\n"));
+    expect(text).toContain("Uncertainty not evaluated");
+  });
+
+  it("names the certificate an amendment replaces, and why (7.8.8)", async () => {
+    const amended = buildFixturePayload();
+    amended.payload.replaces = { number: "C-00041", reason: "Customer's legal name corrected" };
+    const text = squash((await renderPages(amended.payload, amended.curves, "amended")).pages.join("\n"));
+    expect(text).toContain("Amendment: this certificate replaces certificate C-00041, which is withdrawn.");
+    expect(text).toContain("Reason: Customer's legal name corrected");
+  });
+});
