@@ -14,7 +14,7 @@ cw_profile demo
 # Links in e-mails and on certificates point at this app.
 export CELLWRIGHT_PUBLIC_URL="${CELLWRIGHT_PUBLIC_URL:-http://localhost:$PORT}"
 log "migrating"; npx tsx scripts/migrate.ts
-log "seeding the demo lab"; npx tsx --conditions=react-server scripts/seed.ts
+log "seeding the demo lab"; npx tsx --import ./scripts/allow-server-only.mjs scripts/seed.ts
 
 # A previous demo still running would hold the port: stop its whole process group.
 if [ -f .data/app.pid ] && kill -0 "$(cat .data/app.pid)" 2>/dev/null; then

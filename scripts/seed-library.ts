@@ -1,5 +1,10 @@
 import { formatLogCsv } from "../lib/analysis";
 import { getRun } from "../db/runs";
+import { getLatestRunEvaluation } from "../db/run-series";
+import { issueRunCertificate } from "../lib/certificates/issue-certificate";
+import type { RunEvaluation } from "../lib/conformance";
+import { acceptRun } from "../lib/reviews/accept-run";
+import { listDeviatingFindings } from "../lib/reviews/reviewed-record";
 import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
 import { ingestLog } from "../lib/runs/ingest-log";
 import { recordStep } from "../lib/runs/record-step";
@@ -26,6 +31,7 @@ import {
   DEMO_INSTRUMENTS,
   DEMO_LOOSE_SPECIMENS,
   DEMO_LOT,
+  DEMO_USERS,
 } from "./demo-scenario";
 
 const STANDARD_CAUTIONS = plainToRichText(
@@ -69,7 +75,7 @@ export async function seedLibrary(): Promise<string[]> {
     await releaseVersion(releaser, versionId);
     done.push(template.procedure.header.code);
   }
-  done.push(...(await seedInstruments()), ...(await seedLotAndSpecimens()), ...(await seedDemoRun()), ...(await seedEvaluatedRun()));
+  done.push(...(await seedInstruments()), ...(await seedLotAndSpecimens()), ...(await seedDemoRun()), ...(await seedEvaluatedRun()), ...(await seedCertifiedRun()));
   return done;
 }
 
@@ -155,18 +161,42 @@ export async function seedDemoRun(): Promise<string[]> {
  * tests/support) uploaded, evaluated and submitted, all through the same services as the app. Idempotent.
  */
 export async function seedEvaluatedRun(): Promise<string[]> {
-  const identifier = DEMO_LOT.specimens[2]!.identifier;
+  const run = await seedSubmittedRun(DEMO_LOT.specimens[2]!.identifier, 5010);
+  return run ? [`run ${run.number} (evaluated, submitted)`] : [];
+}
+
+/**
+ * A run carried through to the end for the auditor: submitted by the operator, accepted and signed as
+ * reviewed by the second engineer (noting any deviation), and certified by the same engineer. Idempotent.
+ */
+export async function seedCertifiedRun(): Promise<string[]> {
+  const run = await seedSubmittedRun(DEMO_LOT.specimens[3]!.identifier, 4985);
+  if (!run) return [];
+  const reviewer = await asUser("engineer2@brackwater.example");
+  const password = DEMO_USERS.find((u) => u.email === reviewer.email)!.password;
+  const latest = await getLatestRunEvaluation(getDb(), run.id);
+  if (!latest) throw new Error(`run ${run.number} has no evaluation`);
+  const acknowledgements = listDeviatingFindings(latest.evaluation as RunEvaluation).map((f) => ({
+    findingId: f.id,
+    note: "Reviewed against the run's records; no effect on the delivered capacity (demo note).",
+  }));
+  await acceptRun(reviewer, run.id, { password, acknowledgements, evaluationId: latest.id });
+  const { number } = await issueRunCertificate(reviewer, run.id, { password });
+  return [`run ${run.number} (certified as ${number})`];
+}
+
+async function seedSubmittedRun(identifier: string, capacityMAh: number): Promise<{ id: string; number: string } | null> {
   const specimenId = await findId("specimen", identifier);
   const procedureId = await getProcedureIdByCode(getDb(), "TPL-RC20");
-  if (!specimenId || !procedureId) return [];
-  if (await getDb().selectFrom("run").select("id").where("specimen_id", "=", specimenId).executeTakeFirst()) return [];
+  if (!specimenId || !procedureId) return null;
+  if (await getDb().selectFrom("run").select("id").where("specimen_id", "=", specimenId).executeTakeFirst()) return null;
   const version = await getDb().selectFrom("procedure_version").select("id").where("procedure_id", "=", procedureId).where("status", "=", "released").executeTakeFirstOrThrow();
   const instrumentIds = [await findId("instrument", "CY1-CH02"), await findId("instrument", "CC-01")].filter((id): id is string => id !== undefined);
   const operator = await asUser("operator@brackwater.example");
   const run = await startRun(operator, { procedureVersionId: version.id, specimenId, instrumentIds }, readLabToday());
   const stored = await getRun(getDb(), run.id);
   const korvel = DEMO_CELL_SPECIFICATIONS.find((s) => s.model === "KV-21N48")!;
-  const built = buildRatedCapacityRun({ cell: korvel.data, resolution: stored!.resolution, cellModel: { capacityMAh: 5010 }, sampleIntervalS: 2 });
+  const built = buildRatedCapacityRun({ cell: korvel.data, resolution: stored!.resolution, cellModel: { capacityMAh }, sampleIntervalS: 2 });
   for (const record of built.input.stepRecords) {
     await recordStep(operator, run.id, { ...record, ambientReadings: record.ambientReadings?.map((a) => ({ ...a, instrumentId: "CC-01" })) });
   }
@@ -189,7 +219,7 @@ export async function seedEvaluatedRun(): Promise<string[]> {
   if (!ingested.ok) throw new Error(`demo log refused: ${ingested.error.message}`);
   await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
   await submitRun(operator, run.id);
-  return [`run ${run.number} (evaluated, submitted)`];
+  return { id: run.id, number: run.number };
 }
 
 async function findId(table: "instrument" | "lot" | "specimen", identifier: string): Promise<string | undefined> {

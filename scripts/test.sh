@@ -39,7 +39,7 @@ npx vitest run --project integration --reporter=default --reporter=json --output
 log "browser tests: fresh e2e database, production build, Chromium"
 psql "postgres://postgres@127.0.0.1:$PG_PORT/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e"
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
-DATABASE_URL="$E2E_DATABASE_URL" npx tsx --conditions=react-server scripts/seed.ts >/dev/null
+DATABASE_URL="$E2E_DATABASE_URL" npx tsx --import ./scripts/allow-server-only.mjs scripts/seed.ts >/dev/null
 npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next-build.log; exit 1; }
 PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json
 
