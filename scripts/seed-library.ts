@@ -9,7 +9,7 @@ import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
 import { ingestLog } from "../lib/runs/ingest-log";
 import { recordStep } from "../lib/runs/record-step";
 import { submitRun } from "../lib/runs/submit-run";
-import { buildRatedCapacityRun } from "../tests/support/rated-capacity-run";
+import { buildRatedCapacityRun, logStartedAt } from "../tests/support/rated-capacity-run";
 import { getDb } from "../db";
 import { getProcedureIdByCode } from "../db/procedures";
 import { addDays } from "../lib/instruments/calendar-date";
@@ -161,7 +161,7 @@ export async function seedDemoRun(): Promise<string[]> {
  * tests/support) uploaded, evaluated and submitted, all through the same services as the app. Idempotent.
  */
 export async function seedEvaluatedRun(): Promise<string[]> {
-  const run = await seedSubmittedRun(DEMO_LOT.specimens[2]!.identifier, 5010);
+  const run = await seedSubmittedRun(DEMO_LOT.specimens[2]!.identifier, 5010, 4);
   return run ? [`run ${run.number} (evaluated, submitted)`] : [];
 }
 
@@ -170,7 +170,7 @@ export async function seedEvaluatedRun(): Promise<string[]> {
  * reviewed by the second engineer (noting any deviation), and certified by the same engineer. Idempotent.
  */
 export async function seedCertifiedRun(): Promise<string[]> {
-  const run = await seedSubmittedRun(DEMO_LOT.specimens[3]!.identifier, 4985);
+  const run = await seedSubmittedRun(DEMO_LOT.specimens[3]!.identifier, 4985, 3);
   if (!run) return [];
   const reviewer = await asUser("engineer2@brackwater.example");
   const password = DEMO_USERS.find((u) => u.email === reviewer.email)!.password;
@@ -185,7 +185,7 @@ export async function seedCertifiedRun(): Promise<string[]> {
   return [`run ${run.number} (certified as ${number})`];
 }
 
-async function seedSubmittedRun(identifier: string, capacityMAh: number): Promise<{ id: string; number: string } | null> {
+async function seedSubmittedRun(identifier: string, capacityMAh: number, daysAgo: number): Promise<{ id: string; number: string } | null> {
   const specimenId = await findId("specimen", identifier);
   const procedureId = await getProcedureIdByCode(getDb(), "TPL-RC20");
   if (!specimenId || !procedureId) return null;
@@ -197,8 +197,17 @@ async function seedSubmittedRun(identifier: string, capacityMAh: number): Promis
   const stored = await getRun(getDb(), run.id);
   const korvel = DEMO_CELL_SPECIFICATIONS.find((s) => s.model === "KV-21N48")!;
   const built = buildRatedCapacityRun({ cell: korvel.data, resolution: stored!.resolution, cellModel: { capacityMAh }, sampleIntervalS: 2 });
+  // The invented log starts on a fixed day; the records are moved to a few days before today so the
+  // testing falls inside the instruments' calibration periods (the log itself counts elapsed seconds).
+  const shiftMs = Date.parse(`${addDays(readLabToday(), -daysAgo)}T08:00:00.000Z`) - Date.parse(logStartedAt);
+  const shift = (iso: string | undefined) => iso && new Date(Date.parse(iso) + shiftMs).toISOString();
   for (const record of built.input.stepRecords) {
-    await recordStep(operator, run.id, { ...record, ambientReadings: record.ambientReadings?.map((a) => ({ ...a, instrumentId: "CC-01" })) });
+    await recordStep(operator, run.id, {
+      ...record,
+      startedAt: shift(record.startedAt),
+      endedAt: shift(record.endedAt),
+      ambientReadings: record.ambientReadings?.map((a) => ({ ...a, at: shift(a.at)!, instrumentId: "CC-01" })),
+    });
   }
   const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current", "temperature"] });
   if (!csv.ok) throw new Error(csv.error.message);
