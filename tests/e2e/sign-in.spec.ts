@@ -2,12 +2,12 @@ import { expect, test } from "@playwright/test";
 import { DEMO_USERS } from "../../scripts/demo-scenario";
 
 // Only this spec signs in through the form; the others start with a session (fixtures.ts).
-const LAB = ["Runs", "Lots", "Specimens", "Instruments"];
+const LAB = ["Runs", "Lots", "Specimens", "Compare discharges", "Instruments"];
 const NAV: Record<string, string[]> = {
-  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Audit trail", "Users"],
-  engineer: ["Home", "Procedures", "Cell specifications", ...LAB],
+  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail", "Users", "E-mail"],
+  engineer: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates"],
   operator: ["Home", "Procedures", "Cell specifications", ...LAB],
-  auditor: ["Home", "Procedures", "Cell specifications", ...LAB, "Audit trail"],
+  auditor: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail"],
 };
 
 for (const user of DEMO_USERS.filter((u, i, all) => all.findIndex((x) => x.role === u.role) === i)) {

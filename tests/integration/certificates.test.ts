@@ -296,7 +296,11 @@ describe("run certificates", () => {
 
     const reevaluated = await runToSubmitted("REEVALUATED", { ambientOnRest: 27.5 });
     await accept(reevaluated.runId, "all");
-    await evaluateStoredRun(l.issuer, reevaluated.runId);
+    // The service no longer evaluates an accepted run again; a newer evaluation written past it is still caught.
+    await expect(evaluateStoredRun(l.issuer, reevaluated.runId)).rejects.toThrow(/is final and is not evaluated again/);
+    await sql`insert into run_evaluation (run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at)
+      select run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at + interval '1 second'
+      from run_evaluation where run_id = ${reevaluated.runId} order by evaluated_at desc limit 1`.execute(getDb());
     await expect(issueRunCertificate(l.issuer, reevaluated.runId, { password: PASSWORD })).rejects.toThrow(/evaluated again after its review/);
     expect(await countWrites()).toEqual(before);
     expect((await getRun(getDb(), unnoted.runId))?.status).toBe("accepted");
