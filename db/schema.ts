@@ -134,6 +134,8 @@ export interface InstrumentTable {
   updated_at: DefaultedTimestamp;
 }
 
+export type InspectionLevel = "S-1" | "S-2" | "S-3" | "S-4" | "I" | "II" | "III";
+
 export interface LotTable {
   id: Generated<string>;
   identifier: string;
@@ -146,6 +148,13 @@ export interface LotTable {
   created_at: DefaultedTimestamp;
   updated_at: DefaultedTimestamp;
   customer: ColumnType<string | null, string | null | undefined, string | null>;
+  inspection_level: ColumnType<InspectionLevel | null, InspectionLevel | null | undefined, InspectionLevel | null>;
+  aql: ColumnType<string | null, string | null | undefined, string | null>;
+  severity: ColumnType<"normal" | null, "normal" | null | undefined, "normal" | null>;
+  sampling_plan: ColumnType<unknown, string | null | undefined, string | null>;
+  acceptance_procedure_id: ColumnType<string | null, string | null | undefined, string | null>;
+  plan_set_by: ColumnType<string | null, string | null | undefined, string | null>;
+  plan_set_at: ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
 }
 
 export interface SpecimenTable {
@@ -159,6 +168,7 @@ export interface SpecimenTable {
   created_by: string;
   created_at: DefaultedTimestamp;
   updated_at: DefaultedTimestamp;
+  lot_position: ColumnType<number | null, number | null | undefined, number | null>;
 }
 
 export type RunStatus = "planned" | "in_progress" | "submitted" | "returned" | "accepted" | "certified";
@@ -295,6 +305,16 @@ export interface MailMessageTable {
   smtp_message_id: string | null;
 }
 
+export interface LotSampleDrawTable {
+  id: Generated<string>;
+  lot_id: string;
+  method: "random" | "chosen";
+  seed: string | null;
+  positions: number[];
+  drawn_by: string;
+  drawn_at: DefaultedTimestamp;
+}
+
 export interface Database {
   lab: LabTable;
   app_user: AppUserTable;
@@ -318,4 +338,5 @@ export interface Database {
   run_review: RunReviewTable;
   certificate: CertificateTable;
   mail_message: MailMessageTable;
+  lot_sample_draw: LotSampleDrawTable;
 }

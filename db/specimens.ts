@@ -8,6 +8,8 @@ export interface SpecimenView {
   identifier: string;
   specification: SpecificationRef;
   lot: { id: string; identifier: string } | null;
+  /** The cell's tray position in its lot (1…lot size), when recorded. */
+  lotPosition: number | null;
   /** YYYY-MM-DD. */
   receivedOn: string;
   conditionOnReceipt: string;
@@ -19,6 +21,7 @@ export interface SpecimenFields {
   identifier: string;
   cellSpecificationId: string;
   lotId: string | null;
+  lotPosition: number | null;
   receivedOn: string;
   conditionOnReceipt: string;
   notes: string | null;
@@ -32,6 +35,7 @@ function base(db: Executor) {
     .select([
       "c.id",
       "c.identifier",
+      "c.lot_position",
       sql<string>`c.received_on::text`.as("received_on"),
       "c.condition_on_receipt",
       "c.notes",
@@ -53,6 +57,7 @@ function toView(r: Row): SpecimenView {
     identifier: r.identifier,
     specification: { id: r.spec_id, maker: r.maker, model: r.model, designation: r.designation },
     lot: r.lot_id && r.lot_identifier ? { id: r.lot_id, identifier: r.lot_identifier } : null,
+    lotPosition: r.lot_position,
     receivedOn: r.received_on,
     conditionOnReceipt: r.condition_on_receipt,
     notes: r.notes,
@@ -110,8 +115,20 @@ function toColumns(c: SpecimenFields) {
     identifier: c.identifier,
     cell_specification_id: c.cellSpecificationId,
     lot_id: c.lotId,
+    lot_position: c.lotId ? c.lotPosition : null,
     received_on: c.receivedOn,
     condition_on_receipt: c.conditionOnReceipt,
     notes: c.notes,
   };
+}
+
+/** Whether any run, in whatever state, was planned on this specimen. */
+export async function specimenHasRuns(db: Executor, specimenId: string): Promise<boolean> {
+  return (await db.selectFrom("run").select("id").where("specimen_id", "=", specimenId).limit(1).executeTakeFirst()) !== undefined;
+}
+
+/** The specimen registered at a tray position of a lot, if any. */
+export async function findSpecimenAtLotPosition(db: Executor, lotId: string, position: number): Promise<{ id: string; identifier: string } | null> {
+  const r = await db.selectFrom("specimen").select(["id", "identifier"]).where("lot_id", "=", lotId).where("lot_position", "=", position).executeTakeFirst();
+  return r ?? null;
 }

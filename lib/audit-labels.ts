@@ -42,6 +42,8 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "certificate.supersede": "a certificate was replaced by an amendment",
   "certificate.revoke": "revoked a certificate (with a reason)",
   "run.certify": "a run was certified",
+  "lot.set-sampling-plan": "set a lot's sampling plan",
+  "lot.draw-sample": "drew a lot's sample",
 };
 
 export function describeAuditAction(action: string): string {

@@ -14,6 +14,7 @@ export interface LotFormValues {
   identifier: string;
   cellSpecificationId: string;
   supplier: string;
+  customer: string | null;
   quantityReceived: number;
   receivedOn: string;
   notes: string | null;
@@ -36,11 +37,19 @@ export function LotForm({ action, specifications, initial }: { action: Action; s
         <SpecificationSelect specifications={specifications} defaultValue={initial?.cellSpecificationId} errors={err("cellSpecificationId")} />
         <Field label="Supplier" name="supplier" defaultValue={initial?.supplier} errors={err("supplier")} />
         <Field
+          label="Customer, optional"
+          name="customer"
+          defaultValue={initial?.customer ?? ""}
+          errors={err("customer")}
+          hint="Who the results are reported to. Leave empty for the lab's own (in-house) work."
+        />
+        <Field
           label="Quantity received (cells)"
           name="quantityReceived"
           inputMode="numeric"
           defaultValue={initial?.quantityReceived.toString()}
           errors={err("quantityReceived")}
+          hint="The cells are numbered 1 to this on the tray; the sampling plan's lot size."
         />
         <Field label="Received on" name="receivedOn" type="date" defaultValue={initial?.receivedOn} errors={err("receivedOn")} />
       </div>

@@ -15,6 +15,7 @@ export interface LotOption {
   label: string;
   cellSpecificationId: string;
   receivedOn: string;
+  quantityReceived: number;
 }
 
 export interface SpecimenFormValues {
@@ -22,6 +23,7 @@ export interface SpecimenFormValues {
   identifier?: string;
   cellSpecificationId: string;
   lotId: string | null;
+  lotPosition?: number | null;
   receivedOn: string;
   conditionOnReceipt?: string;
   notes?: string | null;
@@ -51,12 +53,13 @@ export function SpecimenForm({
   const [specId, setSpecId] = useState(initial?.cellSpecificationId ?? "");
   const [receivedOn, setReceivedOn] = useState(initial?.receivedOn ?? "");
   const err = (k: string) => state.fieldErrors?.[k];
+  const lot = lots.find((l) => l.id === lotId);
   const chooseLot = (id: string) => {
     setLotId(id);
-    const lot = lots.find((l) => l.id === id);
-    if (!lot) return;
-    setSpecId(lot.cellSpecificationId);
-    if (!receivedOn) setReceivedOn(lot.receivedOn);
+    const chosen = lots.find((l) => l.id === id);
+    if (!chosen) return;
+    setSpecId(chosen.cellSpecificationId);
+    if (!receivedOn) setReceivedOn(chosen.receivedOn);
   };
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Specimen" className="flex max-w-3xl flex-col gap-5">
@@ -85,6 +88,19 @@ export function SpecimenForm({
             ))}
           </select>
         </Field>
+        <Field
+          label="Tray position, optional"
+          name="lotPosition"
+          inputMode="numeric"
+          defaultValue={initial?.lotPosition?.toString() ?? ""}
+          disabled={!lot}
+          errors={err("lotPosition")}
+          hint={
+            lot
+              ? `The cell's number in its lot, 1 to ${lot.quantityReceived}, as on the tray. The lot's drawn sample names positions.`
+              : "Choose the lot first; a loose specimen has no tray position."
+          }
+        />
         <SpecificationSelect specifications={specifications} value={specId} onChange={setSpecId} errors={err("cellSpecificationId")} />
         <Field label="Received on" name="receivedOn" type="date" value={receivedOn} onChange={(e) => setReceivedOn(e.target.value)} errors={err("receivedOn")} />
       </div>

@@ -50,6 +50,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/specs/[id]/datasheet": { GET: "spec.read", POST: "spec.manage" },
   "/api/instruments": { GET: "run.read" },
   "/api/lots": { GET: "run.read", POST: "specimen.manage" },
+  "/api/sampling-plan": { POST: "signed-in" },
   "/api/specimens": { GET: "run.read", POST: "specimen.manage" },
   "/runs/[id]/log": "run.read",
   "/runs/[id]/results": "run.read",

@@ -19,5 +19,6 @@ export async function loadLotOptions(): Promise<LotOption[]> {
     label: `${l.identifier} (${l.specification.maker} ${l.specification.model})`,
     cellSpecificationId: l.specification.id,
     receivedOn: l.receivedOn,
+    quantityReceived: l.quantityReceived,
   }));
 }

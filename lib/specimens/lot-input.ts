@@ -7,6 +7,8 @@ export const lotInputSchema = z.object({
   identifier: recordIdentifierSchema("lot identifier"),
   cellSpecificationId: z.uuid({ error: "Choose the cell specification." }),
   supplier: z.string({ error: "required" }).trim().min(1, { error: "Name the supplier." }).max(120),
+  /** Who the results are reported to (ISO/IEC 17025:2017 7.8.2.1 e); empty for the lab's own work. */
+  customer: optionalTextSchema(200),
   quantityReceived: z
     .number({ error: (i) => (i.input === undefined ? "required" : "The quantity is a whole number of cells.") })
     .int({ error: "The quantity is a whole number of cells." })

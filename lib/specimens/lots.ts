@@ -2,10 +2,11 @@ import "server-only";
 import { getDb, type Executor } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
 import { getCellSpecification } from "@/db/cell-specifications";
-import { countSpecimensOfLot, getLot, insertLot, lockLot, updateLot } from "@/db/lots";
+import { countSpecimensOfLot, getHighestLotPosition, getLot, insertLot, lockLot, updateLot } from "@/db/lots";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { readLabToday } from "@/lib/instruments/lab-today";
+import { replanForNewLotSize } from "@/lib/lots/replan-for-lot-size";
 import { lotInputSchema, type LotInput } from "./lot-input";
 
 export { lotInputSchema, type LotInput };
@@ -27,6 +28,7 @@ const auditValues = (input: LotInput, specification: string) => ({
   identifier: input.identifier,
   specification,
   supplier: input.supplier,
+  customer: input.customer,
   quantityReceived: input.quantityReceived,
   receivedOn: input.receivedOn,
   notes: input.notes,
@@ -51,12 +53,15 @@ export async function createLot(actor: SignedInUser, input: LotInput): Promise<s
 
 /**
  * Changes a lot's record. Its cell specification stays fixed once specimens are registered from it
- * (they are of that specification), and its quantity never drops below the specimens registered.
+ * (they are of that specification), and its quantity never drops below the specimens registered nor
+ * below the highest tray position registered. A new quantity recomputes the sampling plan before the
+ * draw and is refused after it.
  */
 export async function editLot(actor: SignedInUser, id: string, input: LotInput): Promise<void> {
   refuseFutureReceipt(input.receivedOn);
   await getDb().transaction().execute(async (tx) => {
-    if (!(await lockLot(tx, id))) throw new DomainError("not-found", "No such lot.");
+    const locked = await lockLot(tx, id);
+    if (!locked) throw new DomainError("not-found", "No such lot.");
     const before = await getLot(tx, id);
     if (!before) throw new DomainError("not-found", "No such lot.");
     const specimens = await countSpecimensOfLot(tx, id);
@@ -68,6 +73,11 @@ export async function editLot(actor: SignedInUser, id: string, input: LotInput):
     if (input.quantityReceived < specimens) {
       throw new DomainError("invalid", `Lot ${before.identifier} already has ${specimens} specimens registered: the quantity received cannot be less.`);
     }
+    const highestPosition = await getHighestLotPosition(tx, id);
+    if (input.quantityReceived < highestPosition) {
+      throw new DomainError("invalid", `A specimen of lot ${before.identifier} is registered at tray position ${highestPosition}: the quantity received cannot be less.`);
+    }
+    const replanned = await replanForNewLotSize(tx, { id, identifier: before.identifier, quantityReceived: locked.quantityReceived }, input.quantityReceived);
     await updateLot(tx, id, input);
     await recordAuditEvent(tx, {
       actorId: actor.id,
@@ -79,11 +89,13 @@ export async function editLot(actor: SignedInUser, id: string, input: LotInput):
         identifier: before.identifier,
         specification: oldSpecification,
         supplier: before.supplier,
+        customer: before.customer,
         quantityReceived: before.quantityReceived,
         receivedOn: before.receivedOn,
         notes: before.notes,
       },
       after: auditValues(input, specification),
+      ...(replanned && { detail: { samplingPlan: `${replanned.before} → ${replanned.after}` } }),
     });
   });
 }

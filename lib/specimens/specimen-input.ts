@@ -10,6 +10,13 @@ export const specimenInputSchema = z.object({
     .uuid({ error: "Choose a lot from the list, or none." })
     .nullish()
     .transform((v) => v ?? null),
+  /** Which cell of the lot this is, as numbered on the tray (1…lot size); the lot's drawn sample names positions. */
+  lotPosition: z
+    .number({ error: "The tray position is a whole number, 1 or more." })
+    .int({ error: "The tray position is a whole number, 1 or more." })
+    .min(1, { error: "The tray position is a whole number, 1 or more." })
+    .nullish()
+    .transform((v) => v ?? null),
   receivedOn: calendarDateSchema,
   conditionOnReceipt: z.string({ error: "required" }).trim().min(1, { error: "Describe the condition on receipt." }).max(500),
   notes: optionalTextSchema(2000),

@@ -2,7 +2,7 @@ import "server-only";
 import { getDb, type Executor } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
 import { countSpecimensOfLot, lockLot } from "@/db/lots";
-import { getSpecimen, insertSpecimen, updateSpecimen } from "@/db/specimens";
+import { findSpecimenAtLotPosition, getSpecimen, insertSpecimen, specimenHasRuns, updateSpecimen, type SpecimenView } from "@/db/specimens";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { nameSpecification, refuseFutureReceipt } from "./lots";
@@ -14,10 +14,14 @@ const label = (u: SignedInUser) => `${u.displayName} <${u.email}>`;
 
 /**
  * A specimen of a lot must be of the lot's cell specification (the database checks it too), and a lot
- * holds no more specimens than cells were received. Locks the lot for the rest of the transaction.
+ * holds no more specimens than cells were received. Its tray position, if given, is one of the lot's
+ * positions not yet taken. Locks the lot for the rest of the transaction.
  */
 async function checkLot(tx: Executor, input: SpecimenValues, specification: string, specimenId?: string): Promise<string | null> {
-  if (!input.lotId) return null;
+  if (!input.lotId) {
+    if (input.lotPosition !== null) throw new DomainError("invalid", "A tray position belongs to a lot: choose the lot, or leave the position empty.");
+    return null;
+  }
   const lot = await lockLot(tx, input.lotId);
   if (!lot) throw new DomainError("invalid", "No such lot: choose one from the list, or none.");
   if (lot.cellSpecificationId !== input.cellSpecificationId) {
@@ -28,13 +32,39 @@ async function checkLot(tx: Executor, input: SpecimenValues, specification: stri
   if (registered >= lot.quantityReceived) {
     throw new DomainError("conflict", `Lot ${lot.identifier} was received with ${lot.quantityReceived} cells and all of them are registered already.`);
   }
+  if (input.lotPosition !== null) await checkLotPosition(tx, { ...lot, id: input.lotId }, input.lotPosition, specimenId);
   return lot.identifier;
+}
+
+async function checkLotPosition(tx: Executor, lot: { id: string; identifier: string; quantityReceived: number }, position: number, specimenId?: string) {
+  if (position > lot.quantityReceived) {
+    throw new DomainError("invalid", `Tray position ${position} is outside lot ${lot.identifier}: its cells are numbered 1 to ${lot.quantityReceived}.`);
+  }
+  const taken = await findSpecimenAtLotPosition(tx, lot.id, position);
+  if (taken && taken.id !== specimenId) {
+    throw new DomainError("conflict", `Tray position ${position} of lot ${lot.identifier} is already registered as specimen ${taken.identifier}.`);
+  }
+}
+
+/**
+ * Once a specimen has runs, its lot and tray position stay as they are: moving a tested cell to another
+ * position could move its result into or out of the lot's drawn sample.
+ */
+async function refuseMovingTestedCell(tx: Executor, before: SpecimenView, input: SpecimenValues): Promise<void> {
+  const moved = (before.lot?.id ?? null) !== input.lotId || before.lotPosition !== (input.lotId ? input.lotPosition : null);
+  if (moved && before.lotPosition !== null && (await specimenHasRuns(tx, before.id))) {
+    throw new DomainError(
+      "conflict",
+      `Specimen ${before.identifier} already has runs as tray position ${before.lotPosition} of lot ${before.lot?.identifier ?? "?"}; its lot and tray position cannot change.`,
+    );
+  }
 }
 
 const auditValues = (input: SpecimenValues, specification: string, lot: string | null) => ({
   identifier: input.identifier,
   specification,
   lot,
+  lotPosition: input.lotId ? input.lotPosition : null,
   receivedOn: input.receivedOn,
   conditionOnReceipt: input.conditionOnReceipt,
   notes: input.notes,
@@ -63,6 +93,7 @@ export async function editSpecimen(actor: SignedInUser, id: string, input: Speci
   await getDb().transaction().execute(async (tx) => {
     const before = await getSpecimen(tx, id, { forUpdate: true });
     if (!before) throw new DomainError("not-found", "No such specimen.");
+    await refuseMovingTestedCell(tx, before, input);
     const specification = await nameSpecification(tx, input.cellSpecificationId);
     const lot = await checkLot(tx, input, specification, id);
     await updateSpecimen(tx, id, input);
@@ -76,6 +107,7 @@ export async function editSpecimen(actor: SignedInUser, id: string, input: Speci
         identifier: before.identifier,
         specification: `${before.specification.maker} ${before.specification.model}`,
         lot: before.lot?.identifier ?? null,
+        lotPosition: before.lotPosition,
         receivedOn: before.receivedOn,
         conditionOnReceipt: before.conditionOnReceipt,
         notes: before.notes,

@@ -8,10 +8,12 @@ import { saveSpecimenAction } from "../actions";
 
 export const metadata: Metadata = { title: "Register a specimen" };
 
-/** `?lot=<id>` (from a lot's page) starts the form in that lot. */
+/** `?lot=<id>` (from a lot's page) starts the form in that lot; `&position=137` at that tray position (a drawn cell). */
 export default async function NewSpecimenPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePagePermission("specimen.manage");
-  const lotId = z.uuid().optional().catch(undefined).parse((await searchParams).lot);
+  const query = await searchParams;
+  const lotId = z.uuid().optional().catch(undefined).parse(query.lot);
+  const position = z.coerce.number().int().min(1).optional().catch(undefined).parse(query.position);
   const [specifications, lots] = await Promise.all([loadSpecificationOptions(), loadLotOptions()]);
   const lot = lots.find((l) => l.id === lotId);
   return (
@@ -21,7 +23,7 @@ export default async function NewSpecimenPage({ searchParams }: { searchParams: 
         action={saveSpecimenAction}
         specifications={specifications}
         lots={lots}
-        initial={lot ? { lotId: lot.id, cellSpecificationId: lot.cellSpecificationId, receivedOn: lot.receivedOn } : undefined}
+        initial={lot ? { lotId: lot.id, lotPosition: position ?? null, cellSpecificationId: lot.cellSpecificationId, receivedOn: lot.receivedOn } : undefined}
       />
     </>
   );

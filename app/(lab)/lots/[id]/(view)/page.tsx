@@ -2,24 +2,36 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
-import { SpecimensTable } from "@/components/specimens/specimens-table";
+import { LotSamplingSections } from "@/components/lots/lot-sampling-sections";
+import { LotSpecimensTable } from "@/components/lots/lot-specimens-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
+import { getLotSampling } from "@/db/lot-sampling";
 import { getLot } from "@/db/lots";
+import { listProcedures } from "@/db/procedures";
 import { listSpecimens } from "@/db/specimens";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
+import { offeredAqlColumns } from "@/lib/sampling";
 import { formatNumber } from "@/protocols";
+import { drawSampleAction, setSamplingPlanAction } from "../actions";
 
 export const metadata: Metadata = { title: "Lot" };
+
+const linkClass = "rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper";
 
 export default async function LotPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePagePermission("run.read");
   const id = z.uuid().safeParse((await params).id);
-  const [lot, specimens] = id.success ? await Promise.all([getLot(getDb(), id.data), listSpecimens(getDb(), { lotId: id.data })]) : [null, []];
-  if (!lot) notFound();
+  if (!id.success) notFound();
+  const db = getDb();
+  const [lot, specimens, sampling] = await Promise.all([getLot(db, id.data), listSpecimens(db, { lotId: id.data }), getLotSampling(db, id.data)]);
+  if (!lot || !sampling) notFound();
   const manage = can(user.role, "specimen.manage");
+  const planner = can(user.role, "spec.manage");
+  const procedures = planner && !sampling.draw ? await listProcedures(db, { releasedOnly: true }) : [];
   const full = lot.specimenCount >= lot.quantityReceived;
+  const row = "border-b border-rule py-1";
   return (
     <>
       <PageHeader
@@ -33,25 +45,40 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
           </>
         }
         actions={
-          manage && (
-            <Link href={`/lots/${lot.id}/edit`} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-              Edit lot
+          <div className="flex flex-wrap gap-2">
+            <Link href={`/lots/${lot.id}/statistics`} className={linkClass}>
+              Statistics and rate capability
             </Link>
-          )
+            {manage && (
+              <Link href={`/lots/${lot.id}/edit`} className={linkClass}>
+                Edit lot
+              </Link>
+            )}
+          </div>
         }
       />
       <dl className="figures mb-8 grid max-w-3xl gap-x-6 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
-        <dt className="border-b border-rule py-1 text-ink-soft">Quantity received</dt>
-        <dd className="border-b border-rule py-1">{formatNumber(lot.quantityReceived)} cells</dd>
-        <dt className="border-b border-rule py-1 text-ink-soft">Specimens registered</dt>
-        <dd className="border-b border-rule py-1" data-testid="specimen-count">
+        <dt className={`${row} text-ink-soft`}>Quantity received</dt>
+        <dd className={row}>{formatNumber(lot.quantityReceived)} cells (tray positions 1 to {formatNumber(lot.quantityReceived)})</dd>
+        <dt className={`${row} text-ink-soft`}>Specimens registered</dt>
+        <dd className={row} data-testid="specimen-count">
           {formatNumber(lot.specimenCount)}
         </dd>
-        <dt className="border-b border-rule py-1 text-ink-soft">Received on</dt>
-        <dd className="border-b border-rule py-1">{lot.receivedOn}</dd>
+        <dt className={`${row} text-ink-soft`}>Customer</dt>
+        <dd className={row}>{lot.customer ?? "none: in-house work of the laboratory"}</dd>
+        <dt className={`${row} text-ink-soft`}>Received on</dt>
+        <dd className={row}>{lot.receivedOn}</dd>
         <dt className="py-1 text-ink-soft">Notes</dt>
         <dd className="py-1 whitespace-pre-line">{lot.notes ?? "none"}</dd>
       </dl>
+      <LotSamplingSections
+        lot={lot}
+        sampling={sampling}
+        can={{ plan: planner, register: manage && !full }}
+        procedures={procedures.map((p) => ({ id: p.id, code: p.code, title: p.title }))}
+        aqlLabels={offeredAqlColumns.map((c) => c.label)}
+        actions={{ setPlan: setSamplingPlanAction, draw: drawSampleAction }}
+      />
       <section aria-labelledby="specimens-heading">
         <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
           <h2 id="specimens-heading" className="text-lg font-bold">
@@ -63,7 +90,7 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
             </Link>
           )}
         </div>
-        <SpecimensTable specimens={specimens} showLot={false} />
+        <LotSpecimensTable specimens={specimens} drawnPositions={sampling.draw?.positions ?? null} />
       </section>
     </>
   );

@@ -32,6 +32,7 @@ export default async function EditSpecimenPage({ params }: { params: Promise<{ i
           identifier: specimen.identifier,
           cellSpecificationId: specimen.specification.id,
           lotId: specimen.lot?.id ?? null,
+          lotPosition: specimen.lotPosition,
           receivedOn: specimen.receivedOn,
           conditionOnReceipt: specimen.conditionOnReceipt,
           notes: specimen.notes,

@@ -1,0 +1,35 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { requireActionPermission } from "@/lib/auth/guards";
+import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { drawLotSample } from "@/lib/lots/draw-lot-sample";
+import { readDrawForm, readSamplingPlanForm } from "@/lib/lots/read-lot-forms";
+import { setLotSamplingPlan } from "@/lib/lots/set-lot-sampling-plan";
+
+const lotIdSchema = z.uuid({ error: "No such lot." });
+
+export async function setSamplingPlanAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("spec.manage");
+    const lotId = lotIdSchema.parse(form.get("lotId"));
+    const plan = await setLotSamplingPlan(user, lotId, readSamplingPlanForm(form));
+    revalidatePath(`/lots/${lotId}`);
+    return { ok: true, message: `Plan set: code letter ${plan.codeLetter}, n = ${plan.sampleSize}, Ac ${plan.acceptanceNumber}, Re ${plan.rejectionNumber}.` };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
+
+export async function drawSampleAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("spec.manage");
+    const lotId = lotIdSchema.parse(form.get("lotId"));
+    const { positions, seed } = await drawLotSample(user, lotId, readDrawForm(form));
+    revalidatePath(`/lots/${lotId}`);
+    return { ok: true, message: `${positions.length} cells drawn${seed === null ? "" : ` with seed ${seed}`}.` };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
