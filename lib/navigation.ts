@@ -8,6 +8,7 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/runs", label: "Runs", permission: "run.read" },
   { href: "/lots", label: "Lots", permission: "run.read" },
   { href: "/specimens", label: "Specimens", permission: "run.read" },
+  { href: "/compare", label: "Compare discharges", permission: "run.read" },
   { href: "/instruments", label: "Instruments", permission: "run.read" },
   { href: "/certificates", label: "Certificates", permission: "certificate.read" },
   { href: "/audit", label: "Audit trail", permission: "audit.read" },

@@ -5,6 +5,7 @@ import pg from "pg";
 import type { Database } from "../db/schema";
 import { closePool } from "../db/pool";
 import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
+import { seedDemoLot } from "./seed-demo-lot";
 import { seedLibrary } from "./seed-library";
 
 /**
@@ -50,6 +51,8 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
     await db.destroy();
   }
   created.push(...(await seedLibrary()));
+  // After the library: the second lot needs its cell specification, procedures and instruments.
+  created.push(...(await seedDemoLot()));
   await closePool();
   return { created };
 }

@@ -47,6 +47,12 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
             "none: a loose specimen"
           )}
         </dd>
+        {lot && (
+          <>
+            <dt className="border-b border-rule py-1 text-ink-soft">Tray position in the lot</dt>
+            <dd className="figures border-b border-rule py-1">{specimen.lotPosition ?? "not recorded"}</dd>
+          </>
+        )}
         <dt className="border-b border-rule py-1 text-ink-soft">Received on</dt>
         <dd className="figures border-b border-rule py-1">{specimen.receivedOn}</dd>
         <dt className="border-b border-rule py-1 text-ink-soft">Condition on receipt</dt>
@@ -54,6 +60,11 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
         <dt className="py-1 text-ink-soft">Notes</dt>
         <dd className="py-1 whitespace-pre-line">{specimen.notes ?? "none"}</dd>
       </dl>
+      <p className="mt-6 text-sm">
+        <Link href={`/specimens/${specimen.id}/rate-capability`} className="text-copper-deep underline">
+          Rate capability: its reviewed discharges at each current
+        </Link>
+      </p>
     </>
   );
 }

@@ -60,6 +60,11 @@ export default async function SpecPage({ params }: { params: Promise<{ id: strin
           </dd>
         </div>
       </dl>
+      <p className="mt-6 text-sm">
+        <Link href={`/specs/${spec.id}/measured`} className="text-copper-deep underline">
+          Measured against the datasheet: statistics of every reviewed result of this cell
+        </Link>
+      </p>
       <section aria-labelledby="datasheet" className="mt-8 max-w-3xl rounded border border-rule bg-white p-4">
         <h2 id="datasheet" className="mb-2 text-lg font-bold">
           Datasheet

@@ -1,0 +1,76 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
+import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
+import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
+import { PageHeader } from "@/components/ui/page-header";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { formatCompareHref } from "@/lib/lot-results/compare-selection";
+import { readOrNotFound } from "@/lib/lot-results/or-not-found";
+import { readLotResults } from "@/lib/lot-results/read-results";
+
+export const metadata: Metadata = { title: "Lot statistics" };
+
+export default async function LotStatisticsPage({ params }: { params: Promise<{ id: string }> }) {
+  await requirePagePermission("run.read");
+  const { lot, specification, results, statistics, rateCapability } = await readOrNotFound((await params).id, readLotResults);
+  const exportLink = "text-copper-deep underline";
+  return (
+    <>
+      <PageHeader
+        title={`Lot ${lot.identifier}: statistics`}
+        lead={
+          <>
+            <Link href={`/lots/${lot.id}`} className="text-copper-deep underline">
+              Lot {lot.identifier}
+            </Link>{" "}
+            of{" "}
+            <Link href={`/specs/${specification.id}`} className="text-copper-deep underline">
+              {specification.maker} {specification.model}
+            </Link>
+            : {statistics.resultCount} reviewed discharge result{statistics.resultCount === 1 ? "" : "s"} from {statistics.specimenCount} specimen
+            {statistics.specimenCount === 1 ? "" : "s"}.
+          </>
+        }
+        actions={
+          <p className="text-sm" data-testid="exports">
+            Download:{" "}
+            <a className={exportLink} href={`/api/lots/${lot.id}/results.csv`}>
+              results as CSV
+            </a>{" "}
+            ·{" "}
+            <a className={exportLink} href={`/api/lots/${lot.id}/results.json`}>
+              as JSON
+            </a>{" "}
+            ·{" "}
+            <a className={exportLink} href={`/api/lots/${lot.id}/summary`}>
+              summary (JSON)
+            </a>
+          </p>
+        }
+      />
+      <div className="flex flex-col gap-8">
+        <ResultsBasisNote />
+        <section aria-labelledby="statistics-heading">
+          <h2 id="statistics-heading" className="mb-3 text-lg font-bold">
+            Capacity and energy at each test current
+          </h2>
+          <StatisticsByCurrent summary={statistics} />
+        </section>
+        <section aria-labelledby="rate-heading">
+          <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
+            <h2 id="rate-heading" className="text-lg font-bold">
+              Rate capability of the lot
+            </h2>
+            {results.length > 0 && (
+              <Link href={formatCompareHref({ lotId: lot.id, chosen: [] })} className="text-sm text-copper-deep underline">
+                Overlay this lot&apos;s discharges
+              </Link>
+            )}
+          </div>
+          <RateCapabilityTableView table={rateCapability} emptyWords="No reviewed discharge results in this lot yet: the table fills in as runs are accepted." />
+        </section>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,64 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
+import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
+import { PageHeader } from "@/components/ui/page-header";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lot-results/compare-selection";
+import { readOrNotFound } from "@/lib/lot-results/or-not-found";
+import { readSpecimenResults } from "@/lib/lot-results/read-results";
+import { formatNumber } from "@/protocols";
+
+export const metadata: Metadata = { title: "Rate capability" };
+
+export default async function SpecimenRateCapabilityPage({ params }: { params: Promise<{ id: string }> }) {
+  await requirePagePermission("run.read");
+  const { specimen, specification, results, rateCapability } = await readOrNotFound((await params).id, readSpecimenResults);
+  const overlay = pickOneSpecimenAtSeveralCurrents(results, specimen.id);
+  return (
+    <>
+      <PageHeader
+        title={`Specimen ${specimen.identifier}: rate capability`}
+        lead={
+          <>
+            <Link href={`/specimens/${specimen.id}`} className="text-copper-deep underline">
+              Specimen {specimen.identifier}
+            </Link>
+            , {specification.maker} {specification.model} (It = {formatNumber(specification.data.ratedCapacityMah / 1000, { maxDecimals: 4 })} A, maximum continuous discharge current{" "}
+            {formatNumber(specification.data.maxContinuousDischargeCurrentA, { maxDecimals: 3 })} A).
+          </>
+        }
+        actions={
+          overlay.length > 1 && (
+            <Link href={formatCompareHref({ specimenId: specimen.id, chosen: overlay })} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+              Overlay its discharges
+            </Link>
+          )
+        }
+      />
+      <div className="flex flex-col gap-6">
+        <ResultsBasisNote />
+        <RateCapabilityTableView table={rateCapability} emptyWords="This specimen has no reviewed discharge result yet." />
+        {results.length > 0 && (
+          <section aria-labelledby="discharges-heading">
+            <h2 id="discharges-heading" className="mb-2 text-lg font-bold">
+              The discharges behind the table
+            </h2>
+            <ul className="list-disc pl-5 text-sm">
+              {results.map((r) => (
+                <li key={`${r.runId}-${r.stepId}-${r.cycle}`}>
+                  <Link href={`/runs/${r.runId}/results`} className="text-copper-deep underline">
+                    Run {r.runNumber}
+                  </Link>{" "}
+                  ({r.procedureCode}, {r.runStatus}): {r.stepLabel}
+                  {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}, {formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A,{" "}
+                  {formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })} mAh
+                </li>
+              ))}
+            </ul>
+          </section>
+        )}
+      </div>
+    </>
+  );
+}

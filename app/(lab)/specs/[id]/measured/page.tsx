@@ -1,0 +1,65 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { DatasheetComparisonTable } from "@/components/lot-results/datasheet-comparison-table";
+import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
+import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
+import { PageHeader } from "@/components/ui/page-header";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { formatCompareHref } from "@/lib/lot-results/compare-selection";
+import { readOrNotFound } from "@/lib/lot-results/or-not-found";
+import { readSpecificationResults } from "@/lib/lot-results/read-results";
+
+export const metadata: Metadata = { title: "Measured against the datasheet" };
+
+export default async function SpecMeasuredPage({ params }: { params: Promise<{ id: string }> }) {
+  await requirePagePermission("run.read");
+  const { specification, results, statistics, comparison } = await readOrNotFound((await params).id, readSpecificationResults);
+  const lots = new Set(results.flatMap((r) => (r.lotIdentifier ? [r.lotIdentifier] : []))).size;
+  return (
+    <>
+      <PageHeader
+        title={`${specification.maker} ${specification.model}: measured against the datasheet`}
+        lead={
+          <>
+            <Link href={`/specs/${specification.id}`} className="text-copper-deep underline">
+              The cell specification
+            </Link>{" "}
+            beside every reviewed result of its cells: {statistics.resultCount} discharge result{statistics.resultCount === 1 ? "" : "s"} from {statistics.specimenCount} specimen
+            {statistics.specimenCount === 1 ? "" : "s"} in {lots} lot{lots === 1 ? "" : "s"}.
+          </>
+        }
+        actions={
+          <p className="text-sm">
+            <a className="text-copper-deep underline" href={`/api/specs/${specification.id}/summary`}>
+              Summary as JSON
+            </a>
+            {results.length > 0 && (
+              <>
+                {" "}
+                ·{" "}
+                <Link className="text-copper-deep underline" href={formatCompareHref({ specificationId: specification.id, chosen: [] })}>
+                  Overlay its discharges
+                </Link>
+              </>
+            )}
+          </p>
+        }
+      />
+      <div className="flex flex-col gap-8">
+        <ResultsBasisNote />
+        <section aria-labelledby="datasheet-heading">
+          <h2 id="datasheet-heading" className="mb-3 text-lg font-bold">
+            Datasheet against measured
+          </h2>
+          <DatasheetComparisonTable comparison={comparison} />
+        </section>
+        <section aria-labelledby="statistics-heading">
+          <h2 id="statistics-heading" className="mb-3 text-lg font-bold">
+            Capacity and energy at each test current
+          </h2>
+          <StatisticsByCurrent summary={statistics} />
+        </section>
+      </div>
+    </>
+  );
+}

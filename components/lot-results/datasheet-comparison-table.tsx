@@ -1,0 +1,57 @@
+import { Notice } from "@/components/ui/notice";
+import type { AnalysisResult } from "@/lib/analysis/analysis-result";
+import type { ClaimVerdict, DatasheetComparison } from "@/lib/analysis/datasheet-comparison";
+
+const VERDICT: Record<ClaimVerdict, { mark: string; tone: string }> = {
+  "meets the claim": { mark: "✓", tone: "text-meets" },
+  "below the claim": { mark: "✕", tone: "text-deviates" },
+  "above the claim": { mark: "✕", tone: "text-deviates" },
+  "not measured": { mark: "?", tone: "text-ink-soft" },
+};
+
+/** Each datasheet claim beside what was measured, with a verdict in words and why. */
+export function DatasheetComparisonTable({ comparison }: { comparison: AnalysisResult<DatasheetComparison> }) {
+  if (!comparison.ok) return <Notice tone="problem">{comparison.error.message}</Notice>;
+  const { lines, decisionRule } = comparison.value;
+  return (
+    <div>
+      <div className="overflow-x-auto">
+        <table className="w-full min-w-[40rem] border-collapse text-sm" data-testid="datasheet-comparison">
+          <thead>
+            <tr className="border-b border-rule text-left">
+              {["Datasheet claim", "Claimed", "Measured", "Verdict", "Why"].map((h) => (
+                <th key={h} scope="col" className="px-2 py-1">
+                  {h}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {lines.map((line) => {
+              const v = VERDICT[line.verdict];
+              return (
+                <tr key={line.key} className="border-b border-rule align-top">
+                  <th scope="row" className="px-2 py-1 text-left font-normal">
+                    {line.claim[0]?.toUpperCase()}
+                    {line.claim.slice(1)}
+                  </th>
+                  <td className="w-36 px-2 py-1">
+                    <span className="whitespace-nowrap">{line.claimed.text}</span>
+                    {line.claimOrigin === "derived" && <span className="block text-xs text-ink-soft">derived: {line.claimNote}</span>}
+                  </td>
+                  <td className="w-48 px-2 py-1">{line.measured?.text ?? "nothing on record"}</td>
+                  <td className={`px-2 py-1 whitespace-nowrap font-medium ${v.tone}`}>
+                    <span aria-hidden="true">{v.mark} </span>
+                    {line.verdict}
+                  </td>
+                  <td className="px-2 py-1">{line.basis}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <p className="mt-2 text-xs text-ink-soft">{decisionRule} Each specimen answers with its latest reviewed 0.2 It result. The step records hold no mass yet, so mass reads “not measured”.</p>
+    </div>
+  );
+}
