@@ -14,4 +14,5 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/audit", label: "Audit trail", permission: "audit.read" },
   { href: "/admin/users", label: "Users", permission: "user.manage" },
   { href: "/admin/mail", label: "E-mail", permission: "mail.read" },
+  { href: "/admin/signing-key", label: "Signing key", permission: "signing-key.manage" },
 ];

@@ -16,6 +16,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/audit": "audit.read",
   "/admin/users": "user.manage",
   "/admin/mail": "mail.read",
+  "/admin/signing-key": "signing-key.manage",
   "/procedures": "procedure.read",
   "/procedures/new": "procedure.author",
   "/procedures/[id]": "procedure.read",

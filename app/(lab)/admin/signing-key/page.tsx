@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/page-header";
+import { requirePagePermission } from "@/lib/auth/guards";
+import { describeLabSigningKey } from "@/lib/certificates/lab-signing-key";
+import { formatDate } from "@/lib/format-date-time";
+
+export const metadata: Metadata = { title: "Signing key" };
+
+const rowClass = "border-b border-rule py-1.5";
+
+/** The key every certificate is signed with: what an assessor's PDF tool will show as the signer. */
+export default async function SigningKeyPage() {
+  await requirePagePermission("signing-key.manage");
+  const key = await describeLabSigningKey();
+  const expiresInDays = Math.floor((key.validTo.getTime() - Date.now()) / 86_400_000);
+  return (
+    <>
+      <PageHeader
+        title="Signing key"
+        lead="Every certificate carries a PKCS#7 signature made with this key. A PDF tool (for example pdfsig) shows its subject as the signer; the public check page compares the fingerprint."
+      />
+      {key.source === "generated" && (
+        <div className="mb-4">
+          <Notice tone="caution" title="A key made by this installation">
+            This key was created on first start and its certificate is self-signed, so PDF readers report the issuer as unknown even when the signature is intact. A lab that
+            signs for customers sets <code>CELLWRIGHT_SIGNING_P12</code> and <code>CELLWRIGHT_SIGNING_PASSPHRASE</code> to a key issued by a certification authority it
+            trusts. Keep a copy of the key file: certificates signed with a key that is later replaced still verify byte for byte, but the check page no longer calls
+            them signed with the lab&apos;s current key.
+          </Notice>
+        </div>
+      )}
+      {expiresInDays < 60 && (
+        <div className="mb-4">
+          <Notice tone="problem" title="Expiring">
+            The signing certificate expires on {formatDate(key.validTo)}. Arrange a new one before then.
+          </Notice>
+        </div>
+      )}
+      <dl className="figures grid max-w-4xl gap-x-6 text-sm sm:grid-cols-[14rem_1fr]">
+        <dt className={`${rowClass} text-ink-soft`}>Signer (common name)</dt>
+        <dd className={rowClass}>{key.commonName}</dd>
+        <dt className={`${rowClass} text-ink-soft`}>Subject</dt>
+        <dd className={rowClass}>{key.subject}</dd>
+        <dt className={`${rowClass} text-ink-soft`}>SHA-256 fingerprint</dt>
+        <dd className={`${rowClass} font-mono text-xs break-all`} data-testid="signing-fingerprint">
+          {key.fingerprintSha256}
+        </dd>
+        <dt className={`${rowClass} text-ink-soft`}>Valid</dt>
+        <dd className={rowClass}>
+          {formatDate(key.validFrom)} to {formatDate(key.validTo)}
+        </dd>
+        <dt className="py-1.5 text-ink-soft">Where it comes from</dt>
+        <dd className="py-1.5">{key.source === "configured" ? `configured: ${key.location}` : `created by this installation, kept in ${key.location}`}</dd>
+      </dl>
+    </>
+  );
+}
