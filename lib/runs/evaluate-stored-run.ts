@@ -47,7 +47,8 @@ export async function evaluateStoredRun(
     resolution: against?.resolution ?? run.resolution,
     cellRating: run.cellRating,
     stepRecords,
-    ...(columns && logStartedAt && { log: columns, logStartedAt }),
+    ...(columns && { log: columns }),
+    ...(logStartedAt && { logStartedAt }),
     procedureSource: run.procedureSource,
     instruments,
     evaluatedAgainst: against

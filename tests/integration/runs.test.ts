@@ -129,6 +129,22 @@ describe("runs", () => {
     expect(actions).toEqual(expect.arrayContaining(["run.plan", "run.record-step", "run.upload-log", "run.evaluate", "run.submit"]));
   });
 
+  it("reads an uploaded log even before any step is recorded, and says the steps are not recorded rather than that no log exists", async () => {
+    const lab = await setUpLab("N");
+    const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
+    const built = buildRatedCapacityRun({ sampleIntervalS: 10 });
+    const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+    if (!csv.ok) throw new Error(csv.error.message);
+    const ingested = await ingestLog(lab.operator, run.id, { name: "early.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+    if (!ingested.ok) throw new Error(ingested.error.message);
+    const evaluation = await evaluateStoredRun(lab.operator, run.id, { columns: ingested.columns });
+    expect(evaluation.log.status).not.toBe("no log");
+    const discharge = evaluation.steps.find((s) => s.stepId === "discharge");
+    expect(discharge?.results?.capacityAh).toBeGreaterThan(0);
+    expect(evaluation.steps.flatMap((s) => s.findings).filter((f) => f.rule === "step-recorded").every((f) => f.outcome === "deviates")).toBe(true);
+    expect(JSON.stringify(evaluation)).not.toContain("no data log was uploaded");
+  });
+
   it("needs a reason to change a recorded time, and keeps it in the audit trail", async () => {
     const lab = await setUpLab("C");
     const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.channel] }, TODAY);
