@@ -4,6 +4,8 @@ import { PageHeader } from "@/components/ui/page-header";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { describeLabSigningKey } from "@/lib/certificates/lab-signing-key";
 import { formatDate } from "@/lib/format-date-time";
+import { addDays } from "@/lib/instruments/calendar-date";
+import { readLabToday } from "@/lib/instruments/lab-today";
 
 export const metadata: Metadata = { title: "Signing key" };
 
@@ -13,7 +15,8 @@ const rowClass = "border-b border-rule py-1.5";
 export default async function SigningKeyPage() {
   await requirePagePermission("signing-key.manage");
   const key = await describeLabSigningKey();
-  const expiresInDays = Math.floor((key.validTo.getTime() - Date.now()) / 86_400_000);
+  // Dates as YYYY-MM-DD compare as text.
+  const expiresSoon = formatDate(key.validTo) < addDays(readLabToday(), 60);
   return (
     <>
       <PageHeader
@@ -30,7 +33,7 @@ export default async function SigningKeyPage() {
           </Notice>
         </div>
       )}
-      {expiresInDays < 60 && (
+      {expiresSoon && (
         <div className="mb-4">
           <Notice tone="problem" title="Expiring">
             The signing certificate expires on {formatDate(key.validTo)}. Arrange a new one before then.
