@@ -20,7 +20,11 @@ export interface CertificateView {
   cellSpecificationId: string | null;
   /** "Maker Model (designation)". */
   cellLabel: string | null;
-  /** The statement of conformity: conforms / does not conform / not decided. */
+  /**
+   * Run certificates: the statement of conformity (conforms / does not conform / not decided). Lot
+   * certificates: the lot decision, "lot accepted" or "lot rejected" (ISO 2859-1 accepts or rejects a
+   * lot; it does not state conformity), so the list's conformity filter matches run certificates only.
+   */
   verdict: string;
   /** Was the procedure followed: yes / no / not decided (run certificates). */
   procedureFollowed: string | null;
@@ -99,7 +103,7 @@ type Row = Awaited<ReturnType<ReturnType<typeof base>["executeTakeFirstOrThrow"]
 
 function toView(r: Row): CertificateView {
   // Written only by lib/certificates from a built payload.
-  const payload = r.payload as CertificatePayload & { conformity?: { specimenConforms?: string; procedureFollowed?: string } };
+  const payload = r.payload as CertificatePayload & { conformity?: { specimenConforms?: string; procedureFollowed?: string }; lotDecision?: { words?: string } };
   return {
     id: r.id,
     number: r.number,
@@ -111,7 +115,7 @@ function toView(r: Row): CertificateView {
     specimenIdentifier: r.specimen_identifier,
     cellSpecificationId: r.spec_id,
     cellLabel: r.maker ? `${r.maker} ${r.model} (${r.designation})` : null,
-    verdict: payload.conformity?.specimenConforms ?? "not decided",
+    verdict: payload.conformity?.specimenConforms ?? payload.lotDecision?.words ?? "not decided",
     procedureFollowed: payload.conformity?.procedureFollowed ?? null,
     status: r.revoked_at ? "revoked" : r.replaced_by_number ? "superseded" : "valid",
     issuedAt: r.issued_at,
@@ -361,4 +365,31 @@ export async function listCertificateInstruments(
     calibratedOn: r.calibrated_on,
     dueOn: r.due_on,
   }));
+}
+
+/** The lot certificate of a lot that is neither revoked nor replaced, if any. */
+export async function findValidLotCertificate(db: Executor, lotId: string): Promise<string | null> {
+  const r = await db
+    .selectFrom("certificate as c")
+    .leftJoin("certificate as next", "next.replaces_id", "c.id")
+    .select("c.number")
+    .where("c.lot_id", "=", lotId)
+    .where("c.revoked_at", "is", null)
+    .where("next.id", "is", null)
+    .orderBy("c.issued_at", "desc")
+    .executeTakeFirst();
+  return r?.number ?? null;
+}
+
+/** Every certificate of a lot (its lot certificates, not those of its runs), newest first. */
+export async function listLotCertificates(db: Executor, lotId: string): Promise<{ id: string; number: string; issuedAt: Date; status: CertificateStatus }[]> {
+  const rows = await db
+    .selectFrom("certificate as c")
+    .leftJoin("certificate as next", "next.replaces_id", "c.id")
+    .select(["c.id", "c.number", "c.issued_at", "c.revoked_at", "next.number as replaced_by_number"])
+    .where("c.lot_id", "=", lotId)
+    .orderBy("c.issued_at", "desc")
+    .orderBy("c.number", "desc")
+    .execute();
+  return rows.map((r) => ({ id: r.id, number: r.number, issuedAt: r.issued_at, status: r.revoked_at ? "revoked" : r.replaced_by_number ? "superseded" : "valid" }));
 }

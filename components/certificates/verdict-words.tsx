@@ -4,6 +4,8 @@ const TONES: Record<string, { tone: string; mark: string }> = {
   conforms: { tone: "text-meets", mark: "✓" },
   "does not conform": { tone: "text-deviates", mark: "✕" },
   "not decided": { tone: "text-unassessed", mark: "?" },
+  "lot accepted": { tone: "text-meets", mark: "✓" },
+  "lot rejected": { tone: "text-deviates", mark: "✕" },
 };
 
 /** A statement of conformity in words first (conforms / does not conform / not decided). */

@@ -69,7 +69,7 @@ export const NO_EXTERNAL_PROVIDERS = "No result on this certificate comes from a
 export const REPRODUCTION = "This certificate may be copied in full only; an extract needs the laboratory's written consent.";
 
 /** First and last moment any step record names. */
-function findTestingSpan(records: readonly StepRecord[]): { from: string | null; to: string | null } {
+export function findTestingSpan(records: readonly Pick<StepRecord, "startedAt" | "endedAt" | "ambientReadings">[]): { from: string | null; to: string | null } {
   const times = records.flatMap((r) => [r.startedAt, r.endedAt, ...r.ambientReadings.map((a) => a.at)]).filter((t): t is string => Boolean(t));
   const ms = times.map((t) => Date.parse(t)).filter(Number.isFinite);
   if (ms.length === 0) return { from: null, to: null };
@@ -193,7 +193,7 @@ function listInstruments(records: RunCertificateRecords, testing: { from: string
   }));
 }
 
-function sign(printedName: string, meaning: "reviewed" | "approved", meaningWords: string, signedAt: Date): SignatureStatement {
+export function sign(printedName: string, meaning: "reviewed" | "approved", meaningWords: string, signedAt: Date): SignatureStatement {
   return { printedName, meaning, meaningWords, signedAt: signedAt.toISOString() };
 }
 

@@ -3,7 +3,7 @@ import { join } from "node:path";
 import { Document, Font, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
 import { CopperRule, QrCode } from "./certificate-figures";
 import { convertWoffToSfnt } from "./woff-to-sfnt";
-import type { CertificatePayload } from "./certificate-payload";
+import type { CertificatePayload, LotCertificatePayload, RunCertificatePayload, SignatureStatement } from "./certificate-payload";
 import { ink, inkSoft, rule, styles, Tx } from "./certificate-primitives";
 import {
   ConditionsSection,
@@ -19,6 +19,7 @@ import {
   TitleBlock,
 } from "./certificate-sections";
 import { UncertaintySection } from "./certificate-uncertainty-section";
+import { DrawSection, LotDecisionSection, LotItemSection, LotMethodSection, LotStatisticsSection, LotTitleBlock, SamplingPlanSection } from "./lot-certificate-sections";
 import type { QrModules } from "./qr-modules";
 import type { DischargeCurve } from "./vq-plot";
 
@@ -76,35 +77,99 @@ function PageChrome({ payload }: { payload: CertificatePayload }) {
   );
 }
 
-export function CertificateDocument({ payload, payloadSha256, curves, checkUrl, qr, signingSubject }: CertificateDocumentInput) {
+/** The last section: who signed and what it means, the digital signature and check address, the statements, the end mark. */
+function ClosingSection({
+  payload,
+  heading,
+  signatures,
+  checkUrl,
+  qr,
+  signingSubject,
+}: {
+  payload: CertificatePayload;
+  heading: string;
+  signatures: { heading: string; s: SignatureStatement; note?: string }[];
+  checkUrl: string;
+  qr: QrModules;
+  signingSubject: string;
+}) {
+  return (
+    <View wrap={false}>
+      <Tx style={styles.heading}>{heading}</Tx>
+      <View style={{ flexDirection: "row", alignItems: "flex-start" }}>
+        {signatures.map((x) => (
+          <SignatureBlock key={x.heading} heading={x.heading} s={x.s} note={x.note} />
+        ))}
+        <QrCode modules={qr} size={62} />
+      </View>
+      <Tx style={{ marginTop: 4 }}>{`Digitally signed with the laboratory's key (PKCS#7, certificate "${signingSubject}"): any change to this file breaks the signature. Check the certificate, its state and this file at ${checkUrl}`}</Tx>
+      <Tx style={{ ...styles.small, marginTop: 2 }}>{`${payload.statements.resultsRelateToItem} ${payload.statements.externalProviders} ${payload.statements.reproduction}`}</Tx>
+      <View style={{ marginTop: 8, borderTopWidth: 0.8, borderBottomWidth: 0.8, borderColor: ink, paddingVertical: 3 }}>
+        <Tx style={{ textAlign: "center", fontWeight: 700, fontSize: 8.5 }}>{`End of certificate ${payload.number}`}</Tx>
+      </View>
+    </View>
+  );
+}
+
+type BodyInput = Omit<CertificateDocumentInput, "payload">;
+
+function RunCertificateBody({ payload, payloadSha256, curves, checkUrl, qr, signingSubject }: BodyInput & { payload: RunCertificatePayload }) {
+  return (
+    <>
+      <TitleBlock payload={payload} />
+      <LabSection payload={payload} />
+      <ItemSection payload={payload} />
+      <MethodSection payload={payload} />
+      <ConditionsSection payload={payload} />
+      <InstrumentsSection payload={payload} />
+      <ResultsSection payload={payload} curves={curves} />
+      <ConformitySection payload={payload} />
+      <UncertaintySection payload={payload} />
+      <DeviationsSection payload={payload} />
+      <EvidenceSection payload={payload} payloadSha256={payloadSha256} />
+      <ClosingSection
+        payload={payload}
+        heading="11  Review and authorisation"
+        signatures={[
+          { heading: "Reviewed by", s: payload.review, ...(payload.review.comments && { note: `Comments: ${payload.review.comments}` }) },
+          { heading: "Approved for issue by", s: payload.approval },
+        ]}
+        checkUrl={checkUrl}
+        qr={qr}
+        signingSubject={signingSubject}
+      />
+    </>
+  );
+}
+
+function LotCertificateBody({ payload, payloadSha256, checkUrl, qr, signingSubject }: BodyInput & { payload: LotCertificatePayload }) {
+  return (
+    <>
+      <LotTitleBlock payload={payload} />
+      <LabSection payload={payload} />
+      <LotItemSection payload={payload} />
+      <LotMethodSection payload={payload} />
+      <SamplingPlanSection payload={payload} />
+      <DrawSection payload={payload} />
+      <LotDecisionSection payload={payload} />
+      <LotStatisticsSection payload={payload} />
+      <View wrap={false}>
+        <Tx style={styles.heading}>8  Evidence</Tx>
+        <Tx>{`The evidence of each sampled run (its data log, findings and signed review) is kept with the run; a run certificate listed in section 5 states it in full. What this certificate states hashes (SHA-256 of its canonical JSON) to`}</Tx>
+        <Tx style={styles.hash}>{payloadSha256}</Tx>
+      </View>
+      <ClosingSection payload={payload} heading="9  Authorisation" signatures={[{ heading: "Approved for issue by", s: payload.approval }]} checkUrl={checkUrl} qr={qr} signingSubject={signingSubject} />
+    </>
+  );
+}
+
+export function CertificateDocument(input: CertificateDocumentInput) {
+  const { payload } = input;
   return (
     <Document title={`${payload.title} ${payload.number}`} author={payload.lab.name} subject={`${payload.title} ${payload.number}`} creator="Cellwright" producer="Cellwright" language="en">
       <Page size="A4" style={styles.page}>
         <PageChrome payload={payload} />
-        <TitleBlock payload={payload} />
-        <LabSection payload={payload} />
-        <ItemSection payload={payload} />
-        <MethodSection payload={payload} />
-        <ConditionsSection payload={payload} />
-        <InstrumentsSection payload={payload} />
-        <ResultsSection payload={payload} curves={curves} />
-        <ConformitySection payload={payload} />
-        <UncertaintySection payload={payload} />
-        <DeviationsSection payload={payload} />
-        <EvidenceSection payload={payload} payloadSha256={payloadSha256} />
-        <View wrap={false}>
-          <Tx style={styles.heading}>11  Review and authorisation</Tx>
-          <View style={{ flexDirection: "row", alignItems: "flex-start" }}>
-            <SignatureBlock heading="Reviewed by" s={payload.review} note={payload.review.comments ? `Comments: ${payload.review.comments}` : undefined} />
-            <SignatureBlock heading="Approved for issue by" s={payload.approval} />
-            <QrCode modules={qr} size={62} />
-          </View>
-          <Tx style={{ marginTop: 4 }}>{`Digitally signed with the laboratory's key (PKCS#7, certificate "${signingSubject}"): any change to this file breaks the signature. Check the certificate, its state and this file at ${checkUrl}`}</Tx>
-          <Tx style={{ ...styles.small, marginTop: 2 }}>{`${payload.statements.resultsRelateToItem} ${payload.statements.externalProviders} ${payload.statements.reproduction}`}</Tx>
-          <View style={{ marginTop: 8, borderTopWidth: 0.8, borderBottomWidth: 0.8, borderColor: ink, paddingVertical: 3 }}>
-            <Tx style={{ textAlign: "center", fontWeight: 700, fontSize: 8.5 }}>{`End of certificate ${payload.number}`}</Tx>
-          </View>
-        </View>
+        {payload.subject === "lot" ? <LotCertificateBody {...input} payload={payload} /> : <RunCertificateBody {...input} payload={payload} />}
       </Page>
     </Document>
   );

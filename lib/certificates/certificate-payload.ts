@@ -131,7 +131,7 @@ export interface CertificateLog {
   uploadedAt: string;
 }
 
-/** A certificate of one run on one specimen. (A lot certificate will add `subject: "lot"`.) */
+/** A certificate of one run on one specimen. */
 export interface RunCertificatePayload extends CertificateCommon {
   subject: "run";
   run: { number: string };
@@ -173,4 +173,84 @@ export interface RunCertificatePayload extends CertificateCommon {
   review: SignatureStatement & { comments: string };
 }
 
-export type CertificatePayload = RunCertificatePayload;
+/** One drawn cell of a lot certificate, in draw order. */
+export interface LotCertificateCell {
+  /** Tray position 1…lot size. */
+  position: number;
+  /** Null when no specimen was registered at the position. */
+  specimen: string | null;
+  /** The reviewed run whose statement of conformity counts; null when the cell was not tested. */
+  run: string | null;
+  /** The valid certificate of that run, if one was issued. */
+  runCertificate: string | null;
+  result: "conforms" | "does not conform" | "not decided" | "not tested";
+  /** The run's capacity discharge at 0.2 It (its last cycle), null when the run has none. */
+  capacityMAh: number | null;
+  energyWh: number | null;
+  currentA: number | null;
+}
+
+/** Capacity statistics of the sample at 0.2 It (lib/lot-results summariseStatistics). */
+export interface LotCertificateStatistics {
+  currentA: number;
+  count: number;
+  meanMAh: number;
+  standardDeviationMAh: number;
+  minMAh: number;
+  maxMAh: number;
+  ratedCapacityMAh: number;
+  countAtOrAboveRated: number;
+  shareAtOrAboveRated: number;
+  /** The lower limit of Cpl: the datasheet's minimum capacity; null when it gives none. */
+  minimumCapacityMAh: number | null;
+  cpl: number | null;
+  cplFormula: string;
+  cplSource: string;
+  /** Why Cpl is missing or rough. */
+  note: string | null;
+}
+
+/**
+ * A certificate of a lot (ISO 2859-1 single sampling): the plan, the draw, each drawn cell's result,
+ * and the lot decision with its rule. The lot decision rests on the sample (7.8.2.1 k, sampling plan).
+ */
+export interface LotCertificatePayload extends CertificateCommon {
+  subject: "lot";
+  lot: { identifier: string; supplier: string; quantityReceived: number; receivedOn: string };
+  cell: CertificateCell;
+  /** 7.8.2.1 e: the procedures whose statements of conformity judged the cells. */
+  method: { acceptanceProcedure: string | null; procedures: { code: string; title: string; version: number; standard: string; clause: string }[] };
+  /** 7.8.2.1 k: the sampling plan. */
+  samplingPlan: {
+    source: string;
+    inspectionLevel: string;
+    aql: string;
+    severity: "normal";
+    initialCodeLetter: string;
+    codeLetter: string;
+    sampleSize: number;
+    tableSampleSize: number;
+    acceptanceNumber: number;
+    rejectionNumber: number;
+    hundredPercent: boolean;
+    /** Set when n reaches the lot size. */
+    hundredPercentNote: string | null;
+    explanation: string[];
+  };
+  draw: { method: "random" | "chosen"; seed: string | null; positions: number[]; drawnAt: string; drawnBy: string; description: string };
+  sample: LotCertificateCell[];
+  counts: { drawn: number; registered: number; tested: number; nonconforming: number; notDecided: number };
+  /** The lot decision of the plan: accept or reject (a pending lot gets no certificate). */
+  lotDecision: { verdict: "accept" | "reject"; words: "lot accepted" | "lot rejected"; statement: string; rule: string };
+  /** The decision rule(s) each cell's statement of conformity was made under (ILAC-G8). */
+  cellDecisionRules: DecisionRule[];
+  statistics: LotCertificateStatistics | null;
+  /** Why there are no statistics, when there are none. */
+  statisticsNote: string | null;
+  /** 7.8.2.1 h: first to last recorded moment over the sampled runs. */
+  testing: { from: string | null; to: string | null };
+  /** The lot decision rests on the sample; results relate only to the cells tested. */
+  sampleStatement: string;
+}
+
+export type CertificatePayload = RunCertificatePayload | LotCertificatePayload;

@@ -12,7 +12,7 @@ import {
   formatWh,
 } from "./certificate-format";
 import { OutcomeMark, VqPlot, type OutcomeTone } from "./certificate-figures";
-import type { CertificateFinding, RunCertificatePayload } from "./certificate-payload";
+import type { CertificateCell, CertificateCommon, CertificateFinding, RunCertificatePayload } from "./certificate-payload";
 import { Field, Heading, ink, outcomeColour, rule, styles, Table, Tx } from "./certificate-primitives";
 import type { DischargeCurve } from "./vq-plot";
 
@@ -22,7 +22,7 @@ export function toneOfConformity(outcome: ConformityOutcome): OutcomeTone {
   return outcome === "conforms" ? "meets" : outcome === "does not conform" ? "deviates" : "open";
 }
 
-function OutcomeLine({ tone, words, rest, large }: { tone: OutcomeTone; words: string; rest: string; large?: boolean }) {
+export function OutcomeLine({ tone, words, rest, large }: { tone: OutcomeTone; words: string; rest: string; large?: boolean }) {
   return (
     <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 3 }} wrap={false}>
       <OutcomeMark tone={tone} size={large ? 12 : 9} />
@@ -75,7 +75,7 @@ export function TitleBlock({ payload }: P) {
   );
 }
 
-export function LabSection({ payload }: P) {
+export function LabSection({ payload }: { payload: CertificateCommon }) {
   return (
     <View wrap={false}>
       <Heading number={1}>Laboratory and customer</Heading>
@@ -88,6 +88,11 @@ export function LabSection({ payload }: P) {
   );
 }
 
+/** The datasheet values a certificate states beside the cell. */
+export function describeDatasheet(cell: CertificateCell): string {
+  return `rated capacity ${formatMah(cell.ratedCapacityMah)}${cell.minimumCapacityMah !== null ? `, minimum ${formatMah(cell.minimumCapacityMah)}` : ""}, nominal ${formatVolts(cell.nominalVoltageV)}, charge ${formatVolts(cell.chargeVoltageV)}, end of discharge ${formatVolts(cell.endOfDischargeVoltageV)}`;
+}
+
 export function ItemSection({ payload }: P) {
   const { specimen, lot, cell } = payload.item;
   return (
@@ -95,9 +100,7 @@ export function ItemSection({ payload }: P) {
       <Heading number={2}>Item tested</Heading>
       <Field label="Specimen">{specimen.identifier}</Field>
       <Field label="Cell">{`${cell.maker} ${cell.model}, ${cell.designation}, ${cell.chemistry}`}</Field>
-      <Field label="Datasheet values">
-        {`rated capacity ${formatMah(cell.ratedCapacityMah)}${cell.minimumCapacityMah !== null ? `, minimum ${formatMah(cell.minimumCapacityMah)}` : ""}, nominal ${formatVolts(cell.nominalVoltageV)}, charge ${formatVolts(cell.chargeVoltageV)}, end of discharge ${formatVolts(cell.endOfDischargeVoltageV)}`}
-      </Field>
+      <Field label="Datasheet values">{describeDatasheet(cell)}</Field>
       {lot && <Field label="Lot">{`${lot.identifier} from ${lot.supplier}, received ${lot.receivedOn}`}</Field>}
       <Field label="Date of receipt">{specimen.receivedOn}</Field>
       <Field label="Condition on receipt">{specimen.conditionOnReceipt}</Field>
@@ -242,11 +245,7 @@ export function ConformitySection({ payload }: P) {
     <View>
       <View wrap={false}>
         <Heading number={7}>Statement of conformity</Heading>
-        <Field label="Decision rule">
-          {c.decisionRule === "simple acceptance"
-            ? "Simple acceptance (ILAC-G8:09/2019): the measured value is compared with the limit as it is."
-            : "Guarded acceptance (ILAC-G8:09/2019, JCGM 106:2012): the guard band equals the expanded uncertainty."}
-        </Field>
+        <Field label="Decision rule">{describeDecisionRule(c.decisionRule)}</Field>
         {first ? <CriterionItem k={first} /> : <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>}
       </View>
       {rest.map((k) => (
@@ -325,6 +324,13 @@ export function EvidenceSection({ payload, payloadSha256 }: P & { payloadSha256:
 function describeMeaning(words: string): string {
   const at = words.indexOf(": ");
   return at < 0 ? words : `${words.slice(0, at)} (${words.slice(at + 2)})`;
+}
+
+/** A decision rule as the certificate words it (ILAC-G8:09/2019; JCGM 106:2012). */
+export function describeDecisionRule(rule: string): string {
+  return rule === "simple acceptance"
+    ? "Simple acceptance (ILAC-G8:09/2019): the measured value is compared with the limit as it is."
+    : "Guarded acceptance (ILAC-G8:09/2019, JCGM 106:2012): the guard band equals the expanded uncertainty.";
 }
 
 export function SignatureBlock({ heading, s, note }: { heading: string; s: { printedName: string; signedAt: string; meaningWords: string }; note?: string }) {

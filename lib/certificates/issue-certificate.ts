@@ -18,13 +18,19 @@ export function assertMaySignCertificates(actor: SignedInUser): void {
   if (!can(actor.role, "certificate.sign")) throw new DomainError("forbidden", "Only an engineer signs certificates.");
 }
 
+/** What the auditors' notice names: "run R-00012 (specimen …)" or "lot …", and the verdict in words. */
+export function describeCertified(produced: ProducedCertificate, basis?: RunCertificateBasis): { runOrLot: string; verdict: string } {
+  const p = produced.payload;
+  if (p.subject === "lot") return { runOrLot: `lot ${p.lot.identifier}`, verdict: p.lotDecision.words };
+  return { runOrLot: `run ${p.run.number} (specimen ${basis?.specimen.identifier ?? p.item.specimen.identifier})`, verdict: p.conformity.specimenConforms };
+}
+
 /** The notice to the auditors that a certificate was issued, queued in the issuing transaction. */
-export async function queueCertificateNotice(tx: Executor, actor: SignedInUser, produced: ProducedCertificate, basis: RunCertificateBasis, replaces?: string): Promise<void> {
+export async function queueCertificateNotice(tx: Executor, actor: SignedInUser, produced: ProducedCertificate, basis?: RunCertificateBasis, replaces?: string): Promise<void> {
   const auditors = await listRecipientsByRole(tx, "auditor");
   const notice = composeCertificateIssued({
     certificateNumber: produced.number,
-    runOrLot: `run ${basis.runView.number} (specimen ${basis.specimen.identifier})`,
-    verdict: produced.payload.conformity.specimenConforms,
+    ...describeCertified(produced, basis),
     issuerName: actor.displayName,
     ...(replaces && { replaces }),
   });

@@ -6,9 +6,11 @@ import { insertStoredFile } from "@/db/stored-files";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { publicUrl } from "@/lib/public-url";
 import { deleteObject, putObject } from "@/lib/storage";
+import { buildLotCertificatePayload } from "./build-lot-payload";
 import { buildRunCertificatePayload } from "./build-run-payload";
 import { hashCanonicalJson } from "./canonical-json";
-import type { CertificatePayload } from "./certificate-payload";
+import type { CertificatePayload, LotCertificatePayload, RunCertificatePayload } from "./certificate-payload";
+import type { LotCertificateBasis } from "./lot-certificate-basis";
 import { loadLabSigningKey } from "./lab-signing-key";
 import { renderCertificatePdf } from "./render-certificate";
 import type { RunCertificateBasis } from "./run-certificate-basis";
@@ -16,11 +18,11 @@ import { signPdf } from "./sign-pdf";
 import type { DischargeCurve } from "./vq-plot";
 
 /** A certificate made and stored, waiting for the transaction that issues it. */
-export interface ProducedCertificate {
+export interface ProducedCertificate<P extends CertificatePayload = CertificatePayload> {
   id: string;
   number: string;
   issuedAt: Date;
-  payload: CertificatePayload;
+  payload: P;
   payloadSha256: string;
   pdf: Buffer;
   pdfSha256: string;
@@ -32,22 +34,15 @@ export interface ProducedCertificate {
  * issuing transaction (rendering and signing take a moment; the transaction stays short). The
  * approval's printed time is the issue time, and the signature row is written with that same time.
  */
-export async function produceRunCertificate(input: {
+async function produceCertificate<P extends CertificatePayload>(input: {
   actor: SignedInUser;
-  basis: RunCertificateBasis;
+  build: (number: string, issuedAt: Date) => P;
   curves: DischargeCurve[];
-  replaces: { number: string; reason: string } | null;
-}): Promise<ProducedCertificate> {
+}): Promise<ProducedCertificate<P>> {
   const [number, key] = await Promise.all([takeCertificateNumber(getDb()), loadLabSigningKey()]);
   const id = randomUUID();
   const issuedAt = new Date();
-  const payload = buildRunCertificatePayload({
-    ...input.basis,
-    number,
-    issuedAt,
-    replaces: input.replaces,
-    approval: { printedName: input.actor.displayName, signedAt: issuedAt },
-  });
+  const payload = input.build(number, issuedAt);
   const payloadSha256 = hashCanonicalJson(payload);
   const checkUrl = publicUrl(`/check/${number}`);
   const unsigned = await renderCertificatePdf({ payload, payloadSha256, curves: input.curves, checkUrl, signingSubject: key.commonName });
@@ -61,6 +56,35 @@ export async function produceRunCertificate(input: {
   const storageKey = `certificates/${id}/${number}.pdf`;
   const stored = await putObject(storageKey, pdf, "application/pdf");
   return { id, number, issuedAt, payload, payloadSha256, pdf, pdfSha256: stored.sha256, storageKey };
+}
+
+/** A run certificate made and stored (produceCertificate). */
+export function produceRunCertificate(input: {
+  actor: SignedInUser;
+  basis: RunCertificateBasis;
+  curves: DischargeCurve[];
+  replaces: { number: string; reason: string } | null;
+}): Promise<ProducedCertificate<RunCertificatePayload>> {
+  return produceCertificate({
+    actor: input.actor,
+    curves: input.curves,
+    build: (number, issuedAt) =>
+      buildRunCertificatePayload({ ...input.basis, number, issuedAt, replaces: input.replaces, approval: { printedName: input.actor.displayName, signedAt: issuedAt } }),
+  });
+}
+
+/** A lot certificate made and stored (produceCertificate); it draws no curves. */
+export function produceLotCertificate(input: {
+  actor: SignedInUser;
+  basis: LotCertificateBasis;
+  replaces: { number: string; reason: string } | null;
+}): Promise<ProducedCertificate<LotCertificatePayload>> {
+  return produceCertificate({
+    actor: input.actor,
+    curves: [],
+    build: (number, issuedAt) =>
+      buildLotCertificatePayload({ ...input.basis.records, number, issuedAt, replaces: input.replaces, approval: { printedName: input.actor.displayName, signedAt: issuedAt } }),
+  });
 }
 
 /**

@@ -4,10 +4,12 @@ import { PassThrough, Readable } from "node:stream";
 import { ZipArchive } from "archiver";
 import { getDb } from "@/db";
 import { listAuditEvents, type AuditEventView } from "@/db/audit";
-import { getCertificateByNumber } from "@/db/certificates";
+import { getCertificateByNumber, listLotCertificates, type CertificateView } from "@/db/certificates";
 import { getReviewedEvaluation, listRunCertificateIds, listRunLogFiles } from "@/db/evidence";
 import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
 import { DomainError } from "@/lib/errors";
+import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lot-results/export-results";
+import { readLotResults } from "@/lib/lot-results/read-results";
 import { getObjectBytes } from "@/lib/storage";
 import { formatAuditTrailCsv } from "./audit-trail-csv";
 
@@ -19,47 +21,93 @@ interface BundleFile {
 
 const AUDIT_LIMIT = 100_000;
 
-/**
- * Everything an assessor needs to check one certificate without our software: the signed PDF, every
- * raw log as uploaded, the findings the reviewer signed for, the payload whose SHA-256 the certificate
- * states, the audit trail as CSV, and a manifest with the SHA-256 of each file. Read-only.
- */
-export async function buildEvidenceBundle(number: string): Promise<{ fileName: string; stream: ReadableStream<Uint8Array> }> {
+const sortEvents = (trails: AuditEventView[][]) => trails.flat().sort((a, b) => a.at.getTime() - b.at.getTime() || Number(a.id) - Number(b.id));
+
+/** A run certificate's files: its PDF, every raw log as uploaded, the reviewed findings, the audit trail of the run and its certificates. */
+async function gatherRunEvidence(certificate: CertificateView, runId: string, pdf: { fileName: string; bytes: Uint8Array }): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
   const db = getDb();
-  const certificate = await getCertificateByNumber(db, number);
-  if (!certificate) throw new DomainError("not-found", `No certificate ${number}.`);
-  if (!certificate.runId) throw new DomainError("invalid", `Certificate ${number} is a lot certificate; its evidence is in the certificates of its runs.`);
-  const pdf = await readCertificatePdf(number);
-  if (!pdf) throw new DomainError("not-found", `The PDF of certificate ${number} is missing from storage.`);
-
-  const runId = certificate.runId;
   const [logs, evaluation, certificateIds] = await Promise.all([listRunLogFiles(db, runId), getReviewedEvaluation(db, runId), listRunCertificateIds(db, runId)]);
-  const trails = await Promise.all([
-    listAuditEvents(db, { entityType: "run", entityId: runId, limit: AUDIT_LIMIT }),
-    ...certificateIds.map((id) => listAuditEvents(db, { entityType: "certificate", entityId: id, limit: AUDIT_LIMIT })),
-  ]);
-  const events: AuditEventView[] = trails.flat().sort((a, b) => a.at.getTime() - b.at.getTime() || Number(a.id) - Number(b.id));
-
+  const events = sortEvents(
+    await Promise.all([
+      listAuditEvents(db, { entityType: "run", entityId: runId, limit: AUDIT_LIMIT }),
+      ...certificateIds.map((id) => listAuditEvents(db, { entityType: "certificate", entityId: id, limit: AUDIT_LIMIT })),
+    ]),
+  );
   const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, what: "the certificate as issued, with its embedded signature" }];
   for (const [i, log] of logs.entries()) {
     const bytes = await getObjectBytes(log.storageKey);
     const name = `logs/${String(i + 1).padStart(2, "0")}-${log.fileName.replace(/[^\w.\- ]/g, "_")}`;
     files.push({ name, bytes, what: `data log as uploaded by ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? " (the one evaluated)" : " (replaced by a later upload)"}` });
   }
-  const encoder = new TextEncoder();
   if (evaluation) {
     files.push({
       name: "findings.json",
-      bytes: encoder.encode(JSON.stringify({ evaluationId: evaluation.id, evaluatedAt: evaluation.evaluatedAt, reviewed: evaluation.reviewed, evaluation: evaluation.evaluation }, null, 2)),
+      bytes: new TextEncoder().encode(JSON.stringify({ evaluationId: evaluation.id, evaluatedAt: evaluation.evaluatedAt, reviewed: evaluation.reviewed, evaluation: evaluation.evaluation }, null, 2)),
       what: evaluation.reviewed ? "findings, results and verdict of the evaluation the reviewer signed for" : "findings of the latest evaluation (no accepted review on record)",
     });
   }
+  return { files, events, about: `Run ${certificate.runNumber ?? ""}, specimen ${certificate.specimenIdentifier ?? ""}.` };
+}
+
+/**
+ * A lot certificate's files: its PDF, the PDFs of the sampled runs' certificates that were issued (each
+ * with its own evidence bundle), the lot's reviewed discharge results as CSV, and the audit trail of the
+ * lot and its certificates.
+ */
+async function gatherLotEvidence(certificate: CertificateView, lotId: string, pdf: { fileName: string; bytes: Uint8Array }): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
+  const db = getDb();
+  const payload = certificate.payload;
+  const runCertificates = payload.subject === "lot" ? [...new Set(payload.sample.flatMap((c) => (c.runCertificate ? [c.runCertificate] : [])))] : [];
+  const [lotCertificates, results] = await Promise.all([listLotCertificates(db, lotId), readLotResults(lotId)]);
+  const events = sortEvents(
+    await Promise.all([
+      listAuditEvents(db, { entityType: "lot", entityId: lotId, limit: AUDIT_LIMIT }),
+      ...lotCertificates.map((c) => listAuditEvents(db, { entityType: "certificate", entityId: c.id, limit: AUDIT_LIMIT })),
+    ]),
+  );
+  const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, what: "the lot certificate as issued, with its embedded signature" }];
+  for (const number of runCertificates) {
+    const run = await readCertificatePdf(number);
+    if (run) files.push({ name: `run-certificates/${run.fileName}`, bytes: run.bytes, what: `certificate ${number} of a sampled run, as issued; its own evidence bundle holds the run's logs and findings` });
+  }
+  const csv = formatResultsCsv(listExportedResults(results.results, results.specification.data));
+  files.push({
+    name: `lot-${toFileName(results.lot.identifier)}-results.csv`,
+    bytes: new TextEncoder().encode(csv),
+    what: `every reviewed discharge result of lot ${results.lot.identifier} as it stands now (${results.results.length} rows), sampled cells and others`,
+  });
+  return { files, events, about: `Lot ${certificate.lotIdentifier ?? ""}.` };
+}
+
+/**
+ * Everything an assessor needs to check one certificate without our software: the signed PDF and the
+ * records behind it (for a run: every raw log as uploaded and the findings the reviewer signed for; for
+ * a lot: the sampled runs' certificates and the lot's results), the payload whose SHA-256 the
+ * certificate states, the audit trail as CSV, and a manifest with the SHA-256 of each file. Read-only.
+ */
+export async function buildEvidenceBundle(number: string): Promise<{ fileName: string; stream: ReadableStream<Uint8Array> }> {
+  const certificate = await getCertificateByNumber(getDb(), number);
+  if (!certificate) throw new DomainError("not-found", `No certificate ${number}.`);
+  const pdf = await readCertificatePdf(number);
+  if (!pdf) throw new DomainError("not-found", `The PDF of certificate ${number} is missing from storage.`);
+  const gathered = certificate.runId
+    ? await gatherRunEvidence(certificate, certificate.runId, pdf)
+    : certificate.lotId
+      ? await gatherLotEvidence(certificate, certificate.lotId, pdf)
+      : null;
+  if (!gathered) throw new DomainError("invalid", `Certificate ${number} names neither a run nor a lot.`);
+  const { files, events } = gathered;
+  const encoder = new TextEncoder();
   files.push({ name: "certificate-payload.json", bytes: encoder.encode(JSON.stringify(certificate.payload, null, 2)), what: `what the certificate states; its canonical form hashes to ${certificate.payloadSha256}` });
-  files.push({ name: "audit-trail.csv", bytes: encoder.encode(formatAuditTrailCsv(events)), what: `${events.length} audit events of the run and its certificates, oldest first` });
+  files.push({
+    name: "audit-trail.csv",
+    bytes: encoder.encode(formatAuditTrailCsv(events)),
+    what: `${events.length} audit events of the ${certificate.runId ? "run" : "lot"} and its certificates, oldest first`,
+  });
 
   const manifest = [
     `Evidence for certificate ${certificate.number} (${certificate.status}), ${certificate.labName}`,
-    `Run ${certificate.runNumber ?? ""}, specimen ${certificate.specimenIdentifier ?? ""}. Bundle made ${new Date().toISOString()}.`,
+    `${gathered.about} Bundle made ${new Date().toISOString()}.`,
     `SHA-256 of the certificate PDF as issued: ${certificate.pdfSha256}`,
     "",
     "file\tSHA-256\tbytes\twhat it is",

@@ -215,6 +215,7 @@ describe("run certificates", () => {
     });
     // The approval's time on the record is the issue time the PDF prints.
     expect(view?.signature.signedAt.toISOString()).toBe(view?.issuedAt.toISOString());
+    if (view?.payload.subject !== "run") throw new Error("a run certificate states a run");
     // What it states, read back from jsonb, hashes to the stored hash (canonical JSON, sorted keys).
     expect(hashCanonicalJson(view?.payload)).toBe(view?.payloadSha256);
     expect(view?.payload.customer).toBe("Quayside Packs Ltd");
@@ -311,6 +312,7 @@ describe("run certificates", () => {
     const { number } = await issueRunCertificate(l.issuer, noted.runId, { password: PASSWORD });
     const view = await getCertificateByNumber(getDb(), number);
     expect(view?.procedureFollowed).toBe("no");
+    if (view?.payload.subject !== "run") throw new Error("a run certificate states a run");
     expect(view?.payload.deviations.length).toBe(deviating.length);
     expect(view?.payload.deviations.every((d) => d.reviewerNote?.startsWith("Cabinet door"))).toBe(true);
   });

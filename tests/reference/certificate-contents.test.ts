@@ -5,17 +5,18 @@ import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
 import { formatCelsius, formatMah, formatWh } from "@/lib/certificates/certificate-format";
-import type { RunCertificatePayload } from "@/lib/certificates/certificate-payload";
+import type { CertificatePayload } from "@/lib/certificates/certificate-payload";
 import { renderCertificatePdf } from "@/lib/certificates/render-certificate";
 import type { DischargeCurve } from "@/lib/certificates/vq-plot";
 import { buildFixturePayload } from "../unit/certificates/fixture-payload";
+import { buildLotFixturePayload } from "../unit/certificates/fixture-lot-payload";
 
 // What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as REFERENCES.md §8
 // lists them [published]. The text is read back with Debian's pdftotext (poppler-utils), page by page.
 const dir = mkdtempSync(join(tmpdir(), "cellwright-certificate-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-async function renderPages(payload: RunCertificatePayload, curves: DischargeCurve[], name: string): Promise<{ pages: string[]; file: string }> {
+async function renderPages(payload: CertificatePayload, curves: DischargeCurve[], name: string): Promise<{ pages: string[]; file: string }> {
   const pdf = await renderCertificatePdf({ payload, payloadSha256: hashCanonicalJson(payload), curves, checkUrl: `http://localhost:3000/check/${payload.number}`, signingSubject: "Harbourside Cell Test Laboratory" });
   const file = join(dir, `${name}.pdf`);
   writeFileSync(file, pdf);
@@ -117,5 +118,61 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
     const text = squash((await renderPages(amended.payload, amended.curves, "amended")).pages.join("\n"));
     expect(text).toContain("Amendment: this certificate replaces certificate C-00041, which is withdrawn.");
     expect(text).toContain("Reason: Customer's legal name corrected");
+  });
+});
+
+// A lot certificate adds the sampling plan (7.8.2.1 k) and the lot decision. The plan of a lot of 60
+// at general inspection level II, AQL 1.0, is code letter E, n = 13, Ac 0, Re 1: REFERENCES.md §10
+// [published: ISO 2859-1 Table 1 and Table 2-A].
+describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling plan; ISO 2859-1)", async () => {
+  const accepted = await renderPages(buildLotFixturePayload(), [], "lot");
+  const all = squash(accepted.pages.join("\n"));
+
+  it("carries its number and 'page x of y' on every page and ends clearly", () => {
+    expect(accepted.pages.length).toBeGreaterThanOrEqual(2);
+    accepted.pages.forEach((page, i) => {
+      expect(page).toContain("C-00077");
+      expect(squash(page)).toContain(`page ${i + 1} of ${accepted.pages.length}`);
+    });
+    expect(squash(accepted.pages.at(-1)!)).toContain("End of certificate C-00077");
+    expect(accepted.pages.slice(0, -1).some((p) => p.includes("End of certificate"))).toBe(false);
+  });
+
+  it("states the sampling plan: standard, level, AQL, code letter, n, Ac and Re, and how they follow", () => {
+    expect(all).toContain("Lot certificate");
+    expect(all).toMatch(/Standard ISO 2859-1:1999, Table 1 and Table 2-A/);
+    expect(all).toMatch(/general inspection level II, AQL 1\.0 % nonconforming, normal inspection/);
+    expect(all).toMatch(/Code letter E/);
+    expect(all).toMatch(/Sample size n 13 cells/);
+    expect(all).toMatch(/Acceptance number Ac 0/);
+    expect(all).toMatch(/Rejection number Re 1/);
+    expect(all).toContain("lot of 60 at level II -> code letter E (Table 1)");
+  });
+
+  it("states the lot, the customer, the draw, each drawn cell's run and result, and the lot decision with its rule", () => {
+    expect(all).toMatch(/Customer Quayside Packs Ltd/);
+    expect(all).toMatch(/Quantity received 60 cells \(the lot size\)/);
+    expect(all).toMatch(/Date of receipt 2026-03-02/);
+    expect(all).toContain("drawn at random by Tomas Lindqvist with seed 2026");
+    expect(all).toMatch(/41 L-2026-021-41 R-00100 C-00070 3 061 mAh/);
+    expect(all).toContain("Lot accepted — 0 nonconforming of 13 tested is within the acceptance number 0: accept.");
+    expect(all).toMatch(/Rule Single sampling \(ISO 2859-1\): test 13 specimens; accept the lot with 0 or fewer nonconforming, reject it with 1 or more/);
+    expect(all).toMatch(/Cells judged under Simple acceptance \(ILAC-G8:09\/2019\)/);
+  });
+
+  it("states the 0.2 It statistics with Cpl and its formula, that the decision rests on the sample, and who authorised it", () => {
+    expect(all).toMatch(/Mean 3 033 mAh/);
+    expect(all).toContain("Cpl = (mean − LSL) / (3 s)");
+    expect(all).toContain("The lot decision rests on the sample");
+    expect(all).toContain("The results relate only to the cells tested");
+    expect(all).toMatch(/Approved for issue by .*Rhea Okafor/);
+    expect(all).toContain("Meaning: approved (authorised the certificate for issue)");
+    expect(all).toContain("http://localhost:3000/check/C-00077");
+  });
+
+  it("states a rejected lot as rejected, naming the nonconforming cell", async () => {
+    const rejected = squash((await renderPages(buildLotFixturePayload({ nonconforming: true }), [], "lot-rejected")).pages.join("\n"));
+    expect(rejected).toContain("Lot rejected — 1 nonconforming of 13 tested reaches the rejection number 1: reject.");
+    expect(rejected).toMatch(/does not conform — tray position 33, specimen L-2026-021-33, run R-00102/);
   });
 });

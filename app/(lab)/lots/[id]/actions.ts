@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { requireActionPermission } from "@/lib/auth/guards";
+import { issueLotCertificate } from "@/lib/certificates/issue-lot-certificate";
 import { toActionState, type ActionState } from "@/lib/forms/action-state";
 import { drawLotSample } from "@/lib/lots/draw-lot-sample";
 import { readDrawForm, readSamplingPlanForm } from "@/lib/lots/read-lot-forms";
@@ -31,5 +32,19 @@ export async function drawSampleAction(_prev: ActionState, form: FormData): Prom
     return { ok: true, message: `${positions.length} cells drawn${seed === null ? "" : ` with seed ${seed}`}.` };
   } catch (error) {
     return toActionState(error);
+  }
+}
+
+export async function issueLotCertificateAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("certificate.sign");
+    const lotId = lotIdSchema.parse(form.get("lotId"));
+    const { number } = await issueLotCertificate(user, lotId, { password: String(form.get("password") ?? "") });
+    revalidatePath(`/lots/${lotId}`);
+    revalidatePath("/certificates");
+    return { ok: true, message: `Lot certificate ${number} issued.` };
+  } catch (error) {
+    const state = toActionState(error);
+    return state.fieldErrors ? { ...state, message: `${state.message} Nothing was signed.` } : state;
   }
 }

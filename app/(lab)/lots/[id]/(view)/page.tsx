@@ -2,19 +2,23 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { LotCertificateSection } from "@/components/lots/lot-certificate-section";
 import { LotSamplingSections } from "@/components/lots/lot-sampling-sections";
 import { LotSpecimensTable } from "@/components/lots/lot-specimens-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
+import { listLotCertificates } from "@/db/certificates";
 import { getLotSampling } from "@/db/lot-sampling";
 import { getLot } from "@/db/lots";
 import { listProcedures } from "@/db/procedures";
 import { listSpecimens } from "@/db/specimens";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
+import { findSampledRunsOperatedBy } from "@/lib/certificates/lot-certificate-basis";
 import { offeredAqlColumns } from "@/lib/sampling";
+import { SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 import { formatNumber } from "@/protocols";
-import { drawSampleAction, setSamplingPlanAction } from "../actions";
+import { drawSampleAction, issueLotCertificateAction, setSamplingPlanAction } from "../actions";
 
 export const metadata: Metadata = { title: "Lot" };
 
@@ -31,6 +35,9 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
   const planner = can(user.role, "spec.manage");
   const procedures = planner && !sampling.draw ? await listProcedures(db, { releasedOnly: true }) : [];
   const full = lot.specimenCount >= lot.quantityReceived;
+  const signs = can(user.role, "certificate.sign");
+  const [lotCertificates, operatedRuns] = await Promise.all([listLotCertificates(db, lot.id), signs ? findSampledRunsOperatedBy(db, lot.id, user.id) : Promise.resolve([])]);
+  const mayIssue = signs && operatedRuns.length === 0 && !lotCertificates.some((c) => c.status === "valid");
   const row = "border-b border-rule py-1";
   return (
     <>
@@ -78,6 +85,15 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
         procedures={procedures.map((p) => ({ id: p.id, code: p.code, title: p.title }))}
         aqlLabels={offeredAqlColumns.map((c) => c.label)}
         actions={{ setPlan: setSamplingPlanAction, draw: drawSampleAction }}
+      />
+      <LotCertificateSection
+        lot={lot}
+        verdict={sampling.decision?.verdict ?? null}
+        certificates={lotCertificates}
+        signer={mayIssue ? { name: user.displayName, meaningWords: SIGNATURE_MEANING_WORDS.approved } : null}
+        operatedRuns={operatedRuns}
+        mayAmend={signs}
+        action={issueLotCertificateAction}
       />
       <section aria-labelledby="specimens-heading">
         <div className="mb-2 flex flex-wrap items-end justify-between gap-3">
