@@ -11,7 +11,6 @@ import { upsertLab } from "@/db/lab";
 import { closePool } from "@/db/pool";
 import { getRun, setRunStatus } from "@/db/runs";
 import { formatLogCsv } from "@/lib/analysis";
-import { hashPassword } from "@/lib/auth/password";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { amendCertificate, revokeCertificate } from "@/lib/certificates/amend-certificate";
 import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
@@ -35,7 +34,7 @@ import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword } from "./fixtures";
 
 // Each test database gets its own generated lab key, in a folder of this file's own.
 const signingDir = mkdtempSync(join(tmpdir(), "cellwright-signing-"));
@@ -50,24 +49,7 @@ afterAll(async () => {
 
 const PASSWORD = "correct horse battery staple";
 const TODAY = "2026-12-01";
-const MAPPING = {
-  time: { form: "elapsed", column: "Time (s)", unit: "s" },
-  voltage: { column: "Voltage (V)", unit: "V" },
-  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-  delimiter: ",",
-  decimalSeparator: ".",
-  headerLine: 1,
-};
-
-async function* chunksOf(text: string, size = 64 * 1024) {
-  const bytes = new TextEncoder().encode(text);
-  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
-}
-
-async function withPassword(user: SignedInUser): Promise<SignedInUser> {
-  await getDb().updateTable("app_user").set({ password_hash: await hashPassword(PASSWORD) }).where("id", "=", user.id).execute();
-  return user;
-}
+const withPassword = (user: SignedInUser) => setPassword(user, PASSWORD);
 
 async function setUpLab() {
   const issuer = await withPassword(await makeUser("engineer", "Ida Issuer"));

@@ -1,5 +1,6 @@
 import { getDb } from "@/db";
 import type { Role } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 
 /** Inserts a user straight into the test database and returns them as the app sees a caller. */
@@ -12,4 +13,26 @@ export async function makeUser(role: Role, name: string): Promise<SignedInUser> 
     .onConflict((oc) => oc.doNothing())
     .execute();
   return { id, email, displayName: name, role };
+}
+
+/** Sets a user's password, for tests of signing (which asks for it again). */
+export async function setPassword(user: SignedInUser, password: string): Promise<SignedInUser> {
+  await getDb().updateTable("app_user").set({ password_hash: await hashPassword(password) }).where("id", "=", user.id).execute();
+  return user;
+}
+
+/** How the synthetic logs of tests/support are written: elapsed seconds, discharge current negative. */
+export const ELAPSED_LOG_MAPPING = {
+  time: { form: "elapsed", column: "Time (s)", unit: "s" },
+  voltage: { column: "Voltage (V)", unit: "V" },
+  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
+  delimiter: ",",
+  decimalSeparator: ".",
+  headerLine: 1,
+};
+
+/** A text as the upload stream delivers it: 64 KiB chunks of UTF-8. */
+export async function* chunksOf(text: string, size = 64 * 1024) {
+  const bytes = new TextEncoder().encode(text);
+  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
 }

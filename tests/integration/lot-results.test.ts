@@ -21,19 +21,10 @@ import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { describeResults } from "@/lib/statistics";
 import { chargeRetentionTemplate, dischargeAtMinus20cTemplate, ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING } from "./fixtures";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "lot reviewer's passphrase";
-const MAPPING = {
-  time: { form: "elapsed", column: "Time (s)", unit: "s" },
-  voltage: { column: "Voltage (V)", unit: "V" },
-  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-  delimiter: ",",
-  decimalSeparator: ".",
-  headerLine: 1,
-};
-
 async function* chunksOf(text: string, size = 256 * 1024) {
   const bytes = new TextEncoder().encode(text);
   for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);

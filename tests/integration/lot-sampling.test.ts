@@ -25,7 +25,7 @@ import { createSpecimen, editSpecimen, specimenInputSchema } from "@/lib/specime
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf } from "./fixtures";
 
 // pg's pool.end() resolves before its sockets close; the file's database is dropped (with force)
 // right after, so let the server see the connections go first.
@@ -35,20 +35,6 @@ afterAll(async () => {
 });
 
 const today = readLabToday();
-const MAPPING = {
-  time: { form: "elapsed", column: "Time (s)", unit: "s" },
-  voltage: { column: "Voltage (V)", unit: "V" },
-  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-  delimiter: ",",
-  decimalSeparator: ".",
-  headerLine: 1,
-};
-
-async function* chunksOf(text: string, size = 64 * 1024) {
-  const bytes = new TextEncoder().encode(text);
-  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
-}
-
 let counter = 0;
 const next = () => ++counter;
 

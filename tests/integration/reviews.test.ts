@@ -5,7 +5,6 @@ import { listAuditEvents } from "@/db/audit";
 import { listReviewQueue, listRunReviews, listRunSignatures } from "@/db/reviews";
 import { getRun, listStepRecords } from "@/db/runs";
 import { formatLogCsv, type LogColumns } from "@/lib/analysis";
-import { hashPassword } from "@/lib/auth/password";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { listFindings, type RunEvaluation } from "@/lib/conformance";
 import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
@@ -21,28 +20,11 @@ import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword } from "./fixtures";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "reviewer's own passphrase";
-const MAPPING = {
-  time: { form: "elapsed", column: "Time (s)", unit: "s" },
-  voltage: { column: "Voltage (V)", unit: "V" },
-  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-  delimiter: ",",
-  decimalSeparator: ".",
-  headerLine: 1,
-};
-
-async function* chunksOf(text: string, size = 64 * 1024) {
-  const bytes = new TextEncoder().encode(text);
-  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
-}
-
-async function withPassword(user: SignedInUser): Promise<SignedInUser> {
-  await getDb().updateTable("app_user").set({ password_hash: await hashPassword(PASSWORD) }).where("id", "=", user.id).execute();
-  return user;
-}
+const withPassword = (user: SignedInUser) => setPassword(user, PASSWORD);
 
 let lab: { reviewer: SignedInUser; second: SignedInUser; operator: SignedInUser; versionId: string; channel: string; specId: string };
 

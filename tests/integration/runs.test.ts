@@ -17,23 +17,9 @@ import { createCellSpecification, editCellSpecification } from "@/lib/specs/cell
 import { listObjectKeys } from "@/lib/storage";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf } from "./fixtures";
 
 const TODAY = "2026-12-01";
-const MAPPING = {
-  time: { form: "elapsed", column: "Time (s)", unit: "s" },
-  voltage: { column: "Voltage (V)", unit: "V" },
-  current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-  delimiter: ",",
-  decimalSeparator: ".",
-  headerLine: 1,
-};
-
-async function* chunksOf(text: string, size = 64 * 1024) {
-  const bytes = new TextEncoder().encode(text);
-  for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
-}
-
 async function setUpLab(tag: string) {
   const engineer = await makeUser("engineer", "Eli Engineer");
   const second = await makeUser("engineer", "Sol Second");
