@@ -5,7 +5,7 @@ import type { LotDecision, SamplingPlan } from "@/lib/sampling";
 import { findReferenceGroup, groupByCurrent } from "@/lib/statistics";
 import type { CellSpecification } from "@/protocols";
 import { formatNumber } from "@/protocols/format-number";
-import { NO_EXTERNAL_PROVIDERS, REPRODUCTION, sign } from "./build-run-payload";
+import { describeCertifiedCell, NO_EXTERNAL_PROVIDERS, REPRODUCTION, sign } from "./build-run-payload";
 import {
   CERTIFICATE_PAYLOAD_FORMAT,
   type LotCertificateCell,
@@ -158,17 +158,7 @@ export function buildLotCertificatePayload(records: LotCertificateRecords): LotC
     statements: { resultsRelateToItem: LOT_RESULTS_RELATE, externalProviders: NO_EXTERNAL_PROVIDERS, reproduction: REPRODUCTION },
     approval: sign(records.approval.printedName, "approved", records.meaningWords.approved, records.approval.signedAt),
     lot,
-    cell: {
-      maker: records.cell.maker,
-      model: records.cell.model,
-      designation: records.cell.designation,
-      chemistry: cell.chemistry.label,
-      ratedCapacityMah: cell.ratedCapacityMah,
-      minimumCapacityMah: cell.minimumCapacityMah ?? null,
-      nominalVoltageV: cell.nominalVoltageV,
-      chargeVoltageV: cell.chargeVoltageV,
-      endOfDischargeVoltageV: cell.endOfDischargeVoltageV,
-    },
+    cell: describeCertifiedCell(records.cell),
     method: { acceptanceProcedure: records.acceptanceProcedure, procedures },
     samplingPlan: {
       source: plan.source,

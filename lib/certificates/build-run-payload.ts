@@ -197,6 +197,22 @@ export function sign(printedName: string, meaning: "reviewed" | "approved", mean
   return { printedName, meaning, meaningWords, signedAt: signedAt.toISOString() };
 }
 
+/** The cell as a certificate states it: identity and the datasheet values the results are read against. */
+export function describeCertifiedCell(source: { maker: string; model: string; designation: string; data: CellSpecification }) {
+  const cell = source.data;
+  return {
+    maker: source.maker,
+    model: source.model,
+    designation: source.designation,
+    chemistry: cell.chemistry.label,
+    ratedCapacityMah: cell.ratedCapacityMah,
+    minimumCapacityMah: cell.minimumCapacityMah ?? null,
+    nominalVoltageV: cell.nominalVoltageV,
+    chargeVoltageV: cell.chargeVoltageV,
+    endOfDischargeVoltageV: cell.endOfDischargeVoltageV,
+  };
+}
+
 /**
  * The payload of a run certificate from the gathered records. Pure: the same records give the same
  * payload (and hash). It does not decide whether a certificate may be issued; issue-certificate.ts does.
@@ -206,7 +222,6 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
   const findings = listEvaluationFindings(evaluation);
   const notes = new Map(records.review.acknowledged.map((a) => [a.findingId, a.note.trim()]));
   const testing = findTestingSpan(records.stepRecords);
-  const cell = records.cell.data;
   const count = (outcome: Finding["outcome"]) => findings.filter((f) => f.outcome === outcome).length;
   return {
     format: CERTIFICATE_PAYLOAD_FORMAT,
@@ -224,17 +239,7 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     item: {
       specimen: records.specimen,
       lot: records.lot,
-      cell: {
-        maker: records.cell.maker,
-        model: records.cell.model,
-        designation: records.cell.designation,
-        chemistry: cell.chemistry.label,
-        ratedCapacityMah: cell.ratedCapacityMah,
-        minimumCapacityMah: cell.minimumCapacityMah ?? null,
-        nominalVoltageV: cell.nominalVoltageV,
-        chargeVoltageV: cell.chargeVoltageV,
-        endOfDischargeVoltageV: cell.endOfDischargeVoltageV,
-      },
+      cell: describeCertifiedCell(records.cell),
     },
     sampling: records.lot
       ? `Not applicable: the specimen was tested as submitted from lot ${records.lot.identifier}; this certificate makes no statement about the lot.`
