@@ -1,6 +1,6 @@
 "use client";
 
-import { SigningFields } from "@/app/(lab)/runs/[id]/review/signing-fields";
+import { SigningFields } from "@/components/signatures/signing-fields";
 import { ActionAnswer } from "@/components/runs/step-sheet/action-answer";
 import { Button } from "@/components/ui/button";
 import { useFormAction } from "@/components/ui/use-form-action";

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
 import type { DeviationItem } from "./deviation-item";
-import { SigningFields } from "./signing-fields";
+import { SigningFields } from "@/components/signatures/signing-fields";
 
 /**
  * The reviewer's note on each deviating finding, then the signature: password again (21 CFR 11.200)

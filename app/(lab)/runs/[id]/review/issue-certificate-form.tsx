@@ -4,7 +4,7 @@ import { ActionAnswer } from "@/components/runs/step-sheet/action-answer";
 import { Button } from "@/components/ui/button";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
-import { SigningFields } from "./signing-fields";
+import { SigningFields } from "@/components/signatures/signing-fields";
 
 /** The second signature, meaning "approved": the certificate of an accepted run is issued with it. */
 export function IssueCertificateForm({
