@@ -57,7 +57,7 @@ async function recordAmendment(tx: Executor, actor: SignedInUser, produced: Prod
 /** A lot certificate's amendment: made from the lot's sample and decision as they are now. */
 async function amendLotCertificate(actor: SignedInUser, old: CertificateRecord & { lotId: string }, input: { password: string; reason: string }): Promise<{ number: string }> {
   const basis = await gatherLotCertificateBasis(actor, old.lotId, { replacing: old.number });
-  await confirmSignerPassword(actor, input.password, `amendment of certificate ${old.number}`);
+  await confirmSignerPassword(actor, input.password, `amendment of certificate ${old.number}`, { entityType: "certificate", entityId: old.id });
   const produced = await produceLotCertificate({ actor, basis, replaces: { number: old.number, reason: input.reason } });
   await issueProducedCertificate(
     actor,
@@ -90,7 +90,7 @@ export async function amendCertificate(actor: SignedInUser, number: string, inpu
   if (old.lotId) return amendLotCertificate(actor, { ...old, lotId: old.lotId }, { password: input.password, reason });
   if (!old.runId) throw new DomainError("invalid", `Certificate ${number} names neither a run nor a lot.`);
   const { basis, curves } = await gatherRunCertificateBasis(actor, old.runId, "certified");
-  await confirmSignerPassword(actor, input.password, `amendment of certificate ${number}`);
+  await confirmSignerPassword(actor, input.password, `amendment of certificate ${number}`, { entityType: "certificate", entityId: old.id });
   const produced = await produceRunCertificate({ actor, basis, curves, replaces: { number, reason } });
   await issueProducedCertificate(
     actor,
@@ -128,7 +128,7 @@ export async function revokeCertificate(actor: SignedInUser, number: string, inp
     const operated = await findSampledRunsOperatedBy(getDb(), certificate.lotId, actor.id);
     if (operated.length > 0) throw new DomainError("forbidden", `You operated run ${operated.join(", ")}, counted in the sample of this lot; someone else must revoke its certificate.`);
   }
-  await confirmSignerPassword(actor, input.password, `revocation of certificate ${number}`);
+  await confirmSignerPassword(actor, input.password, `revocation of certificate ${number}`, { entityType: "certificate", entityId: certificate.id });
   await getDb()
     .transaction()
     .execute(async (tx) => {

@@ -47,7 +47,7 @@ export async function queueCertificateNotice(tx: Executor, actor: SignedInUser, 
 export async function issueRunCertificate(actor: SignedInUser, runId: string, input: { password: string }): Promise<{ number: string }> {
   assertMaySignCertificates(actor);
   const { basis, curves } = await gatherRunCertificateBasis(actor, runId, "accepted");
-  await confirmSignerPassword(actor, input.password, `certificate of run ${basis.runView.number}`);
+  await confirmSignerPassword(actor, input.password, `certificate of run ${basis.runView.number}`, { entityType: "run", entityId: runId });
   const produced = await produceRunCertificate({ actor, basis, curves, replaces: null });
   await issueProducedCertificate(
     actor,

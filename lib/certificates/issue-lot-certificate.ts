@@ -18,7 +18,7 @@ import { issueProducedCertificate, produceLotCertificate } from "./produce-certi
 export async function issueLotCertificate(actor: SignedInUser, lotId: string, input: { password: string }): Promise<{ number: string }> {
   assertMaySignCertificates(actor);
   const basis = await gatherLotCertificateBasis(actor, lotId);
-  await confirmSignerPassword(actor, input.password, `certificate of lot ${basis.lotIdentifier}`);
+  await confirmSignerPassword(actor, input.password, `certificate of lot ${basis.lotIdentifier}`, { entityType: "lot", entityId: lotId });
   const produced = await produceLotCertificate({ actor, basis, replaces: null });
   const decision = produced.payload.lotDecision;
   await issueProducedCertificate(

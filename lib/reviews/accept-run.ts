@@ -49,7 +49,7 @@ export async function acceptRun(actor: SignedInUser, runId: string, input: Accep
   const parsed = acceptRunInputSchema.parse(input);
   // Plain refusals first, so a reviewer who may not sign hears why before being asked for a password.
   const pre = await checkAcceptable(getDb(), actor, runId, parsed, false);
-  await confirmSignerPassword(actor, parsed.password, `acceptance of run ${pre.run.number} (meaning: reviewed)`);
+  await confirmSignerPassword(actor, parsed.password, `acceptance of run ${pre.run.number} (meaning: reviewed)`, { entityType: "run", entityId: runId });
   return getDb().transaction().execute(async (tx) => {
     const { run, stored, evaluation, acknowledged } = await checkAcceptable(tx, actor, runId, { ...parsed, evaluationId: parsed.evaluationId ?? pre.stored.id }, true);
     const recordSha256 = hashReviewedRecord({ runId, evaluationId: stored.id, evaluation });

@@ -22,9 +22,15 @@ export const SIGNATURE_MEANING_WORDS: Record<SignatureMeaning, string> = {
 
 /**
  * The second component of a signature (21 CFR 11.200: identity and password). Call it before the
- * transaction that signs; a wrong password is written to the audit trail on its own and nothing is signed.
+ * transaction that signs; a wrong password is written to the audit trail on its own (on the record it was
+ * meant for, so the record's history shows it) and nothing is signed.
  */
-export async function confirmSignerPassword(signer: SignedInUser, password: string, what: string): Promise<void> {
+export async function confirmSignerPassword(
+  signer: SignedInUser,
+  password: string,
+  what: string,
+  record?: { entityType: "run" | "lot" | "certificate"; entityId: string },
+): Promise<void> {
   const credentials = await getUserCredentials(getDb(), signer.email);
   const ok = credentials !== null && credentials.active && credentials.id === signer.id && (await verifyPassword(credentials.passwordHash, password));
   if (ok) return;
@@ -32,6 +38,7 @@ export async function confirmSignerPassword(signer: SignedInUser, password: stri
     actorId: signer.id,
     actorLabel: `${signer.displayName} <${signer.email}>`,
     action: "signature.refused",
+    ...(record && { entityType: record.entityType, entityId: record.entityId }),
     detail: { what, reason: "wrong password" },
   });
   throw new DomainError("invalid", "That password is not right. Nothing was signed.");

@@ -199,8 +199,9 @@ describe("review of submitted runs", () => {
     await expect(acceptRun(lab.reviewer, run.id, { password: "not my password", acknowledgements: [] })).rejects.toThrow(/password is not right\. Nothing was signed/);
     const refusals = await listAuditEvents(getDb(), { action: "signature.refused" });
     expect(refusals).toHaveLength(refusalsBefore + 1);
-    expect(refusals[0]).toMatchObject({ actorLabel: expect.stringContaining("Rhea Reviewer"), detail: { reason: "wrong password", what: expect.stringContaining(run.number) } });
-    expect(await reviewTrace(run.id)).toEqual(before);
+    // The refusal is written on the run, so the run's history shows it; nothing else changes.
+    expect(refusals[0]).toMatchObject({ actorLabel: expect.stringContaining("Rhea Reviewer"), entityType: "run", entityId: run.id, detail: { reason: "wrong password", what: expect.stringContaining(run.number) } });
+    expect(await reviewTrace(run.id)).toEqual({ ...before, audit: before.audit + 1 });
   });
 
   it("accepts with the reviewer's signature, linked to the evaluation reviewed, once only", async () => {
