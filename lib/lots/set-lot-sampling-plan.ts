@@ -14,7 +14,7 @@ const label = (u: SignedInUser) => `${u.displayName} <${u.email}>`;
 
 /** Setting a lot's plan and drawing its sample are the quality engineer's work. */
 export function refuseUnlessEngineer(actor: SignedInUser, what: string): void {
-  if (!can(actor.role, "spec.manage")) throw new DomainError("forbidden", `Only a quality engineer ${what}.`);
+  if (!can(actor.role, "lot.sample")) throw new DomainError("forbidden", `Only a quality engineer ${what}.`);
 }
 
 /** The plan in the audit trail: the choice and what the tables made of it. */

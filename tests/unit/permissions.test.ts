@@ -15,6 +15,7 @@ const GRANTED: Record<Permission, Role[]> = {
   "spec.read": ["admin", "engineer", "operator", "auditor"],
   "spec.manage": ["engineer"],
   "specimen.manage": ["engineer", "operator"],
+  "lot.sample": ["engineer"],
   "run.read": ["admin", "engineer", "operator", "auditor"],
   "run.operate": ["operator"],
   "run.review": ["engineer"],

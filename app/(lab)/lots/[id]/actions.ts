@@ -13,7 +13,7 @@ const lotIdSchema = z.uuid({ error: "No such lot." });
 
 export async function setSamplingPlanAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   try {
-    const user = await requireActionPermission("spec.manage");
+    const user = await requireActionPermission("lot.sample");
     const lotId = lotIdSchema.parse(form.get("lotId"));
     const plan = await setLotSamplingPlan(user, lotId, readSamplingPlanForm(form));
     revalidatePath(`/lots/${lotId}`);
@@ -25,7 +25,7 @@ export async function setSamplingPlanAction(_prev: ActionState, form: FormData):
 
 export async function drawSampleAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   try {
-    const user = await requireActionPermission("spec.manage");
+    const user = await requireActionPermission("lot.sample");
     const lotId = lotIdSchema.parse(form.get("lotId"));
     const { positions, seed } = await drawLotSample(user, lotId, readDrawForm(form));
     revalidatePath(`/lots/${lotId}`);

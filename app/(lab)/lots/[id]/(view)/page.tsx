@@ -32,7 +32,7 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
   const [lot, specimens, sampling] = await Promise.all([getLot(db, id.data), listSpecimens(db, { lotId: id.data }), getLotSampling(db, id.data)]);
   if (!lot || !sampling) notFound();
   const manage = can(user.role, "specimen.manage");
-  const planner = can(user.role, "spec.manage");
+  const planner = can(user.role, "lot.sample");
   const procedures = planner && !sampling.draw ? await listProcedures(db, { releasedOnly: true }) : [];
   const full = lot.specimenCount >= lot.quantityReceived;
   const signs = can(user.role, "certificate.sign");
