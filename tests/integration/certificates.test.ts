@@ -23,8 +23,6 @@ import { gatherRunCertificateBasis } from "@/lib/certificates/run-certificate-ba
 import { createSelfSignedP12 } from "@/lib/certificates/self-signed-p12";
 import { signPdf } from "@/lib/certificates/sign-pdf";
 import { listFindings, type RunEvaluation } from "@/lib/conformance";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
-import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
@@ -32,9 +30,8 @@ import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
-import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 
 // Each test database gets its own generated lab key, in a folder of this file's own.
 const signingDir = mkdtempSync(join(tmpdir(), "cellwright-signing-"));
@@ -58,11 +55,7 @@ async function setUpLab() {
   const auditor = await makeUser("auditor", "Aud Auditor");
   await upsertLab(getDb(), { name: "Harbourside Cell Test Laboratory", address: "Unit 4, 17 Ropewalk Lane, Portmere", accreditation: null });
   const specId = await createCellSpecification(issuer, { maker: "Testmoor Cells", model: "TM-CERT", data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = "T-CERT";
-  const { versionId } = await createProcedure(issuer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(issuer, versionId);
-  await releaseVersion(reviewer, versionId);
+  const { versionId } = await releaseRatedCapacityProcedure(issuer, reviewer, "T-CERT");
   const register = async (kind: "cycler-channel" | "thermometer", identifier: string, accuracy: object) =>
     (
       await getDb()

@@ -1,6 +1,9 @@
 import { getDb } from "@/db";
 import type { Role } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
+import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
+import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
+import { ratedCapacityAt20cTemplate, type Procedure } from "@/protocols";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 
 /** Inserts a user straight into the test database and returns them as the app sees a caller. */
@@ -35,4 +38,23 @@ export const ELAPSED_LOG_MAPPING = {
 export async function* chunksOf(text: string, size = 64 * 1024) {
   const bytes = new TextEncoder().encode(text);
   for (let i = 0; i < bytes.length; i += size) yield bytes.subarray(i, i + size);
+}
+
+/**
+ * The rated-capacity template released under its own code: drafted and submitted by one engineer,
+ * released by a second (the rule the database enforces). Optionally under another decision rule.
+ */
+export async function releaseRatedCapacityProcedure(
+  author: SignedInUser,
+  releaser: SignedInUser,
+  code: string,
+  decisionRule?: Procedure["decisionRule"],
+): Promise<{ procedureId: string; versionId: string }> {
+  const definition = structuredClone(ratedCapacityAt20cTemplate);
+  definition.header.code = code;
+  if (decisionRule) definition.decisionRule = decisionRule;
+  const { procedureId, versionId } = await createProcedure(author, procedureDraftSchema.parse({ definition }));
+  await submitForReview(author, versionId);
+  await releaseVersion(releaser, versionId);
+  return { procedureId, versionId };
 }

@@ -21,8 +21,6 @@ import { buildEvidenceBundle } from "@/lib/evidence/evidence-bundle";
 import { addDays } from "@/lib/instruments/calendar-date";
 import { readLabToday } from "@/lib/instruments/lab-today";
 import { drawLotSample, setLotSamplingPlan } from "@/lib/lots";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
-import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
@@ -32,9 +30,8 @@ import { createLot, lotInputSchema } from "@/lib/specimens/lots";
 import { createSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
-import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 
 // Each test database gets its own generated lab key, in a folder of this file's own.
 const signingDir = mkdtempSync(join(tmpdir(), "cellwright-signing-"));
@@ -59,11 +56,7 @@ async function setUpLab() {
   const auditor = await makeUser("auditor", "Aud Auditor");
   await upsertLab(getDb(), { name: "Harbourside Cell Test Laboratory", address: "Unit 4, 17 Ropewalk Lane, Portmere", accreditation: null });
   const specId = await createCellSpecification(issuer, { maker: "Testmoor Cells", model: "TM-LOTC", data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = "T-LOTC";
-  const { procedureId, versionId } = await createProcedure(issuer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(issuer, versionId);
-  await releaseVersion(reviewer, versionId);
+  const { procedureId, versionId } = await releaseRatedCapacityProcedure(issuer, reviewer, "T-LOTC");
   const channel = (
     await getDb()
       .insertInto("instrument")

@@ -9,8 +9,6 @@ import type { RunEvaluation } from "@/lib/conformance";
 import { classifyDischarge } from "@/lib/lot-results/capacity-discharge";
 import { EXPORT_COLUMNS, formatResultsCsv, listExportedResults } from "@/lib/lot-results/export-results";
 import { readLotResults } from "@/lib/lot-results/read-results";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
-import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { acceptRun } from "@/lib/reviews/accept-run";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
@@ -19,9 +17,9 @@ import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { describeResults } from "@/lib/statistics";
-import { chargeRetentionTemplate, dischargeAtMinus20cTemplate, ratedCapacityAt20cTemplate } from "@/protocols";
+import { chargeRetentionTemplate, dischargeAtMinus20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "lot reviewer's passphrase";
@@ -72,11 +70,7 @@ beforeAll(async () => {
   const second = await makeUser("engineer", "Sam Second");
   const operator = await makeUser("operator", "Omar Operator");
   const specId = await createCellSpecification(reviewer, { maker: "Testmoor Cells", model: "TM-LOT", data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = "T-LOTRES";
-  const { versionId } = await createProcedure(reviewer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(reviewer, versionId);
-  await releaseVersion(second, versionId);
+  const { versionId } = await releaseRatedCapacityProcedure(reviewer, second, "T-LOTRES");
   const channel = (
     await getDb()
       .insertInto("instrument")

@@ -12,7 +12,7 @@ import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
 import { addDays } from "@/lib/instruments/calendar-date";
 import { readLabToday } from "@/lib/instruments/lab-today";
 import { computeSamplingPlan, drawLotSample, setLotSamplingPlan } from "@/lib/lots";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
+import { createProcedure } from "@/lib/procedures/lifecycle";
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
@@ -25,7 +25,7 @@ import { createSpecimen, editSpecimen, specimenInputSchema } from "@/lib/specime
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
 
 // pg's pool.end() resolves before its sockets close; the file's database is dropped (with force)
 // right after, so let the server see the connections go first.
@@ -38,25 +38,15 @@ const today = readLabToday();
 let counter = 0;
 const next = () => ++counter;
 
-async function releaseProcedure(code: string, decisionRule: "simple acceptance" | "guarded acceptance", author: Awaited<ReturnType<typeof makeUser>>, releaser: Awaited<ReturnType<typeof makeUser>>) {
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = code;
-  definition.decisionRule = decisionRule;
-  const { procedureId, versionId } = await createProcedure(author, procedureDraftSchema.parse({ definition }));
-  await submitForReview(author, versionId);
-  await releaseVersion(releaser, versionId);
-  return { procedureId, versionId };
-}
-
 async function setUpLab() {
   const engineer = await makeUser("engineer", "Eli Engineer");
   const reviewer = await makeUser("engineer", "Rex Reviewer");
   const operator = await makeUser("operator", "Oda Operator");
   const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: "TM-LOT", data: inventedCell });
-  const rated = await releaseProcedure("T-LOT-RC", "simple acceptance", engineer, reviewer);
+  const rated = await releaseRatedCapacityProcedure(engineer, reviewer, "T-LOT-RC", "simple acceptance");
   // Guarded acceptance needs the expanded uncertainty; the channel below has no accuracy, so no
   // budget is made and every run of this procedure ends "not decided" (lib/conformance/evaluate-acceptance.ts).
-  const guarded = await releaseProcedure("T-LOT-GD", "guarded acceptance", engineer, reviewer);
+  const guarded = await releaseRatedCapacityProcedure(engineer, reviewer, "T-LOT-GD", "guarded acceptance");
   const draft = await createProcedure(engineer, procedureDraftSchema.parse({ definition: { ...structuredClone(ratedCapacityAt20cTemplate), header: { ...ratedCapacityAt20cTemplate.header, code: "T-LOT-DRAFT" } } }));
   const channel = (
     await getDb()

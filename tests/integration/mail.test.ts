@@ -7,8 +7,6 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { getRun } from "@/db/runs";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
-import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { queueCalibrationReminders } from "@/lib/mail/calibration-reminders";
 import { startMailDispatchLoop, stopMailDispatchLoop, waitForMailDispatch } from "@/lib/mail/dispatch";
 import { enqueueMail } from "@/lib/mail/enqueue-mail";
@@ -18,9 +16,8 @@ import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser } from "./fixtures";
+import { makeUser, releaseRatedCapacityProcedure } from "./fixtures";
 
 interface CaughtMail {
   id: string;
@@ -172,11 +169,7 @@ async function planTickedRun() {
   const second = await makeUser("engineer", "Sol Second");
   const operator = await makeUser("operator", "Oda Operator");
   const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: "TM-MAIL", data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = "T-MAIL";
-  const { versionId } = await createProcedure(engineer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(engineer, versionId);
-  await releaseVersion(second, versionId);
+  const { versionId } = await releaseRatedCapacityProcedure(engineer, second, "T-MAIL");
   const channel = (
     await getDb()
       .insertInto("instrument")

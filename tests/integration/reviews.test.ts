@@ -7,8 +7,6 @@ import { getRun, listStepRecords } from "@/db/runs";
 import { formatLogCsv, type LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { listFindings, type RunEvaluation } from "@/lib/conformance";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
-import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { acceptRun } from "@/lib/reviews/accept-run";
 import { returnRun } from "@/lib/reviews/return-run";
 import { hashReviewedRecord } from "@/lib/reviews/reviewed-record";
@@ -18,9 +16,8 @@ import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "reviewer's own passphrase";
@@ -33,11 +30,7 @@ beforeAll(async () => {
   const second = await withPassword(await makeUser("engineer", "Sol Second"));
   const operator = await withPassword(await makeUser("operator", "Oda Operator"));
   const specId = await createCellSpecification(reviewer, { maker: "Testmoor Cells", model: "TM-REV", data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = "T-REVIEW";
-  const { versionId } = await createProcedure(reviewer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(reviewer, versionId);
-  await releaseVersion(second, versionId);
+  const { versionId } = await releaseRatedCapacityProcedure(reviewer, second, "T-REVIEW");
   const channel = (
     await getDb()
       .insertInto("instrument")

@@ -4,7 +4,7 @@ import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { getRun } from "@/db/runs";
 import { formatLogCsv } from "@/lib/analysis";
-import { createProcedure, releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
+import { releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { readRunCapacitySeries, readRunTimeSeries } from "@/lib/runs/read-run-series";
@@ -17,7 +17,7 @@ import { createCellSpecification, editCellSpecification } from "@/lib/specs/cell
 import { listObjectKeys } from "@/lib/storage";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";
 async function setUpLab(tag: string) {
@@ -25,11 +25,7 @@ async function setUpLab(tag: string) {
   const second = await makeUser("engineer", "Sol Second");
   const operator = await makeUser("operator", "Oda Operator");
   const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: `TM-${tag}`, data: inventedCell });
-  const definition = structuredClone(ratedCapacityAt20cTemplate);
-  definition.header.code = `T-RUN-${tag}`;
-  const { versionId } = await createProcedure(engineer, procedureDraftSchema.parse({ definition }));
-  await submitForReview(engineer, versionId);
-  await releaseVersion(second, versionId);
+  const { versionId } = await releaseRatedCapacityProcedure(engineer, second, `T-RUN-${tag}`);
   const instrument = async (identifier: string, dueOn: string, accuracy: object = {}) =>
     (
       await getDb()
