@@ -4,7 +4,7 @@
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
 cd "$ROOT"
-PORT="${PORT:-3000}"
+PORT="${PORT:-$((3000 + SHIFT))}"
 
 ensure_dependencies
 bash scripts/db.sh start demo

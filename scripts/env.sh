@@ -2,12 +2,16 @@
 # Two clusters so `npm test` never touches demo data: "demo" on 54329, "test" on 54339.
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 export NEXT_TELEMETRY_DISABLED=1
+# CW_PORT_SHIFT moves every local port (databases, fakes, browser-test app) by the same amount, so two
+# clones on one machine can run their tests side by side. Default 0: the ports in DEVELOPERS.md.
+SHIFT="${CW_PORT_SHIFT:-0}"
+export E2E_PORT="${E2E_PORT:-$((3100 + SHIFT))}"
 
 cw_profile() {
   case "${1:-demo}" in
-    demo) PG_PORT=54329; PG_DATA="$ROOT/.data/pg"; PG_SOCK="$ROOT/.data/pgsock"; PG_DB=cellwright ;;
-    test) PG_PORT=54339; PG_DATA="$ROOT/.data/pg-test"; PG_SOCK="$ROOT/.data/pgsock-test"; PG_DB=cellwright_test ;;
-    bench) PG_PORT=54349; PG_DATA="$ROOT/.data/pg-bench"; PG_SOCK="$ROOT/.data/pgsock-bench"; PG_DB=cellwright_bench ;;
+    demo) PG_PORT=$((54329 + SHIFT)); PG_DATA="$ROOT/.data/pg"; PG_SOCK="$ROOT/.data/pgsock"; PG_DB=cellwright ;;
+    test) PG_PORT=$((54339 + SHIFT)); PG_DATA="$ROOT/.data/pg-test"; PG_SOCK="$ROOT/.data/pgsock-test"; PG_DB=cellwright_test ;;
+    bench) PG_PORT=$((54349 + SHIFT)); PG_DATA="$ROOT/.data/pg-bench"; PG_SOCK="$ROOT/.data/pgsock-bench"; PG_DB=cellwright_bench ;;
     *) echo "unknown profile: $1 (demo|test|bench)" >&2; return 2 ;;
   esac
   export PG_PORT PG_DATA PG_SOCK PG_DB
@@ -37,8 +41,8 @@ apt_install() {
 # The local S3-compatible store: one per profile, started in the background, pid under .data/.
 s3_profile() {
   case "${1:-demo}" in
-    demo) S3_PORT=54340; S3_DIR="$ROOT/.data/s3" ;;
-    test) S3_PORT=54341; S3_DIR="$ROOT/.data/s3-test" ;;
+    demo) S3_PORT=$((54340 + SHIFT)); S3_DIR="$ROOT/.data/s3" ;;
+    test) S3_PORT=$((54341 + SHIFT)); S3_DIR="$ROOT/.data/s3-test" ;;
   esac
   export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET=cellwright S3_REGION=us-east-1
   export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
@@ -65,8 +69,8 @@ start_s3_fake() {
 # and the admin's e-mail page. A real lab sets SMTP_HOST (and SMTP_PORT, MAIL_FROM) to its own server.
 mail_profile() {
   case "${1:-demo}" in
-    demo) MAIL_SMTP_PORT=54342; MAIL_HTTP_PORT=54344 ;;
-    test) MAIL_SMTP_PORT=54343; MAIL_HTTP_PORT=54345 ;;
+    demo) MAIL_SMTP_PORT=$((54342 + SHIFT)); MAIL_HTTP_PORT=$((54344 + SHIFT)) ;;
+    test) MAIL_SMTP_PORT=$((54343 + SHIFT)); MAIL_HTTP_PORT=$((54345 + SHIFT)) ;;
     *) echo "unknown mail profile: $1 (demo|test)" >&2; return 2 ;;
   esac
   MAIL_DIR="$ROOT/.data/mail-${1:-demo}"
