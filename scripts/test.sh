@@ -13,6 +13,8 @@ if [ ! -x /usr/bin/chromium ]; then log "installing Debian's chromium for browse
 if ! command -v pdfsig >/dev/null; then log "installing Debian's poppler-utils (pdfsig)"; apt_install poppler-utils; fi
 
 bash scripts/db.sh start test
+# The same scripts from a clone the postgres user cannot enter (root's home): a quick start, sign-in, stop.
+bash scripts/check-private-clone.sh
 start_s3_fake test
 start_mail_catcher test
 # Leave nothing running behind: the test cluster, the S3 fake and the mail catcher stop when the tests end.
