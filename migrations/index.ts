@@ -7,6 +7,7 @@ import * as m0005 from "./0005_review_certificates_mail";
 import * as m0006 from "./0006_lot_sampling";
 import * as m0007 from "./0007_app_role_grants";
 import * as m0008 from "./0008_certified_chain_frozen";
+import * as m0009 from "./0009_guards_resolve_public_tables";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -21,4 +22,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0006_lot_sampling": m0006,
   "0007_app_role_grants": m0007,
   "0008_certified_chain_frozen": m0008,
+  "0009_guards_resolve_public_tables": m0009,
 };

@@ -132,6 +132,32 @@ describe("the app's database role", () => {
     await expect(sql`set role cellwright_owner`.execute(db)).rejects.toThrow(/permission denied/);
     await expect(sql`set role postgres`.execute(db)).rejects.toThrow(/permission denied/);
     await expect(sql`create table smuggled (id int)`.execute(db)).rejects.toThrow(/permission denied/);
+    await expect(sql`create temporary table run (id uuid, number text, status text)`.execute(db)).rejects.toThrow(/permission denied/);
+  });
+
+  it("cannot make a guard read a table of its own: the guards resolve names in public before pg_temp", async () => {
+    // The guards of migrations 0001–0008 (0009 pins them); a later migration's function sets its own search_path.
+    const guards = [
+      "audit_event_refuse_change",
+      "procedure_version_guard",
+      "specimen_matches_lot",
+      "lot_keeps_specimens_matching",
+      "run_guard",
+      "electronic_signature_guard",
+      "run_review_guard",
+      "certificate_guard",
+      "lot_sample_draw_guard",
+      "run_is_frozen",
+      "run_evidence_guard",
+      "run_log_chunk_guard",
+      "stored_file_guard",
+      "run_status_guard",
+      "refuse_truncate",
+    ];
+    const pinned = await sql<{ name: string }>`
+      select p.proname as name from pg_proc p
+       where p.pronamespace = 'public'::regnamespace and 'search_path=public, pg_temp' = any(p.proconfig)`.execute(getDb());
+    expect(pinned.rows.map((r) => r.name)).toEqual(expect.arrayContaining(guards));
   });
 
   it("holds no TRUNCATE, TRIGGER or REFERENCES right on any table, and none at all on the migration records", async () => {

@@ -8,7 +8,11 @@ import { adminUrl, TEMPLATE_DB, testDatabaseUrls, withAdminClient } from "../sup
 // the app may not do (withOwnerClient).
 const { admin: base, owner, app } = testDatabaseUrls();
 const name = `cellwright_it_${randomBytes(4).toString("hex")}`;
-await withAdminClient(base, (c) => c.query(`create database ${name} template ${TEMPLATE_DB} owner cellwright_owner`));
+await withAdminClient(base, async (c) => {
+  await c.query(`create database ${name} template ${TEMPLATE_DB} owner cellwright_owner`);
+  // A copy does not inherit the template's database rights: as migration 0009 does, no temporary tables.
+  await c.query(`revoke temporary on database ${name} from public`);
+});
 process.env.DATABASE_URL = adminUrl(app, name);
 process.env.OWNER_DATABASE_URL = adminUrl(owner, name);
 
