@@ -5,6 +5,9 @@ import * as m0003 from "./0003_specimens_instruments";
 import * as m0004 from "./0004_runs";
 import * as m0005 from "./0005_review_certificates_mail";
 import * as m0006 from "./0006_lot_sampling";
+import * as m0007 from "./0007_app_role_grants";
+import * as m0008 from "./0008_certified_chain_frozen";
+import * as m0009 from "./0009_guards_resolve_public_tables";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -17,4 +20,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0004_runs": m0004,
   "0005_review_certificates_mail": m0005,
   "0006_lot_sampling": m0006,
+  "0007_app_role_grants": m0007,
+  "0008_certified_chain_frozen": m0008,
+  "0009_guards_resolve_public_tables": m0009,
 };

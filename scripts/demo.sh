@@ -13,7 +13,8 @@ start_mail_catcher demo
 cw_profile demo
 # Links in e-mails and on certificates point at this app.
 export CELLWRIGHT_PUBLIC_URL="${CELLWRIGHT_PUBLIC_URL:-http://localhost:$PORT}"
-log "migrating"; npx tsx scripts/migrate.ts
+# Migrations run as the owner role; the seed and the app as the app role (docs/deployment-database.md).
+log "migrating"; DATABASE_URL="$OWNER_DATABASE_URL" npx tsx scripts/migrate.ts
 log "seeding the demo lab"; npx tsx --import ./scripts/allow-server-only.mjs scripts/seed.ts
 
 # A previous demo still running would hold the port: stop its whole process group.

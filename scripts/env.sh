@@ -8,15 +8,65 @@ SHIFT="${CW_PORT_SHIFT:-0}"
 export E2E_PORT="${E2E_PORT:-$((3100 + SHIFT))}"
 
 cw_profile() {
+  local data sock
   case "${1:-demo}" in
-    demo) PG_PORT=$((54329 + SHIFT)); PG_DATA="$ROOT/.data/pg"; PG_SOCK="$ROOT/.data/pgsock"; PG_DB=cellwright ;;
-    test) PG_PORT=$((54339 + SHIFT)); PG_DATA="$ROOT/.data/pg-test"; PG_SOCK="$ROOT/.data/pgsock-test"; PG_DB=cellwright_test ;;
-    bench) PG_PORT=$((54349 + SHIFT)); PG_DATA="$ROOT/.data/pg-bench"; PG_SOCK="$ROOT/.data/pgsock-bench"; PG_DB=cellwright_bench ;;
+    demo) PG_PORT=$((54329 + SHIFT)); data=pg; sock=pgsock; PG_DB=cellwright ;;
+    test) PG_PORT=$((54339 + SHIFT)); data=pg-test; sock=pgsock-test; PG_DB=cellwright_test ;;
+    bench) PG_PORT=$((54349 + SHIFT)); data=pg-bench; sock=pgsock-bench; PG_DB=cellwright_bench ;;
     *) echo "unknown profile: $1 (demo|test|bench)" >&2; return 2 ;;
   esac
+  # As root the server runs as Debian's postgres user, who may not be able to reach the clone (a clone in
+  # /root, mode 700): the cluster and its socket then live in a folder that user owns, one per clone path.
+  # A cluster made earlier under .data/ stays where it is.
+  if [ "$(id -u)" = 0 ] && [ ! -f "$ROOT/.data/$data/PG_VERSION" ]; then
+    local home; home="/var/lib/postgresql/cellwright/$(printf %s "$ROOT" | sha256sum | cut -c1-16)/${1:-demo}"
+    PG_DATA="$home/data"; PG_SOCK="$home/sock"
+  else
+    PG_DATA="$ROOT/.data/$data"; PG_SOCK="$ROOT/.data/$sock"
+  fi
   export PG_PORT PG_DATA PG_SOCK PG_DB
-  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/$PG_DB"
+  cw_db_roles
+  # The app signs in as cellwright_app (no superuser, owns nothing); migrations as cellwright_owner;
+  # scripts that create databases or roles as postgres. docs/deployment-database.md says who may do what.
+  export DATABASE_URL="postgres://cellwright_app:$(cw_urlencode "$DB_APP_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
+  export OWNER_DATABASE_URL="postgres://cellwright_owner:$(cw_urlencode "$DB_OWNER_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
+  export ADMIN_DATABASE_URL="postgres://postgres:$(cw_urlencode "$DB_SUPERUSER_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
 }
+
+# The three database roles' passwords: configured secrets (CELLWRIGHT_DB_SUPERUSER_PASSWORD,
+# CELLWRIGHT_DB_OWNER_PASSWORD, CELLWRIGHT_DB_APP_PASSWORD) or generated once into .data/secrets (mode 600).
+# PGPASSFILE lets psql and pg_dump sign in as any of them without a password on the command line.
+cw_db_roles() {
+  local dir="$ROOT/.data/secrets"
+  (umask 077; mkdir -p "$dir")
+  DB_SUPERUSER_PASSWORD=$(cw_secret postgres "${CELLWRIGHT_DB_SUPERUSER_PASSWORD:-}")
+  DB_OWNER_PASSWORD=$(cw_secret owner "${CELLWRIGHT_DB_OWNER_PASSWORD:-}")
+  DB_APP_PASSWORD=$(cw_secret app "${CELLWRIGHT_DB_APP_PASSWORD:-}")
+  (umask 077; {
+    printf '127.0.0.1:*:*:postgres:%s\n' "$(cw_pgpass_escape "$DB_SUPERUSER_PASSWORD")"
+    printf '127.0.0.1:*:*:cellwright_owner:%s\n' "$(cw_pgpass_escape "$DB_OWNER_PASSWORD")"
+    printf '127.0.0.1:*:*:cellwright_app:%s\n' "$(cw_pgpass_escape "$DB_APP_PASSWORD")"
+  } >"$dir/pgpass")
+  export PGPASSFILE="$dir/pgpass"
+}
+
+cw_secret() {
+  if [ -n "$2" ]; then printf %s "$2"; return; fi
+  local file="$ROOT/.data/secrets/$1.password"
+  [ -s "$file" ] || (umask 077; head -c 24 /dev/urandom | od -An -tx1 | tr -d ' \n' >"$file")
+  cat "$file"
+}
+
+cw_urlencode() {
+  local LC_ALL=C s="$1" out="" c i
+  for ((i = 0; i < ${#s}; i++)); do
+    c="${s:i:1}"
+    case "$c" in [a-zA-Z0-9._~-]) out+="$c" ;; *) printf -v c '%%%02X' "'$c"; out+="$c" ;; esac
+  done
+  printf %s "$out"
+}
+
+cw_pgpass_escape() { local s="${1//\\/\\\\}"; printf %s "${s//:/\\:}"; }
 
 log() { printf '\033[1m» %s\033[0m\n' "$*"; }
 

@@ -13,6 +13,8 @@ if [ ! -x /usr/bin/chromium ]; then log "installing Debian's chromium for browse
 if ! command -v pdfsig >/dev/null; then log "installing Debian's poppler-utils (pdfsig)"; apt_install poppler-utils; fi
 
 bash scripts/db.sh start test
+# The same scripts from a clone the postgres user cannot enter (root's home): a quick start, sign-in, stop.
+bash scripts/check-private-clone.sh
 start_s3_fake test
 start_mail_catcher test
 # Leave nothing running behind: the test cluster, the S3 fake and the mail catcher stop when the tests end.
@@ -21,9 +23,11 @@ trap 'bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true' EXIT
 curl -fsS -X DELETE "$MAIL_CATCHER_URL/messages" >/dev/null
 cw_profile test
 export CELLWRIGHT_PUBLIC_URL="http://localhost:${E2E_PORT:-3100}"
-export TEST_DATABASE_URL="$DATABASE_URL"
-export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/cellwright_e2e"
-unset DATABASE_URL
+# Integration tests: the superuser makes each file's database, the owner role migrates, the code under
+# test connects as the app role. The browser tests' app connects as the app role too.
+export TEST_DATABASE_URL="$ADMIN_DATABASE_URL" TEST_OWNER_DATABASE_URL="$OWNER_DATABASE_URL" TEST_APP_DATABASE_URL="$DATABASE_URL"
+export E2E_DATABASE_URL="${DATABASE_URL%/*}/cellwright_e2e" E2E_OWNER_DATABASE_URL="${OWNER_DATABASE_URL%/*}/cellwright_e2e"
+unset DATABASE_URL OWNER_DATABASE_URL
 # Playwright empties test-results/ when it starts, so reports go to their own folder.
 rm -rf test-reports; mkdir -p test-reports
 
@@ -37,8 +41,8 @@ log "integration tests (PostgreSQL on 127.0.0.1:$PG_PORT)"
 npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-reports/vitest-integration.json
 
 log "browser tests: fresh e2e database, production build, Chromium"
-psql "postgres://postgres@127.0.0.1:$PG_PORT/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e"
-DATABASE_URL="$E2E_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
+psql "${ADMIN_DATABASE_URL%/*}/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e owner cellwright_owner"
+DATABASE_URL="$E2E_OWNER_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx --import ./scripts/allow-server-only.mjs scripts/seed.ts >/dev/null
 npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next-build.log; exit 1; }
 PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json

@@ -7,6 +7,7 @@ import { getLucia } from "@/lib/auth/lucia";
 import { signIn, SIGN_IN_LIMITS } from "@/lib/auth/sign-in";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { changeUserRole, createUser, setUserActive } from "@/lib/auth/user-admin";
+import { withOwnerClient } from "../support/test-database";
 
 const admin: SignedInUser = { id: "admin-fixture", email: "admin@test.example", displayName: "Test Admin", role: "admin" };
 
@@ -93,9 +94,15 @@ describe("audit trail is append-only", () => {
     await insertAdminFixture();
     await createUser(admin, { email: "x@test.example", displayName: "Xavi Example", role: "operator", password: "0123456789ab" });
     const db = getDb();
-    await expect(sql`update audit_event set action = 'tampered'`.execute(db)).rejects.toThrow(/append-only/);
-    await expect(sql`delete from audit_event`.execute(db)).rejects.toThrow(/append-only/);
-    await expect(sql`truncate audit_event`.execute(db)).rejects.toThrow(/append-only/);
+    // The app's role has no right to; the owner role has, and the trigger refuses it.
+    await expect(sql`update audit_event set action = 'tampered'`.execute(db)).rejects.toThrow(/permission denied/);
+    await expect(sql`delete from audit_event`.execute(db)).rejects.toThrow(/permission denied/);
+    await expect(sql`truncate audit_event`.execute(db)).rejects.toThrow(/permission denied/);
+    await withOwnerClient(async (owner) => {
+      await expect(owner.query(`update audit_event set action = 'tampered'`)).rejects.toThrow(/append-only/);
+      await expect(owner.query(`delete from audit_event`)).rejects.toThrow(/append-only/);
+      await expect(owner.query(`truncate audit_event`)).rejects.toThrow(/append-only/);
+    });
     const rows = await listAuditEvents(db, {});
     expect(rows.length).toBeGreaterThan(0);
     expect(rows.every((r) => r.action !== "tampered")).toBe(true);

@@ -32,6 +32,7 @@ import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
+import { forgeAsOwner, withOwnerClient } from "../support/test-database";
 
 // Each test database gets its own generated lab key, in a folder of this file's own.
 const signingDir = mkdtempSync(join(tmpdir(), "cellwright-signing-"));
@@ -233,7 +234,8 @@ describe("run certificates", () => {
     expect(await countWrites()).toEqual(after);
     // What an issued certificate states and its PDF never change.
     await expect(sql`update certificate set pdf_sha256 = ${"0".repeat(64)} where number = ${number}`.execute(getDb())).rejects.toThrow(/never change/);
-    await expect(sql`delete from certificate where number = ${number}`.execute(getDb())).rejects.toThrow(/cannot be deleted/);
+    await expect(sql`delete from certificate where number = ${number}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await withOwnerClient((owner) => expect(owner.query(`delete from certificate where number = $1`, [number])).rejects.toThrow(/cannot be deleted/));
   });
 
   it("refuses the run's operator, a wrong password (audited), and a run that is not accepted, writing nothing", async () => {
@@ -274,9 +276,12 @@ describe("run certificates", () => {
     await accept(reevaluated.runId, "all");
     // The service no longer evaluates an accepted run again; a newer evaluation written past it is still caught.
     await expect(evaluateStoredRun(l.issuer, reevaluated.runId)).rejects.toThrow(/is final and is not evaluated again/);
-    await sql`insert into run_evaluation (run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at)
+    const newer = sql`insert into run_evaluation (run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at)
       select run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at + interval '1 second'
-      from run_evaluation where run_id = ${reevaluated.runId} order by evaluated_at desc limit 1`.execute(getDb());
+      from run_evaluation where run_id = ${reevaluated.runId} order by evaluated_at desc limit 1`.compile(getDb());
+    // The database refuses it (the accepted run is frozen); forged past the trigger, the issuer's check still catches it.
+    await expect(getDb().executeQuery(newer)).rejects.toThrow(/is accepted: its records, logs and evaluations are frozen/);
+    await forgeAsOwner("run_evaluation", "run_evaluation_frozen_with_run", newer.sql, [...newer.parameters]);
     await expect(issueRunCertificate(l.issuer, reevaluated.runId, { password: PASSWORD })).rejects.toThrow(/evaluated again after its review/);
     expect(await countWrites()).toEqual(before);
     expect((await getRun(getDb(), unnoted.runId))?.status).toBe("accepted");

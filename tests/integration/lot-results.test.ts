@@ -20,6 +20,7 @@ import { describeResults } from "@/lib/statistics";
 import { chargeRetentionTemplate, dischargeAtMinus20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../support/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
+import { forgeAsOwner } from "../support/test-database";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "lot reviewer's passphrase";
@@ -114,10 +115,15 @@ describe("discharge results of reviewed runs", () => {
     const signed = await getDb().selectFrom("run_evaluation").selectAll().where("id", "=", before!.evaluationId).executeTakeFirstOrThrow();
     const altered = structuredClone(signed.evaluation) as RunEvaluation;
     for (const step of altered.steps) if (step.results) step.results.capacityAh = 9.999;
-    await getDb()
-      .insertInto("run_evaluation")
-      .values({ run_id: runId, run_log_id: signed.run_log_id, procedure_version_id: signed.procedure_version_id, evaluation: JSON.stringify(altered), procedure_followed: signed.procedure_followed, specimen_conforms: signed.specimen_conforms })
-      .execute();
+    const values = { run_id: runId, run_log_id: signed.run_log_id, procedure_version_id: signed.procedure_version_id, evaluation: JSON.stringify(altered), procedure_followed: signed.procedure_followed, specimen_conforms: signed.specimen_conforms };
+    // The database refuses a later evaluation of an accepted run; forged past its trigger, the results still keep the signed-for one.
+    await expect(getDb().insertInto("run_evaluation").values(values).execute()).rejects.toThrow(/frozen/);
+    await forgeAsOwner(
+      "run_evaluation",
+      "run_evaluation_frozen_with_run",
+      "insert into run_evaluation (run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms) values ($1, $2, $3, $4, $5, $6)",
+      Object.values(values),
+    );
     const [after] = await listDischargeResults(getDb(), { specimenId: runs.accepted[0]!.specimenId });
     expect(after).toEqual(before);
   });

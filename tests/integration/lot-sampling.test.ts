@@ -26,6 +26,7 @@ import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
 import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
+import { withOwnerClient } from "../support/test-database";
 
 // pg's pool.end() resolves before its sockets close; the file's database is dropped (with force)
 // right after, so let the server see the connections go first.
@@ -246,8 +247,12 @@ describe("drawing a lot's sample", () => {
     await expect(
       editLot(l.operator, lot.id, lotInputSchema.parse({ identifier: lot.identifier, cellSpecificationId: l.specId, supplier: "Fernhollow Components", quantityReceived: 70, receivedOn: addDays(today, -5) })),
     ).rejects.toThrow(/the quantity received cannot change now/);
-    await expect(sql`update lot_sample_draw set positions = '{1}' where lot_id = ${lot.id}`.execute(getDb())).rejects.toThrow(/never changed or deleted/);
-    await expect(sql`delete from lot_sample_draw where lot_id = ${lot.id}`.execute(getDb())).rejects.toThrow(/never changed or deleted/);
+    await expect(sql`update lot_sample_draw set positions = '{1}' where lot_id = ${lot.id}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await expect(sql`delete from lot_sample_draw where lot_id = ${lot.id}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await withOwnerClient(async (owner) => {
+      await expect(owner.query(`update lot_sample_draw set positions = '{1}' where lot_id = $1`, [lot.id])).rejects.toThrow(/never changed or deleted/);
+      await expect(owner.query(`delete from lot_sample_draw where lot_id = $1`, [lot.id])).rejects.toThrow(/never changed or deleted/);
+    });
     const duplicate = await getDb()
       .insertInto("lot_sample_draw")
       .values({ lot_id: lot.id, method: "chosen", seed: null, positions: [1], drawn_by: l.engineer.id })

@@ -8,6 +8,7 @@ import { createProcedure, releaseVersion, saveDraft, startNewDraft, submitForRev
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { compareProcedures, ratedCapacityAt20cTemplate } from "@/protocols";
 import { makeUser } from "./fixtures";
+import { withOwnerClient } from "../support/test-database";
 
 function draftOf(code: string) {
   const definition = structuredClone(ratedCapacityAt20cTemplate);
@@ -45,7 +46,8 @@ describe("procedure versions", () => {
     await expect(
       sql`update procedure_version set definition = jsonb_set(definition, '{steps,0,label}', '"x"') where id = ${versionId}`.execute(getDb()),
     ).rejects.toThrow(/released and frozen/);
-    await expect(sql`delete from procedure_version where id = ${versionId}`.execute(getDb())).rejects.toThrow(/only drafts can be deleted/);
+    await expect(sql`delete from procedure_version where id = ${versionId}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await withOwnerClient((owner) => expect(owner.query(`delete from procedure_version where id = $1`, [versionId])).rejects.toThrow(/only drafts can be deleted/));
     const v = await getDb().selectFrom("procedure_version").select(["title", "status"]).where("id", "=", versionId).executeTakeFirstOrThrow();
     expect(v).toEqual({ title: "Rated capacity at 20 °C", status: "released" });
   });

@@ -18,6 +18,7 @@ import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
+import { withOwnerClient } from "../support/test-database";
 
 const TODAY = "2026-12-01";
 const PASSWORD = "reviewer's own passphrase";
@@ -154,9 +155,13 @@ describe("review of submitted runs", () => {
     expect(correction.before).toMatchObject({ stepId: "rest", ambientReadings: [{ instrumentId: "TH-07" }, { instrumentId: "TH-07" }] });
     expect(correction.after).toMatchObject({ stepId: "rest", ambientReadings: [{ instrumentId: "CC-01" }, { instrumentId: "CC-01" }] });
 
-    // Reviews are append-only.
-    await expect(sql`update run_review set comments = 'softened' where run_id = ${run.id}`.execute(getDb())).rejects.toThrow(/never changed or deleted/);
-    await expect(sql`delete from run_review where run_id = ${run.id}`.execute(getDb())).rejects.toThrow(/never changed or deleted/);
+    // Reviews are append-only: the app's role may not, and the owner role is refused by the trigger.
+    await expect(sql`update run_review set comments = 'softened' where run_id = ${run.id}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await expect(sql`delete from run_review where run_id = ${run.id}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await withOwnerClient(async (owner) => {
+      await expect(owner.query(`update run_review set comments = 'softened' where run_id = $1`, [run.id])).rejects.toThrow(/never changed or deleted/);
+      await expect(owner.query(`delete from run_review where run_id = $1`, [run.id])).rejects.toThrow(/never changed or deleted/);
+    });
   });
 
   it("refuses to accept without an evaluation, with a deviation left without a note, or on a stale evaluation; nothing is written", async () => {
@@ -237,7 +242,10 @@ describe("review of submitted runs", () => {
         .values({ signer_id: lab.second.id, printed_name: "Sol Second", meaning: "reviewed", entity_type: "run", entity_id: run.id, record_sha256: signature.record_sha256 })
         .execute(),
     ).rejects.toMatchObject({ constraint: "electronic_signature_once" });
-    await expect(sql`update electronic_signature set printed_name = 'someone else' where id = ${signature.id}`.execute(getDb())).rejects.toThrow(/never changed or deleted/);
+    await expect(sql`update electronic_signature set printed_name = 'someone else' where id = ${signature.id}`.execute(getDb())).rejects.toThrow(/permission denied/);
+    await withOwnerClient((owner) =>
+      expect(owner.query(`update electronic_signature set printed_name = 'someone else' where id = $1`, [signature.id])).rejects.toThrow(/never changed or deleted/),
+    );
     expect(await reviewTrace(run.id)).toEqual(after);
   });
 });

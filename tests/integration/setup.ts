@@ -1,15 +1,20 @@
 import { randomBytes } from "node:crypto";
 import { afterAll } from "vitest";
 import { closePool } from "@/db/pool";
-import { adminUrl, assertLoopback, TEMPLATE_DB, withAdminClient } from "../support/test-database";
+import { adminUrl, TEMPLATE_DB, testDatabaseUrls, withAdminClient } from "../support/test-database";
 
-// Runs before each test file: a fresh copy of the migrated template, dropped afterwards.
-const base = process.env.TEST_DATABASE_URL;
-if (!base) throw new Error("TEST_DATABASE_URL is not set");
-assertLoopback(base);
+// Runs before each test file: a fresh copy of the migrated template, dropped afterwards. The code under
+// test connects as the app role, never as the owner or the superuser; OWNER_DATABASE_URL is for setup
+// the app may not do (withOwnerClient).
+const { admin: base, owner, app } = testDatabaseUrls();
 const name = `cellwright_it_${randomBytes(4).toString("hex")}`;
-await withAdminClient(base, (c) => c.query(`create database ${name} template ${TEMPLATE_DB}`));
-process.env.DATABASE_URL = adminUrl(base, name);
+await withAdminClient(base, async (c) => {
+  await c.query(`create database ${name} template ${TEMPLATE_DB} owner cellwright_owner`);
+  // A copy does not inherit the template's database rights: as migration 0009 does, no temporary tables.
+  await c.query(`revoke temporary on database ${name} from public`);
+});
+process.env.DATABASE_URL = adminUrl(app, name);
+process.env.OWNER_DATABASE_URL = adminUrl(owner, name);
 
 afterAll(async () => {
   await closePool();
