@@ -99,9 +99,9 @@ describe("stored files are checked on every read", () => {
   it("refuses a changed or missing datasheet with a message naming it, and writes the refusal to the audit trail", async () => {
     const { bytes, fileId, key, engineer } = await specWithDatasheet("TAMPER");
     const changed = Buffer.from(bytes);
-    changed[70_000] ^= 0x01;
+    changed[70_000]! ^= 0x01;
     await putObject(key, changed, "application/pdf");
-    const refused = await readVerifiedFile(fileId, engineer, "datasheet download").catch((e: unknown) => e as Error & { code?: string });
+    const refused = (await readVerifiedFile(fileId, engineer, "datasheet download").then(() => null, (e: unknown) => e)) as Error & { code?: string };
     expect(refused).toMatchObject({ code: "integrity" });
     expect(refused.message).toBe(
       "The stored copy of the datasheet “TAMPER.pdf” of Testmoor Cells TM-TAMPER does not match the SHA-256 recorded when it was stored: it has been changed outside Cellwright. It is not handed out; the fault is recorded for the administrators.",
@@ -167,9 +167,9 @@ describe("backup and restore", () => {
     const victim = recorded[0]!.storage_key;
     const path = join(folder, "objects", victim);
     const bytes = readFileSync(path);
-    bytes[10] ^= 0x20;
+    bytes[10]! ^= 0x20;
     writeFileSync(path, bytes);
-    const refused = await restore({ folder, adminUrl: superUrl("postgres"), database: `${databaseName}_second`, pgBin, log: () => {} }).catch((e: unknown) => e as RestoreRefused);
+    const refused = (await restore({ folder, adminUrl: superUrl("postgres"), database: `${databaseName}_second`, pgBin, log: () => {} }).then(() => null, (e: unknown) => e)) as RestoreRefused;
     expect(refused).toBeInstanceOf(RestoreRefused);
     expect(refused.problems).toEqual([expect.stringMatching(new RegExp(`^objects/${victim.replace(/[.]/g, "\\.")} has been changed since the backup was made`))]);
     await asSuperuser(async (c) => {

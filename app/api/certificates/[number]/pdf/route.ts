@@ -2,9 +2,10 @@ import { apiRoute } from "@/lib/auth/guards";
 import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
 import { certificateNumberSchema } from "@/lib/certificate-list/certificate-number";
 import { DomainError } from "@/lib/errors";
+import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
 /** The certificate's PDF exactly as issued and signed (checked against its recorded SHA-256 first). */
-export const GET = apiRoute<{ number: string }>("certificate.read", async (_req, { user, params }) => {
+export const GET = apiRoute<{ number: string }>("certificate.read", withFileRefusalPage(async (_req, { user, params }) => {
   const number = certificateNumberSchema.parse(params.number);
   const pdf = await readCertificatePdf(number, user);
   if (!pdf) throw new DomainError("not-found", `No certificate ${number}.`);
@@ -15,4 +16,4 @@ export const GET = apiRoute<{ number: string }>("certificate.read", async (_req,
       "x-content-sha256": pdf.sha256,
     },
   });
-});
+}));

@@ -5,8 +5,9 @@ import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 import { attachDatasheet } from "@/lib/specs/cell-specifications";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
+import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
-export const GET = apiRoute<{ id: string }>("spec.read", async (_req, { user, params }) => {
+export const GET = apiRoute<{ id: string }>("spec.read", withFileRefusalPage(async (_req, { user, params }) => {
   const id = z.uuid("Not a specification id.").parse(params.id);
   const spec = await getCellSpecification(getDb(), id);
   if (!spec?.datasheet) throw new DomainError("not-found", "This specification has no datasheet.");
@@ -18,7 +19,7 @@ export const GET = apiRoute<{ id: string }>("spec.read", async (_req, { user, pa
       "x-content-sha256": file.sha256,
     },
   });
-});
+}));
 
 /** Multipart upload of a datasheet PDF (field "datasheet"). Checked by content; stored with its SHA-256. */
 export const POST = apiRoute<{ id: string }>("spec.manage", async (req, { user, params }) => {

@@ -4,9 +4,10 @@ import { getCurrentRunLog } from "@/db/run-logs";
 import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
+import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
 /** The current log's file exactly as uploaded (checked against its recorded SHA-256 first), with that hash. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { user, params }) => {
+export const GET = apiRoute<{ id: string }>("run.read", withFileRefusalPage(async (_req, { user, params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const log = await getCurrentRunLog(getDb(), id);
   if (!log) throw new DomainError("not-found", "This run has no data log yet.");
@@ -18,4 +19,4 @@ export const GET = apiRoute<{ id: string }>("run.read", async (_req, { user, par
       "x-content-sha256": file.sha256,
     },
   });
-});
+}));
