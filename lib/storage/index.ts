@@ -82,6 +82,7 @@ export async function putObject(key: string, bytes: Uint8Array, contentType: str
   return { key, sha256, sizeBytes: bytes.byteLength };
 }
 
+/** Raw bytes for tests and tools. Never hand these out: readVerifiedFile (lib/integrity) checks them first. */
 export async function getObjectBytes(key: string): Promise<Uint8Array> {
   const store = getStore();
   await store.ready;

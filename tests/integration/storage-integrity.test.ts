@@ -3,7 +3,7 @@ import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "n
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
-import { Kysely, PostgresDialect } from "kysely";
+import { Kysely, Migrator, PostgresDialect, sql } from "kysely";
 import pg from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { getDb, type Database } from "@/db";
@@ -17,6 +17,7 @@ import { attachDatasheet, createCellSpecification } from "@/lib/specs/cell-speci
 import { deleteObject, putObject, readObjectOrNull, sha256Hex } from "@/lib/storage";
 import { backup } from "../../scripts/backup";
 import { RestoreRefused, restore } from "../../scripts/restore";
+import { MIGRATIONS } from "../../migrations";
 import { adminUrl } from "../support/test-database";
 import { inventedCell } from "../support/rated-capacity-run";
 import { makeUser } from "./fixtures";
@@ -181,6 +182,26 @@ describe("backup and restore", () => {
 
 describe("the audit trail's hash chain", () => {
   const actor = { actorId: null, actorLabel: "chain test" };
+
+  it("chains the rows an older database already holds when migration 0010 runs", async () => {
+    const name = `${databaseName}_old`;
+    await asSuperuser((c) => c.query(`create database ${name}`), "postgres");
+    const old = new Kysely<Database>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: superUrl(name), max: 1 }) }) });
+    try {
+      const migrator = new Migrator({ db: old, provider: { getMigrations: async () => MIGRATIONS } });
+      expect((await migrator.migrateTo("0006_lot_sampling")).error).toBeUndefined();
+      await sql`insert into audit_event (actor_label, action, after) values ('old', 'test.a', '{"b": 1, "a": [1, 2]}'), ('old', 'test.b', null), ('old', 'test.c', '"x"')`.execute(old);
+      expect((await migrator.migrateToLatest()).error).toBeUndefined();
+      const report = await verifyAuditChain(old);
+      expect(report).toMatchObject({ rows: 3, breaks: [], head: { position: "3" } });
+      await recordAuditEvent(old, { ...actor, action: "test.d" });
+      expect((await verifyAuditChain(old)).rows).toBe(4);
+      expect((await verifyAuditChain(old)).breaks).toEqual([]);
+    } finally {
+      await old.destroy();
+      await asSuperuser((c) => c.query(`drop database ${name} with (force)`), "postgres");
+    }
+  });
 
   it("chains concurrent inserts into one line", async () => {
     await Promise.all(Array.from({ length: 24 }, (_, i) => getDb().transaction().execute((tx) => recordAuditEvent(tx, { ...actor, action: "test.concurrent", detail: { i } }))));
