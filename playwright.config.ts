@@ -43,6 +43,8 @@ export default defineConfig({
       DATABASE_URL: process.env.E2E_DATABASE_URL ?? "",
       S3_ENDPOINT: process.env.S3_ENDPOINT ?? "",
       S3_BUCKET: process.env.S3_BUCKET ?? "cellwright",
+      S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "",
+      S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "",
       // Links in e-mails and certificates point at the app under test.
       CELLWRIGHT_PUBLIC_URL: baseURL,
       // The test mail catcher (scripts/test.sh starts it); the outbox is sent every 2 s, not 30 s.

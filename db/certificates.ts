@@ -161,6 +161,7 @@ export interface CertificateRecord {
   pdfStorageKey: string;
   revokedAt: Date | null;
   replacedByNumber: string | null;
+  pdfFileId: string;
 }
 
 export async function getCertificateRecord(db: Executor, number: string, options: { forUpdate?: boolean } = {}): Promise<CertificateRecord | null> {
@@ -169,7 +170,7 @@ export async function getCertificateRecord(db: Executor, number: string, options
     .selectFrom("certificate as c")
     .innerJoin("stored_file as f", "f.id", "c.pdf_file_id")
     .leftJoin("certificate as next", "next.replaces_id", "c.id")
-    .select(["c.id", "c.number", "c.run_id", "c.lot_id", "c.pdf_sha256", "f.storage_key", "c.revoked_at", "next.number as replaced_by_number"])
+    .select(["c.id", "c.number", "c.run_id", "c.lot_id", "c.pdf_sha256", "f.storage_key", "c.revoked_at", "next.number as replaced_by_number", "c.pdf_file_id"])
     .where("c.number", "=", number)
     .executeTakeFirst();
   return r
@@ -182,6 +183,7 @@ export async function getCertificateRecord(db: Executor, number: string, options
         pdfStorageKey: r.storage_key,
         revokedAt: r.revoked_at,
         replacedByNumber: r.replaced_by_number,
+        pdfFileId: r.pdf_file_id,
       }
     : null;
 }

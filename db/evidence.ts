@@ -3,6 +3,7 @@ import type { Executor } from "./index";
 
 export interface EvidenceLogFile {
   runLogId: string;
+  storedFileId: string;
   storageKey: string;
   fileName: string;
   sha256: string;
@@ -18,13 +19,14 @@ export async function listRunLogFiles(db: Executor, runId: string): Promise<Evid
     .selectFrom("run_log as l")
     .innerJoin("stored_file as f", "f.id", "l.stored_file_id")
     .innerJoin("app_user as u", "u.id", "l.uploaded_by")
-    .select(["l.id", "f.storage_key", "f.original_name", "f.sha256", "f.size_bytes", "l.current", "l.uploaded_at", "u.display_name"])
+    .select(["l.id", "f.id as stored_file_id", "f.storage_key", "f.original_name", "f.sha256", "f.size_bytes", "l.current", "l.uploaded_at", "u.display_name"])
     .where("l.run_id", "=", runId)
     .orderBy("l.uploaded_at")
     .orderBy("l.id")
     .execute();
   return rows.map((r) => ({
     runLogId: r.id,
+    storedFileId: r.stored_file_id,
     storageKey: r.storage_key,
     fileName: r.original_name,
     sha256: r.sha256,

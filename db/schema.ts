@@ -58,6 +58,10 @@ export interface AuditEventTable {
   after: Json;
   detail: Json;
   address: string | null;
+  /** Set by the database's chain trigger (migration 0010); whatever is sent is overwritten. */
+  chain_position: Generated<string>;
+  prev_hash: Generated<string>;
+  row_hash: Generated<string>;
 }
 
 export type ProcedureStatus = "draft" | "in_review" | "released" | "withdrawn";

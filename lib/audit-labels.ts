@@ -44,6 +44,8 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "run.certify": "a run was certified",
   "lot.set-sampling-plan": "set a lot's sampling plan",
   "lot.draw-sample": "drew a lot's sample",
+  "storage.integrity-fault": "a stored file was refused: missing, or not the bytes recorded at upload",
+  "storage.repair": "a stored file was repaired to the bytes recorded at upload",
 };
 
 export function describeAuditAction(action: string): string {

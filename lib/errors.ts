@@ -9,7 +9,8 @@ export type DomainErrorCode =
   | "conflict"
   | "invalid"
   | "rate-limited"
-  | "foreign-origin";
+  | "foreign-origin"
+  | "integrity";
 
 const STATUS: Record<DomainErrorCode, number> = {
   unauthenticated: 401,
@@ -19,6 +20,8 @@ const STATUS: Record<DomainErrorCode, number> = {
   invalid: 422,
   "rate-limited": 429,
   "foreign-origin": 403,
+  // A stored file that no longer matches its recorded hash, or is missing: refused, never served.
+  integrity: 409,
 };
 
 export class DomainError extends Error {

@@ -15,4 +15,5 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/admin/users", label: "Users", permission: "user.manage" },
   { href: "/admin/mail", label: "E-mail", permission: "mail.read" },
   { href: "/admin/signing-key", label: "Signing key", permission: "signing-key.manage" },
+  { href: "/admin/integrity", label: "Integrity", permission: "lab.manage" },
 ];

@@ -8,6 +8,7 @@ import * as m0006 from "./0006_lot_sampling";
 import * as m0007 from "./0007_app_role_grants";
 import * as m0008 from "./0008_certified_chain_frozen";
 import * as m0009 from "./0009_guards_resolve_public_tables";
+import * as m0010 from "./0010_audit_chain";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -23,4 +24,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0007_app_role_grants": m0007,
   "0008_certified_chain_frozen": m0008,
   "0009_guards_resolve_public_tables": m0009,
+  "0010_audit_chain": m0010,
 };

@@ -4,6 +4,7 @@ import { Kysely, PostgresDialect } from "kysely";
 import pg from "pg";
 import type { Database } from "../db/schema";
 import { closePool } from "../db/pool";
+import { repairFramedObjects } from "../lib/integrity/repair-framed-objects";
 import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
 import { seedDemoLot } from "./seed-demo-lot";
 import { seedLibrary } from "./seed-library";
@@ -53,6 +54,10 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
   created.push(...(await seedLibrary()));
   // After the library: the second lot needs its cell specification, procedures and instruments.
   created.push(...(await seedDemoLot()));
+  // Demo databases made before uploads were stored byte-exact hold framed objects: put the sent bytes back.
+  const repairs = await repairFramedObjects("demo seed");
+  created.push(...repairs.repaired);
+  for (const problem of repairs.unrepaired) console.warn(`not repaired: ${problem} Drop the demo database to seed it afresh.`);
   await closePool();
   return { created };
 }

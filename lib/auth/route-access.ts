@@ -17,6 +17,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/admin/users": "user.manage",
   "/admin/mail": "mail.read",
   "/admin/signing-key": "signing-key.manage",
+  "/admin/integrity": "lab.manage",
   "/procedures": "procedure.read",
   "/procedures/new": "procedure.author",
   "/procedures/[id]": "procedure.read",

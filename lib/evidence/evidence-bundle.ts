@@ -10,13 +10,15 @@ import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
 import { DomainError } from "@/lib/errors";
 import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lot-results/export-results";
 import { readLotResults } from "@/lib/lot-results/read-results";
-import { getObjectBytes } from "@/lib/storage";
+import { readVerifiedFile, type Reader } from "@/lib/integrity/read-verified-file";
 import { formatAuditTrailCsv } from "./audit-trail-csv";
 
 interface BundleFile {
   name: string;
   bytes: Uint8Array;
   what: string;
+  /** For a stored file: the SHA-256 recorded when it was stored (its bytes were checked against it). */
+  recordedSha256?: string;
 }
 
 const AUDIT_LIMIT = 100_000;
@@ -24,7 +26,7 @@ const AUDIT_LIMIT = 100_000;
 const sortEvents = (trails: AuditEventView[][]) => trails.flat().sort((a, b) => a.at.getTime() - b.at.getTime() || Number(a.id) - Number(b.id));
 
 /** A run certificate's files: its PDF, every raw log as uploaded, the reviewed findings, the audit trail of the run and its certificates. */
-async function gatherRunEvidence(certificate: CertificateView, runId: string, pdf: { fileName: string; bytes: Uint8Array }): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
+async function gatherRunEvidence(certificate: CertificateView, runId: string, pdf: { fileName: string; bytes: Uint8Array; sha256: string }, reader?: Reader): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
   const db = getDb();
   const [logs, evaluation, certificateIds] = await Promise.all([listRunLogFiles(db, runId), getReviewedEvaluation(db, runId), listRunCertificateIds(db, runId)]);
   const events = sortEvents(
@@ -33,11 +35,11 @@ async function gatherRunEvidence(certificate: CertificateView, runId: string, pd
       ...certificateIds.map((id) => listAuditEvents(db, { entityType: "certificate", entityId: id, limit: AUDIT_LIMIT })),
     ]),
   );
-  const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, what: "the certificate as issued, with its embedded signature" }];
+  const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, recordedSha256: pdf.sha256, what: "the certificate as issued, with its embedded signature" }];
   for (const [i, log] of logs.entries()) {
-    const bytes = await getObjectBytes(log.storageKey);
+    const { bytes, file } = await readVerifiedFile(log.storedFileId, reader, `evidence bundle of certificate ${certificate.number}`);
     const name = `logs/${String(i + 1).padStart(2, "0")}-${log.fileName.replace(/[^\w.\- ]/g, "_")}`;
-    files.push({ name, bytes, what: `data log as uploaded by ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? " (the one evaluated)" : " (replaced by a later upload)"}` });
+    files.push({ name, bytes, recordedSha256: file.sha256, what: `data log as uploaded by ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? " (the one evaluated)" : " (replaced by a later upload)"}` });
   }
   if (evaluation) {
     files.push({
@@ -54,7 +56,7 @@ async function gatherRunEvidence(certificate: CertificateView, runId: string, pd
  * with its own evidence bundle), the lot's reviewed discharge results as CSV, and the audit trail of the
  * lot and its certificates.
  */
-async function gatherLotEvidence(certificate: CertificateView, lotId: string, pdf: { fileName: string; bytes: Uint8Array }): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
+async function gatherLotEvidence(certificate: CertificateView, lotId: string, pdf: { fileName: string; bytes: Uint8Array; sha256: string }, reader?: Reader): Promise<{ files: BundleFile[]; events: AuditEventView[]; about: string }> {
   const db = getDb();
   const payload = certificate.payload;
   const runCertificates = payload.subject === "lot" ? [...new Set(payload.sample.flatMap((c) => (c.runCertificate ? [c.runCertificate] : [])))] : [];
@@ -65,10 +67,10 @@ async function gatherLotEvidence(certificate: CertificateView, lotId: string, pd
       ...lotCertificates.map((c) => listAuditEvents(db, { entityType: "certificate", entityId: c.id, limit: AUDIT_LIMIT })),
     ]),
   );
-  const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, what: "the lot certificate as issued, with its embedded signature" }];
+  const files: BundleFile[] = [{ name: pdf.fileName, bytes: pdf.bytes, recordedSha256: pdf.sha256, what: "the lot certificate as issued, with its embedded signature" }];
   for (const number of runCertificates) {
-    const run = await readCertificatePdf(number);
-    if (run) files.push({ name: `run-certificates/${run.fileName}`, bytes: run.bytes, what: `certificate ${number} of a sampled run, as issued; its own evidence bundle holds the run's logs and findings` });
+    const run = await readCertificatePdf(number, reader, `evidence bundle of certificate ${certificate.number}`);
+    if (run) files.push({ name: `run-certificates/${run.fileName}`, bytes: run.bytes, recordedSha256: run.sha256, what: `certificate ${number} of a sampled run, as issued; its own evidence bundle holds the run's logs and findings` });
   }
   const csv = formatResultsCsv(listExportedResults(results.results, results.specification.data));
   files.push({
@@ -85,15 +87,15 @@ async function gatherLotEvidence(certificate: CertificateView, lotId: string, pd
  * a lot: the sampled runs' certificates and the lot's results), the payload whose SHA-256 the
  * certificate states, the audit trail as CSV, and a manifest with the SHA-256 of each file. Read-only.
  */
-export async function buildEvidenceBundle(number: string): Promise<{ fileName: string; stream: ReadableStream<Uint8Array> }> {
+export async function buildEvidenceBundle(number: string, reader?: Reader): Promise<{ fileName: string; stream: ReadableStream<Uint8Array> }> {
   const certificate = await getCertificateByNumber(getDb(), number);
   if (!certificate) throw new DomainError("not-found", `No certificate ${number}.`);
-  const pdf = await readCertificatePdf(number);
+  const pdf = await readCertificatePdf(number, reader, `evidence bundle of certificate ${number}`);
   if (!pdf) throw new DomainError("not-found", `The PDF of certificate ${number} is missing from storage.`);
   const gathered = certificate.runId
-    ? await gatherRunEvidence(certificate, certificate.runId, pdf)
+    ? await gatherRunEvidence(certificate, certificate.runId, pdf, reader)
     : certificate.lotId
-      ? await gatherLotEvidence(certificate, certificate.lotId, pdf)
+      ? await gatherLotEvidence(certificate, certificate.lotId, pdf, reader)
       : null;
   if (!gathered) throw new DomainError("invalid", `Certificate ${number} names neither a run nor a lot.`);
   const { files, events } = gathered;
@@ -111,7 +113,9 @@ export async function buildEvidenceBundle(number: string): Promise<{ fileName: s
     `SHA-256 of the certificate PDF as issued: ${certificate.pdfSha256}`,
     "",
     "file\tSHA-256\tbytes\twhat it is",
-    ...files.map((f) => `${f.name}\t${createHash("sha256").update(f.bytes).digest("hex")}\t${f.bytes.byteLength}\t${f.what}`),
+    // A stored file is listed with the hash recorded when it arrived (its bytes were checked against it
+    // above); only the files made for this bundle are hashed here.
+    ...files.map((f) => `${f.name}\t${f.recordedSha256 ?? createHash("sha256").update(f.bytes).digest("hex")}\t${f.bytes.byteLength}\t${f.what}`),
     "",
     "Check a file with `sha256sum <file>`; check the PDF's signature with any PDF signature tool (e.g. pdfsig).",
   ].join("\n");

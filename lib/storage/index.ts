@@ -7,6 +7,7 @@ import {
   GetObjectCommand,
   HeadBucketCommand,
   ListObjectsV2Command,
+  NoSuchKey,
   PutObjectCommand,
   S3Client,
 } from "@aws-sdk/client-s3";
@@ -42,6 +43,11 @@ function getStore() {
       endpoint: c.endpoint,
       region: c.region,
       forcePathStyle: true,
+      // Send bodies as they are: by default the client frames uploads as aws-chunked with a trailing
+      // CRC32, which a store that does not decode it (older s3rver, some gateways) keeps as content.
+      // Our integrity check is the SHA-256 recorded at upload and checked on every read (verified-read.ts).
+      requestChecksumCalculation: "WHEN_REQUIRED",
+      responseChecksumValidation: "WHEN_REQUIRED",
       credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey },
     });
     globalForS3.cellwrightS3 = { client, bucket: c.bucket };
@@ -76,12 +82,27 @@ export async function putObject(key: string, bytes: Uint8Array, contentType: str
   return { key, sha256, sizeBytes: bytes.byteLength };
 }
 
+/** Raw bytes for tests and tools. Never hand these out: readVerifiedFile (lib/integrity) checks them first. */
 export async function getObjectBytes(key: string): Promise<Uint8Array> {
   const store = getStore();
   await store.ready;
   const res = await store.client.send(new GetObjectCommand({ Bucket: store.bucket, Key: key }));
   if (!res.Body) throw new Error(`stored file ${key} has no body`);
   return res.Body.transformToByteArray();
+}
+
+/** The stored bytes, or null when the store has no object under the key. Callers check the recorded hash. */
+export async function readObjectOrNull(key: string): Promise<Uint8Array | null> {
+  const store = getStore();
+  await store.ready;
+  try {
+    const res = await store.client.send(new GetObjectCommand({ Bucket: store.bucket, Key: key }));
+    if (!res.Body) return null;
+    return await res.Body.transformToByteArray();
+  } catch (error) {
+    if (error instanceof NoSuchKey || (error as { name?: string }).name === "NotFound") return null;
+    throw error;
+  }
 }
 
 export async function deleteObject(key: string): Promise<void> {
@@ -94,8 +115,14 @@ export async function deleteObject(key: string): Promise<void> {
 export async function listObjectKeys(prefix: string): Promise<string[]> {
   const store = getStore();
   await store.ready;
-  const res = await store.client.send(new ListObjectsV2Command({ Bucket: store.bucket, Prefix: prefix }));
-  return (res.Contents ?? []).map((o) => o.Key ?? "").filter(Boolean);
+  const keys: string[] = [];
+  let token: string | undefined;
+  do {
+    const res = await store.client.send(new ListObjectsV2Command({ Bucket: store.bucket, Prefix: prefix, ContinuationToken: token }));
+    keys.push(...(res.Contents ?? []).map((o) => o.Key ?? "").filter(Boolean));
+    token = res.IsTruncated ? res.NextContinuationToken : undefined;
+  } while (token);
+  return keys;
 }
 
 /** Stores a file already on local disk (a streamed upload), whose hash and size the caller measured. */

@@ -29,7 +29,9 @@ import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { listObjectKeys } from "@/lib/storage";
+import { buildEvidenceBundle } from "@/lib/evidence/evidence-bundle";
+import { INTEGRITY_FAULT_ACTION } from "@/lib/integrity/read-verified-file";
+import { deleteObject, listObjectKeys, putObject, readObjectOrNull } from "@/lib/storage";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 import { forgeAsOwner, withOwnerClient } from "../support/test-database";
@@ -108,7 +110,7 @@ async function runToSubmitted(tag: string, options: { ambientOnRest?: number } =
   if (!ingested.ok) throw new Error(ingested.error.message);
   const evaluation = await evaluateStoredRun(l.operator, run.id, { columns: ingested.columns });
   await submitRun(l.operator, run.id);
-  return { runId: run.id, number: run.number, evaluation };
+  return { runId: run.id, number: run.number, evaluation, csv: csv.value };
 }
 
 /** The accepting review as the review screen writes it: a 'reviewed' signature and the review row, then the run accepted. */
@@ -361,5 +363,62 @@ describe("run certificates", () => {
     expect(await getCertificateByNumber(getDb(), "C-99999")).toBeNull();
     const unsigned = await checkCertificatePdf(number, new TextEncoder().encode("%PDF-1.7\n%%EOF\n"));
     expect(unsigned.signature).toMatchObject({ present: false, valid: false, signedByLab: false });
+  });
+
+  it("hands out the log and the PDF byte for byte (bundle included, manifest with the recorded hashes), and refuses them once changed or missing", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("BYTES");
+    await accept(run.runId);
+    const { number } = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    const sent = Buffer.from(run.csv);
+    const log = await getDb().selectFrom("run_log as rl").innerJoin("stored_file as f", "f.id", "rl.stored_file_id").select(["f.id", "f.sha256", "f.storage_key"]).where("rl.run_id", "=", run.runId).executeTakeFirstOrThrow();
+    expect(sent.byteLength).toBeGreaterThan(64 * 1024);
+    expect(Buffer.compare(Buffer.from((await readObjectOrNull(log.storage_key))!), sent)).toBe(0);
+    const pdf = (await readCertificatePdf(number))!;
+    // A two-page certificate is ≈ 48 KB, under one 64 KiB chunk; it is stored by the same putObject as a
+    // datasheet, whose round trip above 64 KiB storage-integrity.test.ts checks.
+    expect(pdf.bytes.byteLength).toBeGreaterThan(10_000);
+    const certificate = await getDb().selectFrom("certificate").select(["pdf_sha256", "payload"]).where("number", "=", number).executeTakeFirstOrThrow();
+    expect(pdf.sha256).toBe(certificate.pdf_sha256);
+
+    // The bundle unzips to the very bytes sent; its manifest lists the hashes recorded at upload, which the
+    // signed payload states too.
+    const dir = mkdtempSync(join(tmpdir(), "cellwright-bundle-"));
+    try {
+      const zip = join(dir, "evidence.zip");
+      const bundle = await buildEvidenceBundle(number, l.auditor);
+      writeFileSync(zip, Buffer.from(await new Response(bundle.stream).arrayBuffer()));
+      const unzipped = execFileSync("unzip", ["-p", zip, "logs/01-BYTES.csv"]);
+      expect(Buffer.compare(unzipped, sent)).toBe(0);
+      expect(Buffer.compare(execFileSync("unzip", ["-p", zip, `${number}.pdf`]), pdf.bytes)).toBe(0);
+      const manifest = execFileSync("unzip", ["-p", zip, "MANIFEST.txt"], { encoding: "utf8" });
+      expect(manifest).toContain(`logs/01-BYTES.csv\t${log.sha256}\t${sent.byteLength}\t`);
+      expect(manifest).toContain(`${number}.pdf\t${certificate.pdf_sha256}\t`);
+      expect((certificate.payload as { evidence: { logs: { sha256: string }[] } }).evidence.logs.map((x) => x.sha256)).toEqual([log.sha256]);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+
+    // One byte of the stored log changed: the bundle is refused, naming the log; the refusal is audited.
+    const changed = Buffer.from(sent);
+    changed[70_000] = changed[70_000] === 0x31 ? 0x32 : 0x31;
+    await putObject(log.storage_key, changed, "text/csv");
+    await expect(buildEvidenceBundle(number, l.auditor)).rejects.toMatchObject({
+      code: "integrity",
+      message: expect.stringContaining(`The stored copy of the data log “BYTES.csv” of run ${run.number} does not match the SHA-256 recorded`),
+    });
+    // The PDF missing from the store: the download is refused, naming the certificate.
+    const pdfKey = (await getDb().selectFrom("stored_file").select("storage_key").where("sha256", "=", certificate.pdf_sha256).executeTakeFirstOrThrow()).storage_key;
+    await deleteObject(pdfKey);
+    await expect(readCertificatePdf(number, l.auditor)).rejects.toThrow(`The stored copy of the PDF of certificate ${number} is missing from the file store.`);
+    const faults = await listAuditEvents(getDb(), { action: INTEGRITY_FAULT_ACTION, limit: 10 });
+    expect(faults.map((f) => [f.actorLabel.startsWith("Aud Auditor"), (f.detail as { record: string }).record])).toEqual([
+      [true, `the PDF of certificate ${number}`],
+      [true, `the data log “BYTES.csv” of run ${run.number}`],
+    ]);
+    // Put the recorded bytes back: both are handed out again.
+    await putObject(log.storage_key, sent, "text/csv");
+    await putObject(pdfKey, pdf.bytes, "application/pdf");
+    expect((await readCertificatePdf(number))?.sha256).toBe(certificate.pdf_sha256);
   });
 });

@@ -114,7 +114,7 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
                   <span className="block text-xs text-ink-soft">{c.issuedByName}</span>
                 </td>
                 <td className="py-2">
-                  <a href={`/api/certificates/${c.number}/pdf`} className="text-copper-deep underline" download>
+                  <a href={`/api/certificates/${c.number}/pdf`} className="text-copper-deep underline">
                     Download
                   </a>
                 </td>

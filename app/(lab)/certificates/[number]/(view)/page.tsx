@@ -38,11 +38,11 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
         }
         actions={
           <div className="flex flex-wrap gap-2">
-            <a href={`/api/certificates/${c.number}/pdf`} download className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
+            <a href={`/api/certificates/${c.number}/pdf`} className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
               Download the PDF
             </a>
             {(c.runId || c.lotId) && (
-              <a href={`/api/certificates/${c.number}/evidence`} download className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+              <a href={`/api/certificates/${c.number}/evidence`} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
                 Download the evidence bundle (zip)
               </a>
             )}

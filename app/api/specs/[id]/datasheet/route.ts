@@ -1,27 +1,25 @@
 import { z } from "zod";
 import { getDb } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
-import { getStoredFile } from "@/db/stored-files";
 import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 import { attachDatasheet } from "@/lib/specs/cell-specifications";
-import { getObjectBytes } from "@/lib/storage";
+import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
+import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
-export const GET = apiRoute<{ id: string }>("spec.read", async (_req, { params }) => {
+export const GET = apiRoute<{ id: string }>("spec.read", withFileRefusalPage(async (_req, { user, params }) => {
   const id = z.uuid("Not a specification id.").parse(params.id);
   const spec = await getCellSpecification(getDb(), id);
   if (!spec?.datasheet) throw new DomainError("not-found", "This specification has no datasheet.");
-  const file = await getStoredFile(getDb(), spec.datasheet.fileId);
-  if (!file) throw new DomainError("not-found", "The datasheet record is missing.");
-  const bytes = await getObjectBytes(file.storageKey);
+  const { file, bytes } = await readVerifiedFile(spec.datasheet.fileId, user, "datasheet download");
   return new Response(Buffer.from(bytes), {
     headers: {
       "content-type": "application/pdf",
-      "content-disposition": `attachment; filename="${file.originalName.replace(/[^\w.\- ]/g, "_")}"`,
+      "content-disposition": `attachment; filename="${file.fileName.replace(/[^\w.\- ]/g, "_")}"`,
       "x-content-sha256": file.sha256,
     },
   });
-});
+}));
 
 /** Multipart upload of a datasheet PDF (field "datasheet"). Checked by content; stored with its SHA-256. */
 export const POST = apiRoute<{ id: string }>("spec.manage", async (req, { user, params }) => {

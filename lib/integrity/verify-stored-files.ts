@@ -1,0 +1,30 @@
+import "server-only";
+import type { Executor } from "@/db";
+import { listRecordedFiles, type RecordedFile } from "@/db/stored-file-records";
+import { checkRecordedFile, describeFault } from "./read-verified-file";
+
+export interface FileFault {
+  file: RecordedFile;
+  problem: "missing" | "changed";
+  message: string;
+}
+
+export interface FilesReport {
+  checked: number;
+  bytes: number;
+  faults: FileFault[];
+}
+
+/** Reads every stored file back from the object store and compares it with the SHA-256 recorded at upload. */
+export async function verifyStoredFiles(db: Executor, onProgress?: (done: number, total: number) => void): Promise<FilesReport> {
+  const files = await listRecordedFiles(db);
+  const faults: FileFault[] = [];
+  let bytes = 0;
+  for (const [i, file] of files.entries()) {
+    const check = await checkRecordedFile(file);
+    if (check.ok) bytes += check.bytes.byteLength;
+    else faults.push({ file, problem: check.problem, message: describeFault(file, check.problem) });
+    onProgress?.(i + 1, files.length);
+  }
+  return { checked: files.length, bytes, faults };
+}
