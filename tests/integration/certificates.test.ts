@@ -3,6 +3,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { sql } from "kysely";
+import pg from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
@@ -31,8 +32,10 @@ import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildEvidenceBundle } from "@/lib/evidence/evidence-bundle";
 import { INTEGRITY_FAULT_ACTION } from "@/lib/integrity/read-verified-file";
+import { verifyStoredFiles } from "@/lib/integrity/verify-stored-files";
 import { deleteObject, listObjectKeys, putObject, readObjectOrNull } from "@/lib/storage";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { adminUrl } from "../support/test-database";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 import { forgeAsOwner, withOwnerClient } from "../support/test-database";
 
@@ -420,5 +423,25 @@ describe("run certificates", () => {
     await putObject(log.storage_key, sent, "text/csv");
     await putObject(pdfKey, pdf.bytes, "application/pdf");
     expect((await readCertificatePdf(number))?.sha256).toBe(certificate.pdf_sha256);
-  });
+
+    // The owner rewrites the file record's hash (its triggers off): verify says the two records disagree.
+    const pdfFileId = (await getDb().selectFrom("certificate").select("pdf_file_id").where("number", "=", number).executeTakeFirstOrThrow()).pdf_file_id;
+    const owner = new pg.Client({ connectionString: adminUrl(process.env.TEST_DATABASE_URL!, new URL(process.env.DATABASE_URL!).pathname.slice(1)) });
+    await owner.connect();
+    try {
+      const rewrite = async (sha256: string) => {
+        await owner.query("begin");
+        await owner.query("alter table stored_file disable trigger user");
+        await owner.query("update stored_file set sha256 = $1 where id = $2", [sha256, pdfFileId]);
+        await owner.query("alter table stored_file enable trigger user");
+        await owner.query("commit");
+      };
+      await rewrite("0".repeat(64));
+      expect((await verifyStoredFiles(getDb())).faults.map((f) => f.message)).toContain(`The file record of certificate ${number} states another SHA-256 than the certificate itself: one of the two records was changed.`);
+      await rewrite(certificate.pdf_sha256);
+      expect((await verifyStoredFiles(getDb())).faults).toEqual([]);
+    } finally {
+      await owner.end();
+    }
+  }, 60_000);
 });
