@@ -43,7 +43,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       if tg_op in ('UPDATE', 'INSERT') then run_ids := run_ids || (to_jsonb(new) ->> tg_argv[0])::uuid; end if;
       select number into frozen_number from run where id = any(run_ids) and status in ('accepted', 'certified') limit 1;
       if frozen_number is not null then
-        raise exception 'run % is accepted: its records, logs and evaluations are frozen (% refused on %)', frozen_number, tg_op, tg_table_name
+        raise exception 'run % has been accepted: its records, logs and evaluations are frozen (% refused on %)', frozen_number, tg_op, tg_table_name
           using errcode = 'P0001';
       end if;
       if tg_op = 'DELETE' then return old; end if;
@@ -66,7 +66,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       select r.number into frozen_number from run_log l join run r on r.id = l.run_id
        where l.id = any(log_ids) and r.status in ('accepted', 'certified') limit 1;
       if frozen_number is not null then
-        raise exception 'run % is accepted: its logged samples are frozen (% refused)', frozen_number, tg_op using errcode = 'P0001';
+        raise exception 'run % has been accepted: its logged samples are frozen (% refused)', frozen_number, tg_op using errcode = 'P0001';
       end if;
       if tg_op = 'DELETE' then return old; end if;
       return new;

@@ -10,17 +10,19 @@ if [ "$(id -u)" != 0 ]; then echo "private-clone check skipped: not root"; exit 
 home=$(getent passwd root | cut -d: -f6)
 clone=$(mktemp -d "$home/.cellwright-clone-check.XXXXXX")
 cp -r "$ROOT/scripts" "$clone/"
-# Ports between the ranges the worktrees use (54329 + 100·n … 54349 + 100·n).
-export CW_PORT_SHIFT=$((SHIFT + 50))
+# A test port nobody listens on, between the ranges the worktrees use (54339 + 100·n).
+shift_free=$((SHIFT + 50))
+while (exec 3<>"/dev/tcp/127.0.0.1/$((54339 + shift_free))") 2>/dev/null; do shift_free=$((shift_free + 1)); done
+export CW_PORT_SHIFT=$shift_free
+cluster=$(bash -c 'source "$0/scripts/env.sh"; cw_profile test; dirname "$PG_DATA"' "$clone")
 cleanup() {
   bash "$clone/scripts/db.sh" stop test >/dev/null 2>&1 || true
-  if [ -n "${cluster:-}" ]; then rm -rf "$cluster"; rmdir "$(dirname "$cluster")" 2>/dev/null || true; fi
+  rm -rf "$cluster"; rmdir "$(dirname "$cluster")" 2>/dev/null || true
   rm -rf "$clone"
 }
 trap cleanup EXIT
 
 bash "$clone/scripts/db.sh" start test >/dev/null
-cluster=$(bash -c 'source "$0/scripts/env.sh"; cw_profile test; dirname "$PG_DATA"' "$clone")
 case "$cluster" in /var/lib/postgresql/cellwright/*) ;; *) echo "the cluster of a clone in $home is not under /var/lib/postgresql/cellwright: $cluster" >&2; exit 1 ;; esac
 url=$(bash -c 'source "$0/scripts/env.sh"; cw_profile test; echo "$DATABASE_URL"' "$clone")
 who=$(psql "$url" -Atc "select current_user || ' ' || (select rolsuper from pg_roles where rolname = current_user)")

@@ -17,8 +17,9 @@ pg_bin() {
   echo "$bin"
 }
 
-# initdb refuses to run as root, so the server tools run as Debian's postgres user.
-as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+# initdb refuses to run as root, so the server tools run as Debian's postgres user, from / (it may not be
+# able to enter the clone it was called from).
+as_pg() { if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 start() {
   local bin; bin=$(pg_bin)

@@ -285,7 +285,7 @@ describe("run certificates", () => {
       select run_id, run_log_id, procedure_version_id, evaluation, procedure_followed, specimen_conforms, evaluated_at + interval '1 second'
       from run_evaluation where run_id = ${reevaluated.runId} order by evaluated_at desc limit 1`.compile(getDb());
     // The database refuses it (the accepted run is frozen); forged past the trigger, the issuer's check still catches it.
-    await expect(getDb().executeQuery(newer)).rejects.toThrow(/is accepted: its records, logs and evaluations are frozen/);
+    await expect(getDb().executeQuery(newer)).rejects.toThrow(/has been accepted: its records, logs and evaluations are frozen/);
     await forgeAsOwner("run_evaluation", "run_evaluation_frozen_with_run", newer.sql, [...newer.parameters]);
     await expect(issueRunCertificate(l.issuer, reevaluated.runId, { password: PASSWORD })).rejects.toThrow(/evaluated again after its review/);
     expect(await countWrites()).toEqual(before);
