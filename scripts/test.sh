@@ -31,15 +31,26 @@ unset DATABASE_URL OWNER_DATABASE_URL
 # Playwright empties test-results/ when it starts, so reports go to their own folder.
 rm -rf test-reports; mkdir -p test-reports
 
-log "typecheck"; npx next typegen >/dev/null; npx tsc --noEmit
-log "lint"; npx eslint --max-warnings 0 .
+# CW_TEST_STAGES picks stages while working on one part (e.g. "integration e2e"); CI runs them all.
+stages=" ${CW_TEST_STAGES:-static unit integration e2e} "
+stage() { [[ "$stages" == *" $1 "* ]]; }
 
-log "unit and reference tests"
-npx vitest run --project unit --project reference --reporter=default --reporter=json --outputFile.json=test-reports/vitest-unit.json
+if stage static; then
+  log "typecheck"; npx next typegen >/dev/null; npx tsc --noEmit
+  log "lint"; npx eslint --max-warnings 0 .
+fi
 
-log "integration tests (PostgreSQL on 127.0.0.1:$PG_PORT)"
-npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-reports/vitest-integration.json
+if stage unit; then
+  log "unit and reference tests"
+  npx vitest run --project unit --project reference --reporter=default --reporter=json --outputFile.json=test-reports/vitest-unit.json
+fi
 
+if stage integration; then
+  log "integration tests (PostgreSQL on 127.0.0.1:$PG_PORT)"
+  npx vitest run --project integration --reporter=default --reporter=json --outputFile.json=test-reports/vitest-integration.json
+fi
+
+stage e2e || { echo "stages run: $stages"; exit 0; }
 log "browser tests: fresh e2e database, production build, Chromium"
 psql "${ADMIN_DATABASE_URL%/*}/postgres" -qc "drop database if exists cellwright_e2e with (force)" -c "create database cellwright_e2e owner cellwright_owner"
 DATABASE_URL="$E2E_OWNER_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null

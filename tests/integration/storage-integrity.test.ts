@@ -185,8 +185,10 @@ describe("the audit trail's hash chain", () => {
 
   it("chains the rows an older database already holds when migration 0010 runs", async () => {
     const name = `${databaseName}_old`;
-    await asSuperuser((c) => c.query(`create database ${name}`), "postgres");
-    const old = new Kysely<Database>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: superUrl(name), max: 1 }) }) });
+    // An older database as the scripts keep it: owned by the owner role, which runs the migrations.
+    await asSuperuser((c) => c.query(`create database ${name} owner cellwright_owner`), "postgres");
+    const ownerUrl = adminUrl(process.env.TEST_OWNER_DATABASE_URL!, name);
+    const old = new Kysely<Database>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: ownerUrl, max: 1 }) }) });
     try {
       const migrator = new Migrator({ db: old, provider: { getMigrations: async () => MIGRATIONS } });
       expect((await migrator.migrateTo("0006_lot_sampling")).error).toBeUndefined();
