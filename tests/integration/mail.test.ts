@@ -12,12 +12,15 @@ import { startMailDispatchLoop, stopMailDispatchLoop, waitForMailDispatch } from
 import { enqueueMail } from "@/lib/mail/enqueue-mail";
 import { MAX_SEND_ATTEMPTS } from "@/lib/mail/retry-backoff";
 import { sendPendingMail } from "@/lib/mail/send-pending-mail";
+import { formatLogCsv } from "@/lib/analysis";
+import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
+import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, releaseRatedCapacityProcedure } from "./fixtures";
+import { chunksOf, makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 
 interface CaughtMail {
   id: string;
@@ -185,7 +188,14 @@ async function planTickedRun() {
       .executeTakeFirstOrThrow()
   ).id;
   const run = await startRun(operator, { procedureVersionId: versionId, specimenId: specimen, instrumentIds: [channel] }, "2026-12-01");
-  for (const record of buildRatedCapacityRun({ sampleIntervalS: 60 }).input.stepRecords) await recordStep(operator, run.id, record);
+  const built = buildRatedCapacityRun({ sampleIntervalS: 60 });
+  for (const record of built.input.stepRecords) await recordStep(operator, run.id, record);
+  // A run is submitted only with its log stored and evaluated.
+  const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+  if (!csv.ok) throw new Error(csv.error.message);
+  const ingested = await ingestLog(operator, run.id, { name: "mail.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+  if (!ingested.ok) throw new Error(ingested.error.message);
+  await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
   return { engineer, second, operator, run };
 }
 
