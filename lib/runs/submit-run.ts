@@ -34,7 +34,7 @@ export async function submitRun(actor: SignedInUser, runId: string, opts: { conf
     if (deviations > 0 && opts.confirmedDeviations !== deviations) {
       throw new DomainError(
         "conflict",
-        `The evaluation found ${deviations} deviation${deviations === 1 ? "" : "s"}. Read them on the Findings and results tab, then confirm that you submit the run with ${deviations === 1 ? "it" : "them"}.`,
+        `The evaluation found ${deviations} deviation${deviations === 1 ? "" : "s"}. Read ${deviations === 1 ? "it" : "them"} on the Findings and results tab, then confirm that you submit the run with ${deviations === 1 ? "it" : "them"}.`,
       );
     }
     await setRunStatus(tx, runId, "submitted", "submitted_at");

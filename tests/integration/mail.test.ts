@@ -13,6 +13,7 @@ import { enqueueMail } from "@/lib/mail/enqueue-mail";
 import { MAX_SEND_ATTEMPTS } from "@/lib/mail/retry-backoff";
 import { sendPendingMail } from "@/lib/mail/send-pending-mail";
 import { formatLogCsv } from "@/lib/analysis";
+import { listFindings } from "@/lib/conformance";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
@@ -195,8 +196,9 @@ async function planTickedRun() {
   if (!csv.ok) throw new Error(csv.error.message);
   const ingested = await ingestLog(operator, run.id, { name: "mail.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
   if (!ingested.ok) throw new Error(ingested.error.message);
-  await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
-  return { engineer, second, operator, run };
+  const evaluation = await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
+  const deviations = listFindings(evaluation).filter((f) => f.outcome === "deviates").length;
+  return { engineer, second, operator, run: { ...run, deviations } };
 }
 
 describe("run submitted", () => {
@@ -211,7 +213,7 @@ describe("run submitted", () => {
     startMailDispatchLoop();
     const before = Date.now();
     try {
-      await submitRun(operator, run.id);
+      await submitRun(operator, run.id, { confirmedDeviations: run.deviations });
       await waitForMailDispatch();
     } finally {
       stopMailDispatchLoop();
