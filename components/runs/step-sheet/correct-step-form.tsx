@@ -7,7 +7,7 @@ import type { StepRecord } from "@/lib/conformance";
 import type { ActionState } from "@/lib/forms/action-state";
 import { formatNumber, type ResolvedStep } from "@/protocols";
 import { ActionAnswer } from "./action-answer";
-import { toIso } from "./local-time";
+import { toIso, toLocalInput } from "./local-time";
 import { listProgrammedFields } from "./programmed-fields";
 import { ReadingFields } from "./reading-fields";
 
@@ -72,6 +72,7 @@ export function CorrectStepForm({
             errors={errors}
             errorId={`${id}-reading`}
             lateAlways
+            defaultTakenLocal={toLocalInput(record.ambientReadings.findLast((r) => !r.struck)?.at)}
           />
         </fieldset>
         {fields.length > 0 && (

@@ -24,6 +24,7 @@ export function ReadingFields({
   errors,
   errorId,
   lateAlways = false,
+  defaultTakenLocal = "",
 }: {
   step: ResolvedStep;
   ambientInstruments: { identifier: string; label: string }[];
@@ -33,9 +34,11 @@ export function ReadingFields({
   errorId: string;
   /** A correction always says when the reading was taken. */
   lateAlways?: boolean;
+  /** The "taken at" offered first (a correction offers the time of the reading it replaces). */
+  defaultTakenLocal?: string;
 }) {
   const [typed, setTyped] = useState("");
-  const [takenLocal, setTakenLocal] = useState("");
+  const [takenLocal, setTakenLocal] = useState(defaultTakenLocal);
   const value = parseTyped(typed);
   const implausible = value !== null && !isPlausibleAmbient(value);
   const outside = value !== null && !implausible && isOutsideStepRange(step, value);
