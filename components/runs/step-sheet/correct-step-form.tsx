@@ -70,6 +70,7 @@ export function CorrectStepForm({
             stepStarted={Boolean(record.startedAt)}
             stepEnded={Boolean(record.endedAt)}
             errors={errors}
+            answer={state}
             errorId={`${id}-reading`}
             lateAlways
             defaultTakenLocal={toLocalInput(record.ambientReadings.findLast((r) => !r.struck)?.at)}

@@ -53,7 +53,8 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
       <input type="hidden" name="stepId" value={step.id} />
       <input type="hidden" name="cycle" value={cycle} />
 
-      {cautions.map((c) => (
+      {/* Before the start the cautions stand in the start form; after it they say who acknowledged them. */}
+      {(record?.startedAt ? cautions : []).map((c) => (
         <div key={c.code} role="group" aria-label="Caution for this step" className="rounded border-l-4 border-copper bg-copper-wash px-4 py-3 text-sm">
           <p className="font-semibold">
             <span aria-hidden="true">⚠ </span>Caution: this step exceeds or approaches the cell&apos;s limits
@@ -99,6 +100,7 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
           stepEnded={Boolean(record?.endedAt)}
           stepStarted={Boolean(record?.startedAt)}
           errors={(key) => errorsOf(state, key)}
+          answer={state}
           errorId={`${id}-reading-error`}
         />
       </fieldset>

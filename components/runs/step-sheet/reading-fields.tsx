@@ -21,7 +21,8 @@ export function ReadingFields({
   ambientInstruments,
   stepStarted,
   stepEnded,
-  errors,
+  errors: serverErrors,
+  answer,
   errorId,
   lateAlways = false,
   defaultTakenLocal = "",
@@ -31,6 +32,8 @@ export function ReadingFields({
   stepStarted: boolean;
   stepEnded: boolean;
   errors: (key: string) => string | undefined;
+  /** The server's latest answer: its reading errors are hidden once the reading is edited after it. */
+  answer: unknown;
   errorId: string;
   /** A correction always says when the reading was taken. */
   lateAlways?: boolean;
@@ -39,6 +42,8 @@ export function ReadingFields({
 }) {
   const [typed, setTyped] = useState("");
   const [takenLocal, setTakenLocal] = useState(defaultTakenLocal);
+  const [editedAfter, setEditedAfter] = useState<unknown>(null);
+  const errors = (key: string) => (editedAfter === answer ? undefined : serverErrors(key));
   const value = parseTyped(typed);
   const implausible = value !== null && !isPlausibleAmbient(value);
   const outside = value !== null && !implausible && isOutsideStepRange(step, value);
@@ -52,7 +57,10 @@ export function ReadingFields({
             name="readingCelsius"
             inputMode="decimal"
             value={typed}
-            onChange={(e) => setTyped(e.target.value)}
+            onChange={(e) => {
+              setTyped(e.target.value);
+              setEditedAfter(answer);
+            }}
             aria-invalid={implausible || errors("readingCelsius") ? true : undefined}
             aria-describedby={errorId}
             className="figures w-28 rounded border border-rule px-2 py-2 aria-[invalid=true]:border-deviates"
@@ -76,7 +84,10 @@ export function ReadingFields({
               type="datetime-local"
               step={1}
               value={takenLocal}
-              onChange={(e) => setTakenLocal(e.target.value)}
+              onChange={(e) => {
+                setTakenLocal(e.target.value);
+                setEditedAfter(answer);
+              }}
               aria-invalid={errors("readingAt") ? true : undefined}
               className="rounded border border-rule px-2 py-2 aria-[invalid=true]:border-deviates"
             />

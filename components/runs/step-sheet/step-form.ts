@@ -129,7 +129,8 @@ export function buildStepRecord({
   if (form.completed) {
     if (!startedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the start of the step first"];
     if (!endedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the end of the step first"];
-    if (!ambientReadings.some((r) => !r.struck) && !fieldErrors.readingCelsius) {
+    // A typed reading that was refused keeps its own message; otherwise say what the tick needs.
+    if (!ambientReadings.some((r) => !r.struck) && form.readingCelsius === undefined) {
       fieldErrors.readingCelsius = ["record at least one ambient reading before ticking the step"];
     }
     if (acknowledged.length < cautionCodes.length) fieldErrors.acknowledged = ["tick “I have read this caution” for every caution of this step"];

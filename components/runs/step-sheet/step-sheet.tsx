@@ -92,6 +92,8 @@ export function StepSheet(props: StepSheetProps) {
                   {entry.record && <StepRecordSummary step={entry.step} record={entry.record} />}
                   {entry.record && editable && (
                     <CorrectStepForm
+                      // Closed and empty again once a correction is saved: the line above shows it.
+                      key={JSON.stringify(entry.record)}
                       action={props.actions.correct}
                       runId={runId}
                       step={entry.step}
