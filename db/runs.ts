@@ -20,6 +20,8 @@ export interface RunView {
   createdAt: Date;
   startedAt: Date | null;
   submittedAt: Date | null;
+  /** Set when the run was abandoned: who, when and why. */
+  abandoned: { at: Date; by: string; reason: string } | null;
 }
 
 function runQuery(db: Executor) {
@@ -29,7 +31,11 @@ function runQuery(db: Executor) {
     .innerJoin("procedure as p", "p.id", "v.procedure_id")
     .innerJoin("specimen as s", "s.id", "r.specimen_id")
     .innerJoin("app_user as o", "o.id", "r.operator_id")
+    .leftJoin("app_user as ab", "ab.id", "r.abandoned_by")
     .select([
+      "r.abandoned_at",
+      "r.abandon_reason",
+      "ab.display_name as abandoned_by_name",
       "r.id",
       "r.number",
       "r.status",
@@ -70,7 +76,13 @@ function toView(r: Row): RunView {
     createdAt: r.created_at,
     startedAt: r.started_at,
     submittedAt: r.submitted_at,
+    abandoned: r.abandoned_at && r.abandon_reason ? { at: r.abandoned_at, by: r.abandoned_by_name ?? "unknown", reason: r.abandon_reason } : null,
   };
+}
+
+export async function markRunAbandoned(db: Executor, id: string, by: string, reason: string): Promise<void> {
+  const now = new Date();
+  await db.updateTable("run").set({ status: "abandoned", abandoned_at: now, abandoned_by: by, abandon_reason: reason, updated_at: now }).where("id", "=", id).execute();
 }
 
 export async function getRun(db: Executor, id: string, opts: { forUpdate?: boolean } = {}): Promise<RunView | null> {

@@ -175,7 +175,7 @@ export interface SpecimenTable {
   lot_position: ColumnType<number | null, number | null | undefined, number | null>;
 }
 
-export type RunStatus = "planned" | "in_progress" | "submitted" | "returned" | "accepted" | "certified";
+export type RunStatus = "planned" | "in_progress" | "submitted" | "returned" | "accepted" | "certified" | "abandoned";
 type JsonColumn = ColumnType<unknown, string, string>;
 
 export interface RunTable {
@@ -192,6 +192,9 @@ export interface RunTable {
   started_at: Date | null;
   submitted_at: Date | null;
   updated_at: DefaultedTimestamp;
+  abandoned_at: ColumnType<Date | null, Date | null | undefined, Date | null>;
+  abandoned_by: ColumnType<string | null, string | null | undefined, string | null>;
+  abandon_reason: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface RunInstrumentTable {

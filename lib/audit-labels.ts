@@ -30,6 +30,8 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "run.plan": "planned a run",
   "run.record-step": "recorded a step of a run",
   "run.change-step-times": "changed the recorded times of a step (with a reason)",
+  "run.correct-step": "corrected a step's record: old entries struck, kept, with a reason",
+  "run.abandon": "abandoned a run (with a reason; its records are kept)",
   "run.submit": "submitted a run for review (engineers notified)",
   "run.upload-log": "uploaded a run's data log",
   "run.evaluate": "checked a run against its procedure",

@@ -9,6 +9,7 @@ import * as m0007 from "./0007_app_role_grants";
 import * as m0008 from "./0008_certified_chain_frozen";
 import * as m0009 from "./0009_guards_resolve_public_tables";
 import * as m0010 from "./0010_audit_chain";
+import * as m0017 from "./0017_run_abandon";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -25,4 +26,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0008_certified_chain_frozen": m0008,
   "0009_guards_resolve_public_tables": m0009,
   "0010_audit_chain": m0010,
+  "0017_run_abandon": m0017,
 };

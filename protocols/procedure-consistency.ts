@@ -1,6 +1,7 @@
 import { findCriterionStepProblem, type AcceptanceCriterion } from './acceptance-criterion';
 import { compareVoltagesWithoutSpecification } from './compare-references';
 import type { RepeatRule } from './repeat-rule';
+import type { CurrentReference } from './quantity';
 import type { ChargeStep, Step } from './step';
 
 type Path = (string | number)[];
@@ -106,6 +107,67 @@ function checkEndVoltages(parts: ProcedureParts, ctx: IssueSink): void {
   });
 }
 
+/**
+ * Multiples of It a step's title states as its own current: "Capacity discharge at 0.2 It" → [0.2].
+ * A multiple after "the" names another step ("Charge before the 0.2 It discharge") and is skipped.
+ */
+export function findStatedItMultiples(label: string): number[] {
+  return [...label.matchAll(/(?<!\bthe\s)(?<![\d.,])(\d+(?:[.,]\d+)?)\s*(?:×\s*)?It\b/gi)].map((m) => Number(m[1]!.replace(',', '.')));
+}
+
+function stepCurrents(step: Step): { words: string; reference: CurrentReference }[] {
+  switch (step.kind) {
+    case 'charge':
+      return [{ words: 'charge current', reference: step.current }];
+    case 'discharge':
+      return [{ words: 'discharge current', reference: step.current }];
+    case 'pulse':
+      return [
+        { words: 'base current', reference: step.baseCurrent },
+        { words: 'pulse current', reference: step.pulseCurrent },
+      ];
+    default:
+      return [];
+  }
+}
+
+function isUsableCurrent(reference: CurrentReference | undefined): boolean {
+  if (!reference || typeof reference !== 'object') return false;
+  if ('multipleOfIt' in reference) return typeof reference.multipleOfIt === 'number' && reference.multipleOfIt > 0;
+  if ('value' in reference) return typeof reference.value === 'number' && reference.value > 0;
+  return 'spec' in reference;
+}
+
+function describeCurrent(reference: CurrentReference): string {
+  if ('multipleOfIt' in reference) return `${reference.multipleOfIt} It`;
+  if ('spec' in reference) return 'taken from the cell specification';
+  return `${reference.value} ${reference.unit}`;
+}
+
+/**
+ * A step's title cannot contradict its set-points: "Capacity discharge at 0.2 It" programmed at
+ * 3 It would carry a false statement into the step sheet, the findings and the certificate. Every
+ * multiple of It the title states must be one of the step's currents, set as that multiple.
+ */
+function checkLabelsAgainstSetPoints(parts: ProcedureParts, ctx: IssueSink): void {
+  parts.steps.forEach((step, index) => {
+    const currents = stepCurrents(step);
+    // A current that is itself invalid has its own problem; judging the title against it would only add noise.
+    if (!currents.every((c) => isUsableCurrent(c.reference))) return;
+    const stated = currents.length > 0 && typeof step.label === 'string' ? findStatedItMultiples(step.label) : [];
+    for (const multiple of stated) {
+      const matches = currents.some((c) => 'multipleOfIt' in c.reference && Math.abs(c.reference.multipleOfIt - multiple) < 1e-9);
+      if (matches) continue;
+      const actual = currents.map((c) => `the ${c.words} is ${describeCurrent(c.reference)}`).join(' and ');
+      ctx.addIssue({
+        code: 'custom',
+        path: ['steps', index, 'label'],
+        message: `step ${index + 1} “${step.label}”: the title says ${multiple} It, but ${actual}; change the title or the current`,
+      });
+    }
+  });
+}
+
 /** Rules that span steps, criteria and the repeat rule; each problem names its field path. */
 export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink): void {
   checkUniqueIds({ items: parts.steps, listKey: 'steps', words: 'step' }, ctx);
@@ -113,4 +175,5 @@ export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink)
   checkCriteria(parts, ctx);
   checkRepeatRule(parts, ctx);
   checkEndVoltages(parts, ctx);
+  checkLabelsAgainstSetPoints(parts, ctx);
 }

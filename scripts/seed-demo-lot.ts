@@ -4,7 +4,7 @@ import { getProcedureIdByCode } from "../db/procedures";
 import { getRun } from "../db/runs";
 import { formatLogCsv } from "../lib/analysis";
 import type { SignedInUser } from "../lib/auth/signed-in-user";
-import type { Finding, RunEvaluation } from "../lib/conformance";
+import { listFindings, type Finding, type RunEvaluation } from "../lib/conformance";
 import { addDays } from "../lib/instruments/calendar-date";
 import { readLabToday } from "../lib/instruments/lab-today";
 import { drawLotSample, setLotSamplingPlan } from "../lib/lots";
@@ -158,8 +158,8 @@ async function seedReviewedRun(run: DemoRun): Promise<string> {
   for (const record of log.stepRecords) await recordStep(operator, started.id, record);
   const specimen = await getDb().selectFrom("specimen").select("identifier").where("id", "=", run.specimenId).executeTakeFirstOrThrow();
   const columns = await uploadLog(operator, started.id, `${specimen.identifier.toLowerCase()}-${run.channel.toLowerCase()}.csv`, log.columns);
-  await evaluateStoredRun(operator, started.id, { columns });
-  await submitRun(operator, started.id);
+  const evaluated = await evaluateStoredRun(operator, started.id, { columns });
+  await submitRun(operator, started.id, { confirmedDeviations: listFindings(evaluated).filter((f) => f.outcome === "deviates").length });
   const evaluation = await getDb().selectFrom("run_evaluation").select(["id", "evaluation"]).where("run_id", "=", started.id).orderBy("evaluated_at", "desc").executeTakeFirstOrThrow();
   const password = DEMO_USERS.find((u) => u.email === reviewer.email)!.password;
   await acceptRun(reviewer, started.id, {

@@ -2,7 +2,7 @@ import { formatLogCsv } from "../lib/analysis";
 import { getRun } from "../db/runs";
 import { getLatestRunEvaluation } from "../db/run-series";
 import { issueRunCertificate } from "../lib/certificates/issue-certificate";
-import type { RunEvaluation } from "../lib/conformance";
+import { listFindings, type RunEvaluation } from "../lib/conformance";
 import { acceptRun } from "../lib/reviews/accept-run";
 import { listDeviatingFindings } from "../lib/reviews/reviewed-record";
 import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
@@ -226,8 +226,8 @@ async function seedSubmittedRun(identifier: string, capacityMAh: number, daysAgo
   };
   const ingested = await ingestLog(operator, run.id, { name: `${identifier.toLowerCase()}-cy1-ch02.csv`, chunks: chunks(), mapping });
   if (!ingested.ok) throw new Error(`demo log refused: ${ingested.error.message}`);
-  await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
-  await submitRun(operator, run.id);
+  const evaluation = await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
+  await submitRun(operator, run.id, { confirmedDeviations: listFindings(evaluation).filter((f) => f.outcome === "deviates").length });
   return { id: run.id, number: run.number };
 }
 

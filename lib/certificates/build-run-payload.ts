@@ -1,5 +1,5 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import type { DecisionRule, Finding, RunEvaluation, StepRecord } from "@/lib/conformance";
+import { listCountedReadings, type DecisionRule, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
 import type { CellSpecification, ProcedureResolution } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import {
@@ -70,7 +70,7 @@ export const REPRODUCTION = "This certificate may be copied in full only; an ext
 
 /** First and last moment any step record names. */
 export function findTestingSpan(records: readonly Pick<StepRecord, "startedAt" | "endedAt" | "ambientReadings">[]): { from: string | null; to: string | null } {
-  const times = records.flatMap((r) => [r.startedAt, r.endedAt, ...r.ambientReadings.map((a) => a.at)]).filter((t): t is string => Boolean(t));
+  const times = records.flatMap((r) => [r.startedAt, r.endedAt, ...r.ambientReadings.filter((a) => !a.struck).map((a) => a.at)]).filter((t): t is string => Boolean(t));
   const ms = times.map((t) => Date.parse(t)).filter(Number.isFinite);
   if (ms.length === 0) return { from: null, to: null };
   return { from: new Date(Math.min(...ms)).toISOString(), to: new Date(Math.max(...ms)).toISOString() };
@@ -105,7 +105,9 @@ function summariseAmbient(evaluation: StoredEvaluation, records: readonly StepRe
   return evaluation.steps.flatMap((step): CertificateAmbient[] => {
     const resolved = resolution.steps.find((s) => s.id === step.stepId);
     if (!resolved) return [];
-    const readings = records.find((r) => r.stepId === step.stepId && r.cycle === step.cycle)?.ambientReadings.map((a) => a.celsius) ?? [];
+    // Struck readings and values no ambient can take never enter the mean (issue 12, 7d).
+    const recorded = records.find((r) => r.stepId === step.stepId && r.cycle === step.cycle)?.ambientReadings ?? [];
+    const readings = listCountedReadings(recorded).map((a) => a.celsius);
     const ambientFindings = step.findings.filter((f) => f.rule === "ambient-in-range");
     const outcome = ambientFindings.some((f) => f.outcome === "deviates")
       ? "deviates"

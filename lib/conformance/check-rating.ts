@@ -81,10 +81,13 @@ function checkRatedCurrent(context: StepContext, current: RatedCurrent): Finding
     return createFinding(context, { ...draft, observed: { text: observedText, value, unit: "A" }, outcome: "meets" });
   }
   const acknowledged = context.isAcknowledged(code);
+  // Who acknowledged, and when: the operator before starting the step, or the procedure's engineer on the version.
+  const byOperator = context.record?.acknowledgedCautionCodes.includes(code) ? context.record.cautionsAcknowledged : undefined;
+  const acknowledgedBy = byOperator ? `acknowledged by ${byOperator.by} at ${byOperator.at}` : "acknowledged on the released procedure version";
   return createFinding(context, {
     ...draft,
     observed: {
-      text: `${observedText}, above the rating; ${acknowledged ? "the caution was acknowledged" : "the caution was not acknowledged"}`,
+      text: `${observedText}: outside the rating, ${acknowledged ? acknowledgedBy : "the caution was not acknowledged"}`,
       value,
       unit: "A",
     },

@@ -2,6 +2,7 @@
 export * from "./decision-rule";
 export * from "./finding";
 export * from "./step-record";
+export * from "./plausible-ambient";
 export * from "./run-evaluation-input";
 export * from "./step-context";
 export * from "./plan-run-sequence";

@@ -16,11 +16,39 @@ const positive = (what: string) =>
 const celsius = (what: string) =>
   z.number({ error: `${what} is a number of °C` }).min(-273.15, { error: `${what} is below absolute zero` });
 
+/**
+ * An entry struck as an error: it stays in the record (good laboratory records never erase) but no
+ * computation counts it. Who struck it, when, and why.
+ */
+export const strikeSchema = z.strictObject({
+  reason: z.string().trim().min(1, { error: "say why the entry is struck" }).max(1000),
+  at: recordedTimeSchema,
+  by: z.string().trim().min(1).max(200),
+});
+
 export const ambientReadingSchema = z.strictObject({
   at: recordedTimeSchema,
   celsius: celsius("a reading"),
   /** The thermometer's identifier in the instrument register. */
   instrumentId: z.string().trim().min(1).max(100).optional(),
+  /** The operator's note, required when the reading lies outside the step's range. */
+  note: z.string().trim().min(1).max(1000).optional(),
+  /** Why the reading was entered later than it was taken (its `at` is the time it was taken). */
+  backdatedReason: z.string().trim().min(1).max(1000).optional(),
+  struck: strikeSchema.optional(),
+});
+
+/**
+ * A recorded value replaced by a correction: the old value (`was`) stays visible, struck through,
+ * beside the new one. `field` is "startedAt", "endedAt" or "programmed.<set-point>".
+ */
+export const stepCorrectionSchema = z.strictObject({
+  field: z.string().trim().min(1).max(100),
+  was: z.union([z.string().max(100), z.number()]).nullable(),
+  now: z.union([z.string().max(100), z.number()]).nullable(),
+  reason: z.string().trim().min(1, { error: "say why the entry is corrected" }).max(1000),
+  at: recordedTimeSchema,
+  by: z.string().trim().min(1).max(200),
 });
 
 /**
@@ -70,9 +98,14 @@ export const stepRecordSchema = z.strictObject({
   completed: z.boolean({ error: "completed is true or false" }),
   /** Caution codes ("<kind>/<step>/<field>", as the resolution writes them) the operator acknowledged. */
   acknowledgedCautionCodes: z.array(z.string().trim().min(1).max(200)).max(100).default([]),
+  /** Who acknowledged the step's cautions, and when (before the step was started). */
+  cautionsAcknowledged: z.strictObject({ by: z.string().trim().min(1).max(200), at: recordedTimeSchema }).optional(),
+  /** Set-points and times struck and replaced, oldest first. */
+  corrections: z.array(stepCorrectionSchema).max(1000).optional(),
 });
 
 export type AmbientReading = z.infer<typeof ambientReadingSchema>;
+export type StepCorrection = z.infer<typeof stepCorrectionSchema>;
 export type ProgrammedSetPoints = z.infer<typeof programmedSetPointsSchema>;
 export type ProgrammedField = keyof ProgrammedSetPoints;
 export type StepRecord = z.output<typeof stepRecordSchema>;

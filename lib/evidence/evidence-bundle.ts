@@ -4,6 +4,7 @@ import { PassThrough, Readable } from "node:stream";
 import { ZipArchive } from "archiver";
 import { getDb } from "@/db";
 import { listAuditEvents, type AuditEventView } from "@/db/audit";
+import { listStepRecords } from "@/db/runs";
 import { getCertificateByNumber, listLotCertificates, type CertificateView } from "@/db/certificates";
 import { getReviewedEvaluation, listRunCertificateIds, listRunLogFiles } from "@/db/evidence";
 import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
@@ -48,6 +49,13 @@ async function gatherRunEvidence(certificate: CertificateView, runId: string, pd
       what: evaluation.reviewed ? "findings, results and verdict of the evaluation the reviewer signed for" : "findings of the latest evaluation (no accepted review on record)",
     });
   }
+  // The step records as kept: struck readings and replaced values stay in them, with who, when and why.
+  const records = await listStepRecords(db, runId);
+  files.push({
+    name: "step-records.json",
+    bytes: new TextEncoder().encode(JSON.stringify(records, null, 2)),
+    what: "what the operator recorded for each step; entries struck as errors and corrected values are kept, marked with who, when and why",
+  });
   return { files, events, about: `Run ${certificate.runNumber ?? ""}, specimen ${certificate.specimenIdentifier ?? ""}.` };
 }
 

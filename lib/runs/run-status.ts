@@ -8,6 +8,7 @@ export const RUN_STATUS_WORDS: Record<RunStatus, { words: string; mark: string }
   returned: { words: "returned to the operator", mark: "↺" },
   accepted: { words: "accepted", mark: "✓" },
   certified: { words: "certified", mark: "✓✓" },
+  abandoned: { words: "abandoned", mark: "✕" },
 };
 
 /** The operator may still record steps and upload logs. */

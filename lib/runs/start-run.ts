@@ -9,8 +9,10 @@ import { getSpecimen } from "@/db/specimens";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { readCellRating } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
+import { lockInstrumentsForUse } from "@/db/instruments";
 import { assertInstrumentsUsable } from "@/lib/instruments/assert-instruments-usable";
 import { resolveProcedure } from "@/protocols";
+import { findSetPointsOutsideRange } from "./check-instrument-ranges";
 
 export const startRunSchema = z.object({
   procedureVersionId: z.uuid("Choose a released procedure version."),
@@ -22,7 +24,8 @@ export type StartRunInput = z.infer<typeof startRunSchema>;
 /**
  * Plans a run: the released version resolved against the specimen's cell specification, frozen into
  * the run, on instruments that are active and within calibration. Refuses a procedure that cannot
- * run on this cell or whose cautions nobody acknowledged.
+ * run on this cell or whose cautions nobody acknowledged, and a set-point outside the range of a
+ * chosen cycler channel (use a channel with a larger range).
  */
 export async function startRun(actor: SignedInUser, input: StartRunInput, today: string): Promise<{ id: string; number: string }> {
   return getDb().transaction().execute(async (tx) => {
@@ -42,6 +45,10 @@ export async function startRun(actor: SignedInUser, input: StartRunInput, today:
     }
     if (resolution.cautionsNeedingAcknowledgement.length > 0) {
       throw new DomainError("conflict", `A quality engineer must first acknowledge on the procedure: ${resolution.cautions.filter((c) => !c.acknowledged).map((c) => c.message).join("; ")}.`);
+    }
+    const outside = findSetPointsOutsideRange(resolution, await lockInstrumentsForUse(tx, input.instrumentIds));
+    if (outside.length > 0) {
+      throw new DomainError("conflict", `The run cannot start on these instruments: ${outside.join("; ")}. Choose a channel whose range covers every set-point.`);
     }
     const run = await insertRun(tx, {
       procedureVersionId: version.id,

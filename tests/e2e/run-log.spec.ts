@@ -54,6 +54,10 @@ test("an operator uploads a cycler log, sees it evaluated and plotted; a bad log
   await expect(page.getByTestId("upload-progress")).toContainText("Sent");
   const stored = page.getByRole("status").filter({ hasText: "Log stored" });
   await expect(stored).toContainText("procedure followed yes; specimen conforms", { timeout: 30_000 });
+  // After "Log stored" the form does not invite a second upload: replacing is a deliberate choice.
+  await expect(page.getByLabel("CSV file from the cycler (up to 200 MiB)")).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Replace the stored log…" })).toBeVisible();
+  await expect(page.getByTestId("current-log")).toContainText("channel-01.csv");
 
   await page.getByRole("link", { name: "Findings and results" }).click();
   await expect(page.getByTestId("verdict")).toContainText("Procedure followedyes");
@@ -66,6 +70,10 @@ test("an operator uploads a cycler log, sees it evaluated and plotted; a bad log
   const lines = csv.split("\n");
   [lines[3999], lines[4000]] = [lines[4000]!, lines[3999]!];
   await page.goto(`/runs/${runId}/log`);
+  // A stored log closes the form: the page shows what is stored and offers replacing it deliberately.
+  await expect(page.getByTestId("current-log")).toContainText("channel-01.csv");
+  await expect(page.getByLabel("CSV file from the cycler (up to 200 MiB)")).toHaveCount(0);
+  await page.getByRole("button", { name: "Replace the stored log…" }).click();
   await page.getByLabel("CSV file from the cycler (up to 200 MiB)").setInputFiles({ name: "channel-01-again.csv", mimeType: "text/csv", buffer: Buffer.from(lines.join("\n")) });
   await page.getByRole("button", { name: /^Upload channel-01-again\.csv/ }).click();
   const refused = page.getByRole("alert").filter({ hasText: "nothing was stored" });

@@ -30,8 +30,6 @@ test("an operator starts a run of TPL-RC20, stamps the first step, records the a
   await first.getByRole("button", { name: "Mark start" }).click();
   await expect(first.getByTestId("step-started-at")).toBeVisible();
   await expect(page.getByTestId("run-status")).toHaveText(/in progress/);
-  await first.getByRole("button", { name: "Mark end" }).click();
-  await expect(first.getByTestId("step-ended-at")).toBeVisible();
 
   // A tick without an ambient reading is refused next to the reading.
   const form = first.getByTestId("current-step-form");
@@ -40,13 +38,15 @@ test("an operator starts a run of TPL-RC20, stamps the first step, records the a
   await expect(form.getByText("record at least one ambient reading before ticking the step")).toBeVisible();
   await expect(first).toHaveAttribute("data-state", "current");
 
-  // The refused form keeps what was typed; save the reading first without the tick.
+  // The refused form keeps what was typed; save the reading first without the tick, while the step runs.
   await form.getByLabel("Step carried out: tick it off").uncheck();
   await form.getByLabel("Reading (°C)").fill("21.4");
   await form.getByLabel("Discharge current (A)").fill("0.97");
   await form.getByRole("button", { name: "Save the step" }).click();
   await expect(first.getByTestId("recorded-readings")).toContainText("21.4 °C");
 
+  await first.getByRole("button", { name: "Mark end" }).click();
+  await expect(first.getByTestId("step-ended-at")).toBeVisible();
   await first.getByTestId("current-step-form").getByLabel("Step carried out: tick it off").check();
   await first.getByTestId("current-step-form").getByRole("button", { name: "Save the step" }).click();
   await expect(first).toHaveAttribute("data-state", "done");

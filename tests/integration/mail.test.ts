@@ -12,12 +12,16 @@ import { startMailDispatchLoop, stopMailDispatchLoop, waitForMailDispatch } from
 import { enqueueMail } from "@/lib/mail/enqueue-mail";
 import { MAX_SEND_ATTEMPTS } from "@/lib/mail/retry-backoff";
 import { sendPendingMail } from "@/lib/mail/send-pending-mail";
+import { formatLogCsv } from "@/lib/analysis";
+import { listFindings } from "@/lib/conformance";
+import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
+import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, releaseRatedCapacityProcedure } from "./fixtures";
+import { chunksOf, makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 
 interface CaughtMail {
   id: string;
@@ -185,8 +189,16 @@ async function planTickedRun() {
       .executeTakeFirstOrThrow()
   ).id;
   const run = await startRun(operator, { procedureVersionId: versionId, specimenId: specimen, instrumentIds: [channel] }, "2026-12-01");
-  for (const record of buildRatedCapacityRun({ sampleIntervalS: 60 }).input.stepRecords) await recordStep(operator, run.id, record);
-  return { engineer, second, operator, run };
+  const built = buildRatedCapacityRun({ sampleIntervalS: 60 });
+  for (const record of built.input.stepRecords) await recordStep(operator, run.id, record);
+  // A run is submitted only with its log stored and evaluated.
+  const csv = formatLogCsv(built.log.columns, { columns: ["time", "voltage", "current"] });
+  if (!csv.ok) throw new Error(csv.error.message);
+  const ingested = await ingestLog(operator, run.id, { name: "mail.csv", chunks: chunksOf(csv.value), mapping: MAPPING });
+  if (!ingested.ok) throw new Error(ingested.error.message);
+  const evaluation = await evaluateStoredRun(operator, run.id, { columns: ingested.columns });
+  const deviations = listFindings(evaluation).filter((f) => f.outcome === "deviates").length;
+  return { engineer, second, operator, run: { ...run, deviations } };
 }
 
 describe("run submitted", () => {
@@ -201,7 +213,7 @@ describe("run submitted", () => {
     startMailDispatchLoop();
     const before = Date.now();
     try {
-      await submitRun(operator, run.id);
+      await submitRun(operator, run.id, { confirmedDeviations: run.deviations });
       await waitForMailDispatch();
     } finally {
       stopMailDispatchLoop();

@@ -4,7 +4,7 @@ import { listRuns } from "@/db/runs";
 import { apiRoute } from "@/lib/auth/guards";
 
 const filterSchema = z.object({
-  status: z.enum(["planned", "in_progress", "submitted", "returned", "accepted", "certified"]).optional(),
+  status: z.enum(["planned", "in_progress", "submitted", "returned", "accepted", "certified", "abandoned"]).optional(),
   specimen: z.uuid("Not a specimen id.").optional(),
 });
 

@@ -24,8 +24,18 @@ function formatMiB(bytes: number): string {
 /**
  * Choose a cycler log, confirm how its columns map, check the first rows and their plot, then send
  * it. The browser sniffs the first 64 KiB itself (sniffLog is pure); the server reads the whole file.
+ * Once a log is stored the form closes: replacing it is a deliberate second choice.
  */
-export function LogUpload({ runId, remembered }: { runId: string; remembered: { instrument: string; mapping: ColumnMapping } | null }) {
+export function LogUpload({
+  runId,
+  remembered,
+  storedLog,
+}: {
+  runId: string;
+  remembered: { instrument: string; mapping: ColumnMapping } | null;
+  /** The log stored now, if any: its file name. */
+  storedLog: string | null;
+}) {
   const router = useRouter();
   const fileId = useId();
   const [chosen, setChosen] = useState<Chosen | null>(null);
@@ -35,6 +45,8 @@ export function LogUpload({ runId, remembered }: { runId: string; remembered: { 
   const [remember, setRemember] = useState(true);
   const [progress, setProgress] = useState<SendProgress | null>(null);
   const [outcome, setOutcome] = useState<UploadMessage | null>(null);
+  const [replacing, setReplacing] = useState(false);
+  const formOpen = storedLog === null || replacing;
 
   const choose = async (file: File | undefined) => {
     setChosen(null);
@@ -67,26 +79,53 @@ export function LogUpload({ runId, remembered }: { runId: string; remembered: { 
     const result = await sendLog({ runId, file: chosen.file, mapping: draft as ColumnMapping, remember, onProgress: setProgress });
     setOutcome(result);
     setProgress(null);
-    if (result.type === "stored") router.refresh();
+    if (result.type === "stored") {
+      setChosen(null);
+      setDraft(null);
+      setReplacing(false);
+      router.refresh();
+    }
   };
 
   return (
     <section aria-labelledby="upload-heading" className="flex flex-col gap-4" data-testid="log-upload">
       <h2 id="upload-heading" className="text-lg font-semibold">
-        Upload the cycler&apos;s log
+        {storedLog === null ? "Upload the cycler's log" : "Replace the stored log"}
       </h2>
+      {outcome && <UploadOutcome outcome={outcome} />}
+      {!formOpen && (
+        <div className="flex flex-col items-start gap-2 text-sm">
+          <p>
+            {storedLog} is stored and evaluated. Replace it only if it is the wrong file or incomplete: the stored one stays on file, marked as replaced, and
+            the run is evaluated again from the new one.
+          </p>
+          <Button onClick={() => setReplacing(true)} className="min-h-11 px-4">
+            Replace the stored log…
+          </Button>
+        </div>
+      )}
+      {formOpen && storedLog !== null && (
+        <p className="text-sm">
+          Replacing {storedLog}. It stays on file, marked as replaced.{" "}
+          <button type="button" onClick={() => setReplacing(false)} className="text-copper-deep underline">
+            Keep the stored log
+          </button>
+        </p>
+      )}
+      {formOpen && (
       <div>
         <label htmlFor={fileId} className="block text-sm font-semibold">
           CSV file from the cycler (up to 200 MiB)
         </label>
         <input id={fileId} type="file" accept=".csv,.txt,.tsv,text/csv,text/plain" onChange={(e) => void choose(e.target.files?.[0])} className="mt-1 text-sm" />
       </div>
+      )}
       {sniffProblem && (
         <Notice tone="problem" role="alert" title="This file cannot be read as a log">
           {sniffProblem}
         </Notice>
       )}
-      {chosen && draft && (
+      {formOpen && chosen && draft && (
         <>
           {notes.length > 0 && (
             <Notice title="How the columns were guessed">
@@ -121,7 +160,6 @@ export function LogUpload({ runId, remembered }: { runId: string; remembered: { 
           </span>
         </div>
       )}
-      {outcome && <UploadOutcome outcome={outcome} />}
     </section>
   );
 }
@@ -131,7 +169,7 @@ function UploadOutcome({ outcome }: { outcome: UploadMessage }) {
     case "stored":
       return (
         <Notice tone="done" role="status" title="Log stored">
-          {outcome.rows.toLocaleString("en-GB")} rows, SHA-256 <code className="break-all">{outcome.sha256}</code>.{" "}
+          {outcome.rows.toLocaleString("en-GB")} rows, SHA-256 <code className="break-all">{outcome.sha256}</code> (shown under “Current data log” above).{" "}
           {outcome.verdict
             ? `Evaluated: procedure followed ${outcome.verdict.procedureFollowed}; specimen ${outcome.verdict.specimenConforms}.`
             : outcome.evaluationProblem}

@@ -24,6 +24,14 @@ const columns = [
     header: "Outcome",
     cell: (c) => {
       const o = OUTCOME[c.getValue()];
+      // A step run outside the cell's rating is never shown as a plain "meets": it ran there by acknowledgement.
+      if (c.row.original.beyondRating && c.getValue() === "meets") {
+        return (
+          <span className="font-medium text-copper-deep" data-testid="outside-rating">
+            <span aria-hidden="true">⚠ </span>outside the rating, acknowledged (safety)
+          </span>
+        );
+      }
       return (
         <span className={o.tone}>
           <span aria-hidden="true">{o.mark} </span>

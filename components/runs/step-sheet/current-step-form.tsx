@@ -7,6 +7,8 @@ import type { StepRecord } from "@/lib/conformance";
 import type { ActionState } from "@/lib/forms/action-state";
 import type { ResolvedStep } from "@/protocols";
 import { ActionAnswer } from "./action-answer";
+import { toIso, toLocalInput } from "./local-time";
+import { ReadingFields } from "./reading-fields";
 import { listProgrammedFields } from "./programmed-fields";
 
 type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
@@ -20,19 +22,8 @@ export interface StepFormProps {
   cautions: { code: string; message: string }[];
   /** Thermometers and chambers of the run, by register identifier. */
   ambientInstruments: { identifier: string; label: string }[];
-  /** Readings already recorded, in words (formatted on the server, in the lab's zone). */
-  recordedReadings: string[];
-}
-
-/** datetime-local value in the browser's zone, from an ISO instant. */
-function toLocalInput(iso: string | undefined): string {
-  if (!iso) return "";
-  const d = new Date(iso);
-  return new Date(d.getTime() - d.getTimezoneOffset() * 60_000).toISOString().slice(0, 19);
-}
-
-function toIso(local: string): string {
-  return local ? new Date(local).toISOString() : "";
+  /** Readings already recorded, in words (formatted on the server, in the lab's zone); struck ones say by whom and why. */
+  recordedReadings: { text: string; note: string; struck: string | null }[];
 }
 
 function errorsOf(state: ActionState, key: string): string | undefined {
@@ -48,6 +39,7 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
   const [endLocal, setEndLocal] = useState("");
   const fields = listProgrammedFields(step);
   const acknowledged = new Set(record?.acknowledgedCautionCodes ?? []);
+  const ackedBy = record?.cautionsAcknowledged;
   const openTimeEditor = (open: boolean) => {
     setEditTimes(open);
     if (open) {
@@ -61,16 +53,25 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
       <input type="hidden" name="stepId" value={step.id} />
       <input type="hidden" name="cycle" value={cycle} />
 
-      {cautions.map((c) => (
+      {/* Before the start the cautions stand in the start form; after it they say who acknowledged them. */}
+      {(record?.startedAt ? cautions : []).map((c) => (
         <div key={c.code} role="group" aria-label="Caution for this step" className="rounded border-l-4 border-copper bg-copper-wash px-4 py-3 text-sm">
           <p className="font-semibold">
             <span aria-hidden="true">⚠ </span>Caution: this step exceeds or approaches the cell&apos;s limits
           </p>
           <p className="mt-1">{c.message}</p>
-          <label className="mt-2 flex min-h-11 items-center gap-2 font-medium">
-            <input type="checkbox" name="acknowledged" value={c.code} defaultChecked={acknowledged.has(c.code)} className="size-5 accent-copper" />I
-            have read this caution
-          </label>
+          {acknowledged.has(c.code) && ackedBy ? (
+            <p className="mt-2 font-medium" data-testid="caution-acknowledged">
+              <input type="hidden" name="acknowledged" value={c.code} />
+              <span aria-hidden="true">☑ </span>Read and acknowledged by {ackedBy.by} at {new Date(ackedBy.at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "long" })},
+              before the step started
+            </p>
+          ) : (
+            <label className="mt-2 flex min-h-11 items-center gap-2 font-medium">
+              <input type="checkbox" name="acknowledged" value={c.code} defaultChecked={acknowledged.has(c.code)} className="size-5 accent-copper" />I
+              have read this caution
+            </label>
+          )}
         </div>
       ))}
       {errorsOf(state, "acknowledged") && <p className="text-sm text-deviates">{errorsOf(state, "acknowledged")}</p>}
@@ -80,37 +81,28 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
         {recordedReadings.length > 0 && (
           <ul className="figures list-disc pl-5 text-sm" aria-label="Readings recorded" data-testid="recorded-readings">
             {recordedReadings.map((r, i) => (
-              <li key={i}>{r}</li>
+              <li key={i}>
+                {r.struck ? (
+                  <>
+                    <s data-testid="struck-reading">{r.text}</s> <span className="text-ink-soft">({r.struck})</span>
+                  </>
+                ) : (
+                  r.text
+                )}
+                {r.note && <span className="text-ink-soft"> · {r.note}</span>}
+              </li>
             ))}
           </ul>
         )}
-        <div className="flex flex-wrap items-end gap-3">
-          <label className="flex flex-col text-sm">
-            Reading (°C)
-            <input
-              name="readingCelsius"
-              inputMode="decimal"
-              aria-invalid={errorsOf(state, "readingCelsius") ? true : undefined}
-              aria-describedby={`${id}-reading-error`}
-              className="figures w-28 rounded border border-rule px-2 py-2 aria-[invalid=true]:border-deviates"
-            />
-          </label>
-          <label className="flex flex-col text-sm">
-            Read on
-            <select name="readingInstrument" className="rounded border border-rule bg-white px-2 py-2" defaultValue={ambientInstruments[0]?.identifier ?? ""}>
-              {ambientInstruments.map((i) => (
-                <option key={i.identifier} value={i.identifier}>
-                  {i.label}
-                </option>
-              ))}
-              <option value="">an instrument not on this run</option>
-            </select>
-          </label>
-        </div>
-        <p className="text-xs text-ink-soft">Saved with the server&apos;s time. Record at least one reading per step; add more as the step goes on.</p>
-        <p id={`${id}-reading-error`} aria-live="polite" className="text-sm text-deviates">
-          {errorsOf(state, "readingCelsius")}
-        </p>
+        <ReadingFields
+          step={step}
+          ambientInstruments={ambientInstruments}
+          stepEnded={Boolean(record?.endedAt)}
+          stepStarted={Boolean(record?.startedAt)}
+          errors={(key) => errorsOf(state, key)}
+          answer={state}
+          errorId={`${id}-reading-error`}
+        />
       </fieldset>
 
       {fields.length > 0 && (

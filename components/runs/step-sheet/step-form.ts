@@ -1,6 +1,7 @@
 import { z } from "zod";
-import { recordedTimeSchema, type StepRecord, type StepRecordInput } from "@/lib/conformance";
+import { recordedTimeSchema, type AmbientReading, type StepCorrection, type StepRecord, type StepRecordInput } from "@/lib/conformance";
 import type { ResolvedStep } from "@/protocols";
+import { checkNewReading } from "./check-new-reading";
 import { listProgrammedFields } from "./programmed-fields";
 
 const optionalText = (max: number) =>
@@ -36,6 +37,11 @@ export const stepKeySchema = z.object({
 export const stepFormSchema = stepKeySchema.extend({
   readingCelsius: optionalNumber,
   readingInstrument: optionalText(100),
+  /** Required when the reading lies outside the step's range. */
+  readingNote: optionalText(1000),
+  /** The time the reading was taken, when it is entered later (after the step ended). */
+  readingAt: recordedTimeSchema.optional().or(z.literal("").transform(() => undefined)),
+  readingAtReason: optionalText(1000),
   notes: optionalText(4000),
   completed: z.literal("on").optional(),
   acknowledged: z.array(z.string().trim().min(1).max(200)).max(100).default([]),
@@ -64,8 +70,10 @@ export type BuiltStepRecord =
 
 /**
  * Merges what the operator typed into the step's stored record: a new ambient reading is stamped
- * `now` (the server's clock), set-points are converted to SI units, and a tick is refused until the
- * step has its start, end, one ambient reading and every caution of the step acknowledged.
+ * `now` (the server's clock) or, entered late, with the time it was taken and why; set-points are
+ * converted to SI units; a changed start or end is kept as a correction beside the new value; and a
+ * tick is refused until the step has its start, end, one counted ambient reading and every caution
+ * of the step acknowledged.
  */
 export function buildStepRecord({
   step,
@@ -73,12 +81,15 @@ export function buildStepRecord({
   form,
   cautionCodes,
   now,
+  by = "the operator",
 }: {
   step: ResolvedStep;
   before: StepRecord | null;
   form: StepForm;
   cautionCodes: readonly string[];
   now: string;
+  /** Who records: named in a correction. */
+  by?: string;
 }): BuiltStepRecord {
   const fieldErrors: Record<string, string[]> = {};
   const programmed: Record<string, number> = {};
@@ -88,23 +99,51 @@ export function buildStepRecord({
     if (spec.unit !== "°C" && typed <= 0) fieldErrors[`programmed.${spec.name}`] = ["must be greater than 0"];
     else programmed[spec.name] = typed * spec.toSi;
   }
-  const ambientReadings = [...(before?.ambientReadings ?? [])];
+  const ambientReadings: AmbientReading[] = [...(before?.ambientReadings ?? [])];
+  const startedAt = form.startedAt ?? before?.startedAt;
+  const endedAt = form.endedAt ?? before?.endedAt;
   if (form.readingCelsius !== undefined) {
-    ambientReadings.push({ at: now, celsius: form.readingCelsius, ...(form.readingInstrument && { instrumentId: form.readingInstrument }) });
+    const checked = checkNewReading({
+      step,
+      celsius: form.readingCelsius,
+      takenAt: form.readingAt,
+      lateReason: form.readingAtReason,
+      note: form.readingNote,
+      startedAt,
+      endedAt,
+      now,
+    });
+    if (checked.ok) {
+      ambientReadings.push({
+        at: checked.at,
+        celsius: form.readingCelsius,
+        ...(form.readingInstrument && { instrumentId: form.readingInstrument }),
+        ...(form.readingNote && { note: form.readingNote }),
+        ...(form.readingAt && form.readingAtReason && { backdatedReason: form.readingAtReason }),
+      });
+    } else Object.assign(fieldErrors, checked.fieldErrors);
   } else if (form.readingInstrument && ambientReadings.length === 0 && form.completed) {
     fieldErrors.readingCelsius = ["write the temperature you read"];
   }
-  const startedAt = form.startedAt ?? before?.startedAt;
-  const endedAt = form.endedAt ?? before?.endedAt;
-  const acknowledged = cautionCodes.filter((code) => form.acknowledged.includes(code));
+  const acknowledged = cautionCodes.filter((code) => form.acknowledged.includes(code) || before?.acknowledgedCautionCodes.includes(code));
   if (form.completed) {
     if (!startedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the start of the step first"];
     if (!endedAt) fieldErrors.completed = [...(fieldErrors.completed ?? []), "mark the end of the step first"];
-    if (ambientReadings.length === 0) fieldErrors.readingCelsius = ["record at least one ambient reading before ticking the step"];
+    // A typed reading that was refused keeps its own message; otherwise say what the tick needs.
+    if (!ambientReadings.some((r) => !r.struck) && form.readingCelsius === undefined) {
+      fieldErrors.readingCelsius = ["record at least one ambient reading before ticking the step"];
+    }
     if (acknowledged.length < cautionCodes.length) fieldErrors.acknowledged = ["tick “I have read this caution” for every caution of this step"];
   }
   if (startedAt && endedAt && Date.parse(endedAt) < Date.parse(startedAt)) fieldErrors.endedAt = ["the end is before the start"];
   if (Object.keys(fieldErrors).length > 0) return { ok: false, message: "Some fields need attention.", fieldErrors };
+  // A changed time keeps the old one, struck through, beside the new (never erased).
+  const corrections: StepCorrection[] = [...(before?.corrections ?? [])];
+  for (const field of ["startedAt", "endedAt"] as const) {
+    const was = before?.[field];
+    const next = field === "startedAt" ? startedAt : endedAt;
+    if (was && next && was !== next) corrections.push({ field, was, now: next, reason: form.timeChangeReason ?? "", at: now, by });
+  }
   return {
     ok: true,
     record: {
@@ -119,6 +158,8 @@ export function buildStepRecord({
       ...(before?.pauseReason && { pauseReason: before.pauseReason }),
       completed: form.completed === "on",
       acknowledgedCautionCodes: acknowledged,
+      ...(before?.cautionsAcknowledged && { cautionsAcknowledged: before.cautionsAcknowledged }),
+      ...(corrections.length > 0 && { corrections }),
       ...(form.timeChangeReason && { timeChangeReason: form.timeChangeReason }),
     },
   };
@@ -126,7 +167,8 @@ export function buildStepRecord({
 
 /**
  * The stored record with its start or end stamped `now`. A time already stamped is changed only
- * through the step form, with a reason; an end needs a start.
+ * through the step form, with a reason; an end needs a start. A step with cautions starts only once
+ * every caution is acknowledged: safety comes before the step, not after it.
  */
 export function stampStepTime({
   before,
@@ -134,17 +176,28 @@ export function stampStepTime({
   cycle,
   which,
   now,
+  cautionCodes = [],
+  acknowledged = [],
+  by = "the operator",
 }: {
   before: StepRecord | null;
   stepId: string;
   cycle: number;
   which: "start" | "end";
   now: string;
+  cautionCodes?: readonly string[];
+  acknowledged?: readonly string[];
+  by?: string;
 }): { ok: true; record: StepRecordInput } | { ok: false; message: string } {
   const base: StepRecordInput = before ?? { stepId, cycle, ambientReadings: [], programmed: {}, completed: false, acknowledgedCautionCodes: [] };
   if (which === "start") {
     if (before?.startedAt) return { ok: false, message: "The start is already marked; change it in the step's times, with a reason." };
-    return { ok: true, record: { ...base, startedAt: now } };
+    const missing = cautionCodes.filter((c) => !acknowledged.includes(c));
+    if (missing.length > 0) {
+      return { ok: false, message: `Read the caution${cautionCodes.length === 1 ? "" : "s"} of this step and tick “I have read this caution” before you start it.` };
+    }
+    const ack = cautionCodes.length > 0 ? { acknowledgedCautionCodes: [...cautionCodes], cautionsAcknowledged: { by, at: now } } : {};
+    return { ok: true, record: { ...base, ...ack, startedAt: now } };
   }
   if (!before?.startedAt) return { ok: false, message: "Mark the start of the step before its end." };
   if (before.endedAt) return { ok: false, message: "The end is already marked; change it in the step's times, with a reason." };

@@ -11,7 +11,9 @@ import { layOutStepSheet, type SheetEntry } from "./lay-out-step-sheet";
 import { MarkTimeButton } from "./mark-time-button";
 import { StepRecordSummary } from "./step-record-summary";
 import { StepSetPoints } from "./step-set-points";
-import { SubmitRunForm } from "./submit-run-form";
+import { AbandonRunForm } from "./abandon-run-form";
+import { CorrectStepForm } from "./correct-step-form";
+import { SubmitRunForm, type SubmitReadinessView } from "./submit-run-form";
 
 type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
 
@@ -24,7 +26,9 @@ export interface StepSheetProps {
   editable: boolean;
   closedReason?: string;
   ambientInstruments: { identifier: string; label: string }[];
-  actions: { markStart: Action; markEnd: Action; save: Action; submit: Action };
+  actions: { markStart: Action; markEnd: Action; save: Action; submit: Action; correct: Action; abandon: Action };
+  /** Log and evaluation as the submission needs them. */
+  submitReadiness: SubmitReadinessView;
 }
 
 const STATE_WORDS: Record<SheetEntry["state"], { words: string; mark: string }> = {
@@ -86,6 +90,18 @@ export function StepSheet(props: StepSheetProps) {
                   )}
                   {entry.state === "waiting" && <StepSetPoints step={entry.step} />}
                   {entry.record && <StepRecordSummary step={entry.step} record={entry.record} />}
+                  {entry.record && editable && (
+                    <CorrectStepForm
+                      // Closed and empty again once a correction is saved: the line above shows it.
+                      key={JSON.stringify(entry.record)}
+                      action={props.actions.correct}
+                      runId={runId}
+                      step={entry.step}
+                      cycle={entry.cycle}
+                      record={entry.record}
+                      ambientInstruments={props.ambientInstruments}
+                    />
+                  )}
                 </>
               )}
             </div>
@@ -106,7 +122,8 @@ export function StepSheet(props: StepSheetProps) {
           </Link>
         </div>
       )}
-      {editable && <SubmitRunForm action={props.actions.submit} runId={runId} ready={layout.allTicked} />}
+      {editable && <SubmitRunForm action={props.actions.submit} runId={runId} ready={layout.allTicked} readiness={props.submitReadiness} />}
+      {editable && <AbandonRunForm action={props.actions.abandon} runId={runId} />}
     </div>
   );
 }
@@ -115,6 +132,7 @@ function CurrentLine({ entry, cautionMessages, ...props }: StepSheetProps & { en
   const { runId, editable, actions } = props;
   const record = entry.record;
   const key = { runId, stepId: entry.step.id, cycle: entry.cycle };
+  const cautions = entry.cautionCodes.map((code) => ({ code, message: cautionMessages.get(code) ?? code }));
   return (
     <>
       <StepSetPoints step={entry.step} />
@@ -126,7 +144,7 @@ function CurrentLine({ entry, cautionMessages, ...props }: StepSheetProps & { en
               {formatRecordedTime(record.startedAt)}
             </span>
           ) : editable ? (
-            <MarkTimeButton action={actions.markStart} label="Mark start" {...key} />
+            <MarkTimeButton action={actions.markStart} label="Mark start" cautions={cautions} {...key} />
           ) : (
             <span>not marked</span>
           )}
@@ -153,11 +171,13 @@ function CurrentLine({ entry, cautionMessages, ...props }: StepSheetProps & { en
           step={entry.step}
           cycle={entry.cycle}
           record={record}
-          cautions={entry.cautionCodes.map((code) => ({ code, message: cautionMessages.get(code) ?? code }))}
+          cautions={cautions}
           ambientInstruments={props.ambientInstruments}
-          recordedReadings={(record?.ambientReadings ?? []).map(
-            (r) => `${formatNumber(r.celsius, { maxDecimals: 2 })} °C${r.instrumentId ? ` on ${r.instrumentId}` : ""} at ${formatRecordedTime(r.at)}`,
-          )}
+          recordedReadings={(record?.ambientReadings ?? []).map((r) => ({
+            text: `${formatNumber(r.celsius, { maxDecimals: 2 })} °C${r.instrumentId ? ` on ${r.instrumentId}` : ""} at ${formatRecordedTime(r.at)}`,
+            note: [r.note, r.backdatedReason && `entered late: ${r.backdatedReason}`].filter(Boolean).join(" · "),
+            struck: r.struck ? `struck by ${r.struck.by} at ${formatRecordedTime(r.struck.at)}: ${r.struck.reason}` : null,
+          }))}
         />
       ) : (
         <StepRecordSummary step={entry.step} record={record} />

@@ -36,6 +36,20 @@ describe("buildRunCertificatePayload", () => {
     expect(payload.testing.from).toBe("2026-03-02T08:00:00.000Z");
   });
 
+  it("leaves struck readings and physically implausible values out of the ambient mean (issue 12, 7d)", () => {
+    const { records } = buildFixtureRecords();
+    const rest = records.stepRecords.find((r) => r.stepId === "rest")!;
+    const counted = rest.ambientReadings.map((a) => a.celsius);
+    rest.ambientReadings = [
+      ...rest.ambientReadings,
+      { at: rest.ambientReadings[0]!.at, celsius: 500 },
+      { at: rest.ambientReadings[0]!.at, celsius: 31, struck: { reason: "typing slip", at: "2026-03-03T10:00:00Z", by: "Ola" } },
+    ];
+    const condition = buildRunCertificatePayload(records).conditions.find((c) => c.stepId === "rest");
+    expect(condition).toMatchObject({ readings: counted.length, minC: Math.min(...counted), maxC: Math.max(...counted) });
+    expect(condition?.meanC).toBeCloseTo(counted.reduce((a, b) => a + b, 0) / counted.length, 12);
+  });
+
   it("says whether each instrument's calibration covers every day of testing", () => {
     const { records } = buildFixtureRecords();
     records.instruments = [

@@ -37,3 +37,21 @@ describe("checkAmbient", () => {
     expect(warm[0]?.outcome).toBe("deviates");
   });
 });
+
+describe("checkAmbient leaves out what is not an ambient", () => {
+  it("does not count a reading struck as an error, and says so", () => {
+    const struck = { ...reading(31, 10), struck: { reason: "typing slip", at: "2026-03-02T09:00:00Z", by: "Ola" } };
+    const [finding] = checkAmbient(contextOf({ step: steps.rest, record: recordOf({ stepId: "rest", ambientReadings: [reading(21), struck, reading(22, 20)] }) }));
+    expect(finding).toMatchObject({ outcome: "meets", observed: { min: 21, max: 22 } });
+    expect(finding?.observed.text).toMatch(/^2 readings, /);
+    expect(finding?.observed.text).toContain("not counted: 1 struck as an error");
+  });
+
+  it("never counts a physically implausible value (outside −60…150 °C) stored before entry was checked", () => {
+    const [finding] = checkAmbient(contextOf({ step: steps.rest, record: recordOf({ stepId: "rest", ambientReadings: [reading(500), reading(22, 5)] }) }));
+    expect(finding).toMatchObject({ outcome: "meets", observed: { min: 22, max: 22 } });
+    expect(finding?.observed.text).toContain("not counted: 1 outside −60…150 °C");
+    const [none] = checkAmbient(contextOf({ step: steps.rest, record: recordOf({ stepId: "rest", ambientReadings: [reading(500)] }) }));
+    expect(none?.outcome).toBe("not assessable");
+  });
+});

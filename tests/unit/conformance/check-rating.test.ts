@@ -21,14 +21,21 @@ describe("checkRating", () => {
 
   it("meets but stays marked beyond the rating once the caution is acknowledged, on the record or on the version", () => {
     const code = "discharge-current-above-rating/discharge/current";
-    const onRecord = recordOf({ stepId: "discharge", programmed: { current: 0.6 }, acknowledgedCautionCodes: [code] });
+    const onRecord = recordOf({
+      stepId: "discharge",
+      programmed: { current: 0.6 },
+      acknowledgedCautionCodes: [code],
+      cautionsAcknowledged: { by: "Ola Operator", at: "2026-03-02T08:00:00Z" },
+    });
     const byOperator = checkRating(contextOf({ step: steps.discharge, record: onRecord, cellRating: lowRate, acknowledged: [code] }))[0];
     expect(byOperator).toMatchObject({ outcome: "meets", beyondRating: true });
-    expect(byOperator?.observed.text).toContain("the caution was acknowledged");
+    // Never a bare "meets": the observation says who took the step outside the rating, and when.
+    expect(byOperator?.observed.text).toBe("0.6 A programmed: outside the rating, acknowledged by Ola Operator at 2026-03-02T08:00:00Z");
     const onVersion = checkRating(
       contextOf({ step: steps.discharge, record: recordOf({ stepId: "discharge", programmed: { current: 0.6 } }), cellRating: lowRate, acknowledged: [code] }),
     )[0];
     expect(onVersion).toMatchObject({ outcome: "meets", beyondRating: true });
+    expect(onVersion?.observed.text).toContain("outside the rating, acknowledged on the released procedure version");
   });
 
   it("falls back on the resolved current when none was recorded, and judges both pulse levels", () => {

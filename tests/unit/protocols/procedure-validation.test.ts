@@ -184,3 +184,41 @@ describe('procedure schema: each refusal names its field', () => {
     expect(validateProcedure(42).ok).toBe(false);
   });
 });
+
+describe('procedure schema: a step title cannot contradict its set-points (issue 12, 7c)', () => {
+  const dischargeIndex = () => baseProcedure().steps.findIndex((s) => s.id === 'discharge');
+
+  it('refuses "Capacity discharge at 0.2 It" programmed at 3 It, naming the step by number and title', () => {
+    const procedure = baseProcedure();
+    const index = dischargeIndex();
+    const step = procedure.steps[index]!;
+    if (step.kind !== 'discharge') throw new Error('the template changed');
+    step.current = { multipleOfIt: 3 };
+    const problems = problemsOf(procedure);
+    expect(problems).toEqual([
+      expect.objectContaining({
+        path: `steps.${index}.label`,
+        message: `step ${index + 1} “Capacity discharge at 0.2 It”: the title says 0.2 It, but the discharge current is 3 It; change the title or the current`,
+      }),
+    ]);
+    step.label = 'Capacity discharge at 3 It';
+    expect(problemsOf(procedure)).toEqual([]);
+  });
+
+  it('refuses a stated multiple when the current is an absolute value or a datasheet field', () => {
+    const procedure = baseProcedure();
+    const step = procedure.steps[dischargeIndex()]!;
+    if (step.kind !== 'discharge') throw new Error('the template changed');
+    step.current = { value: 1, unit: 'A' };
+    expect(problemsOf(procedure).map((p) => p.message)).toEqual([expect.stringContaining('the title says 0.2 It, but the discharge current is 1 A')]);
+  });
+
+  it('leaves titles that name another step ("before the 0.2 It discharge") and steps without a current alone', () => {
+    const procedure = baseProcedure();
+    const charge = procedure.steps.find((s) => s.kind === 'charge')!;
+    charge.label = 'Charge before the 0.2 It discharge';
+    const rest = procedure.steps.find((s) => s.kind === 'rest')!;
+    rest.label = 'Rest before 0.2 It';
+    expect(problemsOf(procedure)).toEqual([]);
+  });
+});

@@ -18,8 +18,9 @@ const stamped: StepRecord = stepRecordSchema.parse({
   stepId: "rest",
   completed: false,
   startedAt: "2026-03-02T07:00:00.000Z",
-  endedAt: "2026-03-02T08:30:00.000Z",
+  endedAt: "2026-03-02T09:30:00.000Z",
 });
+const running: StepRecord = { ...stamped, endedAt: undefined };
 
 describe("buildStepRecord", () => {
   it("stamps a new ambient reading with the server's time and converts minutes to seconds", () => {
@@ -80,7 +81,71 @@ describe("buildStepRecord", () => {
   });
 });
 
+describe("buildStepRecord: plausibility and the step's time window", () => {
+  const build = (fields: Record<string, string>, before: StepRecord | null = running) =>
+    buildStepRecord({ step: stepOf("rest"), before, form: parse({ stepId: "rest", ...fields }), cautionCodes: [], now });
+
+  it("refuses a value no ambient can take, e.g. 500 °C, with the plausible span in words", () => {
+    const built = build({ readingCelsius: "500" });
+    expect(built.ok).toBe(false);
+    if (built.ok) return;
+    expect(built.fieldErrors.readingCelsius?.[0]).toMatch(/^500 °C cannot be an ambient temperature \(readings lie between −60 °C and 150 °C\)/);
+    expect(build({ readingCelsius: "-60.5" }).ok).toBe(false);
+    expect(build({ readingCelsius: "-20" }).ok).toBe(false); // plausible, but outside 20–25 °C without a note
+  });
+
+  it("asks for a note when a reading lies outside the step's range, and keeps the note with the reading", () => {
+    const range = stepOf("rest").ambient;
+    const above = String(range.maxC + 6);
+    const refused = build({ readingCelsius: above });
+    expect(refused.ok).toBe(false);
+    if (refused.ok) return;
+    expect(refused.fieldErrors.readingNote?.[0]).toMatch(/is outside this step's range of .*: say in a note what happened/);
+    const kept = build({ readingCelsius: above, readingNote: "chamber door open for a minute" });
+    expect(kept.ok && kept.record.ambientReadings).toEqual([{ at: now, celsius: range.maxC + 6, note: "chamber door open for a minute" }]);
+  });
+
+  it("refuses a reading before the step is started", () => {
+    const built = build({ readingCelsius: "21" }, null);
+    expect(!built.ok && built.fieldErrors.readingCelsius).toEqual(["mark the start of the step before recording its ambient"]);
+  });
+
+  it("refuses a reading after the step ended unless back-dated inside the step with a reason", () => {
+    const ended = { ...stamped, endedAt: "2026-03-02T08:30:00.000Z" };
+    const late = build({ readingCelsius: "21" }, ended);
+    expect(!late.ok && late.fieldErrors.readingAt?.[0]).toMatch(/^the step ended at .*give the time the reading was taken/);
+    const noReason = build({ readingCelsius: "21", readingAt: "2026-03-02T08:00:00.000Z" }, ended);
+    expect(!noReason.ok && noReason.fieldErrors.readingAtReason).toEqual(["say why the reading is entered late"]);
+    const outside = build({ readingCelsius: "21", readingAt: "2026-03-02T08:45:00.000Z", readingAtReason: "written on paper first" }, ended);
+    expect(!outside.ok && outside.fieldErrors.readingAt?.[0]).toMatch(/^the step ended at/);
+    const backdated = build({ readingCelsius: "21", readingAt: "2026-03-02T08:00:00.000Z", readingAtReason: "written on paper first" }, ended);
+    expect(backdated.ok && backdated.record.ambientReadings).toEqual([{ at: "2026-03-02T08:00:00.000Z", celsius: 21, backdatedReason: "written on paper first" }]);
+  });
+
+  it("keeps a changed start time as a correction beside the new one", () => {
+    const built = buildStepRecord({
+      step: stepOf("rest"),
+      before: running,
+      form: parse({ stepId: "rest", startedAt: "2026-03-02T07:05:00.000Z", timeChangeReason: "pressed late" }),
+      cautionCodes: [],
+      now,
+      by: "Ola Operator",
+    });
+    expect(built.ok && built.record.corrections).toEqual([
+      { field: "startedAt", was: running.startedAt, now: "2026-03-02T07:05:00.000Z", reason: "pressed late", at: now, by: "Ola Operator" },
+    ]);
+  });
+});
+
 describe("stampStepTime", () => {
+  it("starts a step with a caution only once every caution is acknowledged, and records who and when", () => {
+    const codes = ["charge-current-above-rating/charge/current"];
+    const refused = stampStepTime({ before: null, stepId: "charge", cycle: 1, which: "start", now, cautionCodes: codes, acknowledged: [] });
+    expect(refused).toMatchObject({ ok: false, message: expect.stringMatching(/tick “I have read this caution” before you start it/) });
+    const started = stampStepTime({ before: null, stepId: "charge", cycle: 1, which: "start", now, cautionCodes: codes, acknowledged: codes, by: "Ola Operator" });
+    expect(started).toMatchObject({ ok: true, record: { startedAt: now, acknowledgedCautionCodes: codes, cautionsAcknowledged: { by: "Ola Operator", at: now } } });
+  });
+
   it("stamps a start once and an end only after a start", () => {
     const start = stampStepTime({ before: null, stepId: "rest", cycle: 1, which: "start", now });
     expect(start.ok && start.record.startedAt).toBe(now);

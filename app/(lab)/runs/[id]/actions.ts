@@ -1,6 +1,8 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { correctionFormSchema, correctStepRecord, readCorrectionForm } from "@/components/runs/step-sheet/step-correction";
 import { buildStepRecord, readStepForm, stampStepTime, stepFormSchema, stepKeySchema } from "@/components/runs/step-sheet/step-form";
 import { getDb } from "@/db";
 import { getRun, getStepRecord } from "@/db/runs";
@@ -8,6 +10,7 @@ import { requireActionPermission } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 import { toActionState, type ActionState } from "@/lib/forms/action-state";
 import { recordStep } from "@/lib/runs/record-step";
+import { abandonRun } from "@/lib/runs/abandon-run";
 import { submitRun } from "@/lib/runs/submit-run";
 
 async function loadStep(runId: string, stepId: string, cycle: number) {
@@ -24,9 +27,19 @@ async function markStepTime(form: FormData, which: "start" | "end"): Promise<Act
   try {
     const user = await requireActionPermission("run.operate");
     const key = stepKeySchema.parse(Object.fromEntries(form));
-    const { before } = await loadStep(key.runId, key.stepId, key.cycle);
+    const { before, cautionCodes } = await loadStep(key.runId, key.stepId, key.cycle);
+    const acknowledged = form.getAll("acknowledged").filter((v): v is string => typeof v === "string");
     // The server's clock, never the browser's: the audit trail and the checks rely on it.
-    const stamped = stampStepTime({ before, stepId: key.stepId, cycle: key.cycle, which, now: new Date().toISOString() });
+    const stamped = stampStepTime({
+      before,
+      stepId: key.stepId,
+      cycle: key.cycle,
+      which,
+      now: new Date().toISOString(),
+      cautionCodes,
+      acknowledged,
+      by: user.displayName,
+    });
     if (!stamped.ok) return { ok: false, message: stamped.message };
     await recordStep(user, key.runId, stamped.record);
     revalidatePath(`/runs/${key.runId}`, "layout");
@@ -49,7 +62,7 @@ export async function saveStepRecordAction(_prev: ActionState, form: FormData): 
     const user = await requireActionPermission("run.operate");
     const input = stepFormSchema.parse(readStepForm(form));
     const { step, before, cautionCodes } = await loadStep(input.runId, input.stepId, input.cycle);
-    const built = buildStepRecord({ step, before, form: input, cautionCodes, now: new Date().toISOString() });
+    const built = buildStepRecord({ step, before, form: input, cautionCodes, now: new Date().toISOString(), by: user.displayName });
     if (!built.ok) return { ok: false, message: built.message, fieldErrors: built.fieldErrors };
     await recordStep(user, input.runId, built.record);
     revalidatePath(`/runs/${input.runId}`, "layout");
@@ -59,11 +72,47 @@ export async function saveStepRecordAction(_prev: ActionState, form: FormData): 
   }
 }
 
+export async function correctStepAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("run.operate");
+    const input = correctionFormSchema.parse(readCorrectionForm(form));
+    const { step, before } = await loadStep(input.runId, input.stepId, input.cycle);
+    if (!before) return { ok: false, message: "Nothing is recorded for this step yet; record it on its line." };
+    const corrected = correctStepRecord({ step, before, form: input, by: user.displayName, now: new Date().toISOString() });
+    if (!corrected.ok) return { ok: false, message: corrected.message, fieldErrors: corrected.fieldErrors };
+    await recordStep(user, input.runId, corrected.record, { summary: corrected.summary, reason: input.reason ?? "" });
+    revalidatePath(`/runs/${input.runId}`, "layout");
+    return { ok: true, message: "Corrected. The old entries stay on the record, struck through." };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
+
+export async function abandonRunAction(_prev: ActionState, form: FormData): Promise<ActionState> {
+  try {
+    const user = await requireActionPermission("run.operate");
+    const { runId, reason } = abandonFormSchema.parse(Object.fromEntries(form));
+    await abandonRun(user, runId, reason);
+    revalidatePath(`/runs/${runId}`, "layout");
+    revalidatePath("/runs");
+    return { ok: true, message: "The run is abandoned. Its records are kept." };
+  } catch (error) {
+    return toActionState(error);
+  }
+}
+
+const abandonFormSchema = z.object({
+  runId: z.uuid(),
+  reason: z.string().trim().min(3, { error: "say why the run is abandoned" }).max(1000, { error: "at most 1 000 characters" }),
+});
+
 export async function submitRunAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   try {
     const user = await requireActionPermission("run.operate");
-    const { runId } = stepKeySchema.pick({ runId: true }).parse(Object.fromEntries(form));
-    await submitRun(user, runId);
+    const { runId, confirmDeviations } = z
+      .object({ runId: z.uuid(), confirmDeviations: z.coerce.number<unknown>().int().min(0).optional() })
+      .parse(Object.fromEntries(form));
+    await submitRun(user, runId, { confirmedDeviations: confirmDeviations });
     revalidatePath(`/runs/${runId}`, "layout");
     revalidatePath("/runs");
     return { ok: true, message: "Submitted for review. The engineers have been notified." };

@@ -14,7 +14,8 @@ import { can } from "@/lib/auth/permissions";
 import { formatDateTime } from "@/lib/format-date-time";
 import { INSTRUMENT_KIND_LABELS } from "@/lib/instruments/instrument-kind";
 import { isRunOpen, RUN_STATUS_WORDS } from "@/lib/runs/run-status";
-import { markStepEndAction, markStepStartAction, saveStepRecordAction, submitRunAction } from "../actions";
+import { readSubmitReadiness } from "@/lib/runs/submit-readiness";
+import { abandonRunAction, correctStepAction, markStepEndAction, markStepStartAction, saveStepRecordAction, submitRunAction } from "../actions";
 
 export const metadata: Metadata = { title: "Step sheet" };
 
@@ -32,10 +33,11 @@ export default async function StepSheetPage({
   const db = getDb();
   const [run, records, instrumentIds] = await Promise.all([getRun(db, id.data), listStepRecords(db, id.data), listRunInstrumentIds(db, id.data)]);
   if (!run) notFound();
-  const [version, instruments, lastReview] = await Promise.all([
+  const [version, instruments, lastReview, readiness] = await Promise.all([
     getProcedureVersionById(db, run.procedureVersionId),
     Promise.all(instrumentIds.map((i) => getInstrument(db, i))),
     run.status === "returned" ? getLatestRunReview(db, run.id) : null,
+    readSubmitReadiness(db, run.id),
   ]);
   const open = isRunOpen(run.status);
   const mayOperate = can(user.role, "run.operate");
@@ -45,8 +47,17 @@ export default async function StepSheetPage({
   const closedReason = !mayOperate
     ? "Your role reads runs; only an operator records steps."
     : `This run is ${RUN_STATUS_WORDS[run.status].words}; its records can no longer change.`;
+  // The History tab keeps the whole audit trail; the sheet says why the run stopped.
   return (
     <div className="flex flex-col gap-4">
+      {run.abandoned && (
+        <div data-testid="abandoned-notice">
+          <Notice title="Abandoned">
+            {run.abandoned.by} abandoned this run on {formatDateTime(run.abandoned.at)}: {run.abandoned.reason}. Everything recorded below is kept; the run is not
+            reviewed and counts in no statistic.
+          </Notice>
+        </div>
+      )}
       {lastReview?.decision === "returned" && (
         <div data-testid="return-comments">
           <Notice
@@ -54,7 +65,8 @@ export default async function StepSheetPage({
           >
             <blockquote className="whitespace-pre-line border-l-2 border-ink-soft pl-3">{lastReview.comments}</blockquote>
             <p className="mt-2">
-              Correct the records below or upload the data log again, then submit the run once more. Everything recorded so far is kept; the History tab shows
+              Correct the records below (open “Correct this step…” on a line: the old entry stays, struck through) or upload the data log again, evaluate,
+              then submit the run once more. Everything recorded so far is kept; the History tab shows
               each review.
             </p>
           </Notice>
@@ -80,7 +92,15 @@ export default async function StepSheetPage({
         editable={mayOperate && open}
         closedReason={closedReason}
         ambientInstruments={ambientInstruments}
-        actions={{ markStart: markStepStartAction, markEnd: markStepEndAction, save: saveStepRecordAction, submit: submitRunAction }}
+        actions={{
+          markStart: markStepStartAction,
+          markEnd: markStepEndAction,
+          save: saveStepRecordAction,
+          submit: submitRunAction,
+          correct: correctStepAction,
+          abandon: abandonRunAction,
+        }}
+        submitReadiness={{ problems: readiness.problems, deviations: readiness.evaluation?.deviations ?? null }}
       />
     </div>
   );

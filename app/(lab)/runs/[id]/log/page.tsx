@@ -43,7 +43,7 @@ export default async function RunLogPage({ params }: { params: Promise<{ id: str
           <Notice>No data log has been uploaded for this run yet.</Notice>
         )}
       </section>
-      {mayUpload && <LogUpload runId={runId} remembered={remembered} />}
+      {mayUpload && <LogUpload runId={runId} remembered={remembered} storedLog={log?.fileName ?? null} />}
     </div>
   );
 }

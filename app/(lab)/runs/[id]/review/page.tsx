@@ -58,6 +58,16 @@ export default async function RunReviewPage({ params }: { params: Promise<{ id: 
       </div>
     );
   }
+  if (run.status === "abandoned") {
+    return (
+      <div className="max-w-3xl">
+        <Notice title="Abandoned">
+          Run {run.number} was abandoned{run.abandoned ? ` by ${run.abandoned.by} on ${formatDateTime(run.abandoned.at)}: ${run.abandoned.reason}` : ""}. It is not
+          reviewed and counts in no statistic.
+        </Notice>
+      </div>
+    );
+  }
   if (run.status === "planned" || run.status === "in_progress") {
     return (
       <div className="max-w-3xl">

@@ -2,8 +2,10 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { SpecimenRuns } from "@/components/runs/specimen-runs";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
+import { listRuns } from "@/db/runs";
 import { getSpecimen } from "@/db/specimens";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
@@ -15,6 +17,7 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
   const id = z.uuid().safeParse((await params).id);
   const specimen = id.success ? await getSpecimen(getDb(), id.data) : null;
   if (!specimen) notFound();
+  const runs = await listRuns(getDb(), { specimenId: specimen.id });
   const { specification: spec, lot } = specimen;
   return (
     <>
@@ -65,6 +68,7 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
           Rate capability: its reviewed discharges at each current
         </Link>
       </p>
+      <SpecimenRuns runs={runs} />
     </>
   );
 }
