@@ -17,7 +17,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       )`.execute(db);
 
   await sql`
-    create function run_abandoned_final() returns trigger language plpgsql as $$
+    create function run_abandoned_final() returns trigger language plpgsql set search_path = public, pg_temp as $$
     begin
       if old.status = 'abandoned' and (new.status, new.abandoned_at, new.abandoned_by, new.abandon_reason)
           is distinct from (old.status, old.abandoned_at, old.abandoned_by, old.abandon_reason) then
@@ -32,7 +32,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   // Nothing is recorded on an abandoned run any more: its step records stay as they were.
   await sql`
-    create function step_record_run_not_abandoned() returns trigger language plpgsql as $$
+    create function step_record_run_not_abandoned() returns trigger language plpgsql set search_path = public, pg_temp as $$
     begin
       if exists (select 1 from run where id = coalesce(new.run_id, old.run_id) and status = 'abandoned') then
         raise exception 'the run is abandoned; its step records can no longer change' using errcode = 'P0001';
