@@ -4,6 +4,8 @@ import { signInAs, signInAsUser } from "./fixtures";
 // One journey across three people: an engineer writes from the rated-capacity template and previews it
 // against a demo cell, a second engineer releases it, and an operator reads it without any controls.
 test("an engineer drafts from a template, a second engineer releases it, an operator reads it", async ({ browser, baseURL }) => {
+  // Three people and a dozen pages: past the 30 s default on a loaded 2-core machine.
+  test.setTimeout(90_000);
   const code = `BW-RC20-${Date.now() % 100000}`;
 
   const author = await browser.newContext();

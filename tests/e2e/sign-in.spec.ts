@@ -4,7 +4,7 @@ import { DEMO_USERS } from "../../scripts/demo-scenario";
 // Only this spec signs in through the form; the others start with a session (fixtures.ts).
 const LAB = ["Runs", "Lots", "Specimens", "Compare discharges", "Instruments"];
 const NAV: Record<string, string[]> = {
-  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail", "Users", "E-mail", "Signing key"],
+  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail", "Users", "E-mail", "Signing key", "Integrity"],
   engineer: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates"],
   operator: ["Home", "Procedures", "Cell specifications", ...LAB],
   auditor: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail"],
