@@ -1,9 +1,8 @@
 import type { LotMemberResult } from "@/db/lot-sampling";
-import type { DecisionRule } from "@/lib/conformance";
 import { summariseStatistics, type SummaryResult } from "@/lib/lot-results/summarise-results";
 import type { LotDecision, SamplingPlan } from "@/lib/sampling";
 import { findReferenceGroup, groupByCurrent } from "@/lib/statistics";
-import type { CellSpecification } from "@/protocols";
+import type { CellSpecification, StoredDecisionRule } from "@/protocols";
 import { formatNumber } from "@/protocols/format-number";
 import { describeCertifiedCell, NO_EXTERNAL_PROVIDERS, REPRODUCTION, sign } from "./build-run-payload";
 import {
@@ -26,7 +25,7 @@ export interface LotSampledRun {
   /** The run's valid certificate, if one was issued. */
   certificate: string | null;
   procedure: { code: string; title: string; version: number; standard: string; clause: string };
-  decisionRule: DecisionRule;
+  decisionRule: StoredDecisionRule;
   testing: { from: string | null; to: string | null };
 }
 

@@ -1,6 +1,6 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import type { DecisionRule, Finding, RunEvaluation, StepRecord } from "@/lib/conformance";
-import type { CellSpecification, ProcedureResolution } from "@/protocols";
+import type { Finding, RunEvaluation, StepRecord } from "@/lib/conformance";
+import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import {
   CERTIFICATE_PAYLOAD_FORMAT,
@@ -21,15 +21,15 @@ import { listEvaluationFindings, type AcknowledgedDeviation } from "./review-cov
  * "uncertainty not evaluated".
  */
 interface LaterEvaluationFields {
-  decisionRule?: DecisionRule;
+  decisionRule?: StoredDecisionRule;
   uncertainty?: { stepId: string; cycle: number; quantity: "capacity" | "energy" | "dc-resistance"; budget: UncertaintyBudget }[];
   uncertaintyNotEvaluated?: { stepId: string; cycle: number; quantity: string; reason: string }[];
 }
 export type StoredEvaluation = Omit<RunEvaluation, keyof LaterEvaluationFields> & LaterEvaluationFields;
 
 /** The decision rule an evaluation applied: its own field, else the one its acceptance results name, else simple acceptance. */
-export function readDecisionRule(evaluation: StoredEvaluation): DecisionRule {
-  const legacy = (evaluation.settings as { decisionRule?: DecisionRule } | undefined)?.decisionRule;
+export function readDecisionRule(evaluation: StoredEvaluation): StoredDecisionRule {
+  const legacy = (evaluation.settings as { decisionRule?: StoredDecisionRule } | undefined)?.decisionRule;
   return evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? legacy ?? "simple acceptance";
 }
 

@@ -1,5 +1,6 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import type { ConformityOutcome, DecisionRule, FindingOutcome, RunVerdict } from "@/lib/conformance";
+import type { ConformityOutcome, FindingOutcome, RunVerdict } from "@/lib/conformance";
+import type { StoredDecisionRule } from "@/protocols";
 
 /**
  * What a certificate states, as plain JSON. Its canonical form (canonical-json.ts) is hashed and the
@@ -153,7 +154,8 @@ export interface RunCertificatePayload extends CertificateCommon {
   results: CertificateStepResult[];
   /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
   conformity: {
-    decisionRule: DecisionRule;
+    /** As the evaluation applied it; certificates of evaluations stored before ILAC-G8's three rules may say "guarded acceptance". */
+    decisionRule: StoredDecisionRule;
     specimenConforms: ConformityOutcome;
     procedureFollowed: RunVerdict["procedureFollowed"];
     beyondRating: boolean;
@@ -243,7 +245,7 @@ export interface LotCertificatePayload extends CertificateCommon {
   /** The lot decision of the plan: accept or reject (a pending lot gets no certificate). */
   lotDecision: { verdict: "accept" | "reject"; words: "lot accepted" | "lot rejected"; statement: string; rule: string };
   /** The decision rule(s) each cell's statement of conformity was made under (ILAC-G8). */
-  cellDecisionRules: DecisionRule[];
+  cellDecisionRules: StoredDecisionRule[];
   statistics: LotCertificateStatistics | null;
   /** Why there are no statistics, when there are none. */
   statisticsNote: string | null;

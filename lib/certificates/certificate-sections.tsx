@@ -1,5 +1,6 @@
 import { View } from "@react-pdf/renderer";
 import type { ConformityOutcome } from "@/lib/conformance";
+import { explainDecisionRule, nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 import {
   formatCelsius,
   formatCelsiusRange,
@@ -19,7 +20,12 @@ import type { DischargeCurve } from "./vq-plot";
 type P = { payload: RunCertificatePayload };
 
 export function toneOfConformity(outcome: ConformityOutcome): OutcomeTone {
-  return outcome === "conforms" ? "meets" : outcome === "does not conform" ? "deviates" : "open";
+  return outcome === "conforms" ? "meets" : outcome === "does not conform" || outcome === "conditional fail" ? "deviates" : "open";
+}
+
+/** The outcome's words with a capital, as a headline writes them. */
+export function capitaliseOutcome(outcome: string): string {
+  return `${outcome.charAt(0).toUpperCase()}${outcome.slice(1)}`;
 }
 
 export function OutcomeLine({ tone, words, rest, large }: { tone: OutcomeTone; words: string; rest: string; large?: boolean }) {
@@ -61,8 +67,8 @@ export function TitleBlock({ payload }: P) {
         <OutcomeLine
           large
           tone={toneOfConformity(c.specimenConforms)}
-          words={c.specimenConforms === "conforms" ? "Conforms" : c.specimenConforms === "does not conform" ? "Does not conform" : "Not decided"}
-          rest={` — statement of conformity of specimen ${payload.item.specimen.identifier} to the acceptance criteria of ${payload.method.code}, under ${rule_} (section 7).`}
+          words={capitaliseOutcome(c.specimenConforms)}
+          rest={` — statement of conformity of specimen ${payload.item.specimen.identifier} to the acceptance criteria of ${payload.method.code}, under the decision rule ${nameDecisionRule(rule_)} (section 7).`}
         />
         <OutcomeLine
           tone={c.procedureFollowed === "yes" ? "meets" : c.procedureFollowed === "no" ? "deviates" : "open"}
@@ -327,10 +333,9 @@ function describeMeaning(words: string): string {
 }
 
 /** A decision rule as the certificate words it (ILAC-G8:09/2019; JCGM 106:2012). */
-export function describeDecisionRule(rule: string): string {
-  return rule === "simple acceptance"
-    ? "Simple acceptance (ILAC-G8:09/2019): the measured value is compared with the limit as it is."
-    : "Guarded acceptance (ILAC-G8:09/2019, JCGM 106:2012): the guard band equals the expanded uncertainty.";
+export function describeDecisionRule(rule: StoredDecisionRule): string {
+  const name = nameDecisionRule(rule);
+  return `${name.charAt(0).toUpperCase()}${name.slice(1)}: ${explainDecisionRule(rule)}`;
 }
 
 export function SignatureBlock({ heading, s, note }: { heading: string; s: { printedName: string; signedAt: string; meaningWords: string }; note?: string }) {

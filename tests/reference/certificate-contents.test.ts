@@ -99,7 +99,9 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
     expect(all).toContain(`${formatCelsius(15).replace(/\u00a0/g, " ")} to ${formatCelsius(25).replace(/\u00a0/g, " ")}`);
     expect(all).toContain("22.4 °C to 26.5 °C (3 readings)");
     expect(all).toMatch(/Conforms — statement of conformity of specimen SP-0042/);
-    expect(all).toMatch(/Decision rule\s+Simple acceptance \(ILAC-G8:09\/2019\)/);
+    // ILAC-G8:09/2019 4.2.1 [published, clause checked against a public copy]: the rule is named with its clause.
+    expect(all).toMatch(/Decision rule\s+Simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
+    expect(all).toMatch(/under the decision rule simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
     const capacity = payload.uncertainty.find((u) => u.quantity === "capacity")!.budget;
     expect(all).toContain(`U = ±${formatMah(capacity.expandedUncertainty * 1000).replace(/\u00a0/g, " ")}`);
     expect(all).toContain("sqrt 3");
@@ -157,7 +159,7 @@ describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling
     expect(all).toMatch(/41 L-2026-021-41 R-00100 C-00070 3 061 mAh/);
     expect(all).toContain("Lot accepted — 0 nonconforming of 13 tested is within the acceptance number 0: accept.");
     expect(all).toMatch(/Rule Single sampling \(ISO 2859-1\): test 13 specimens; accept the lot with 0 or fewer nonconforming, reject it with 1 or more/);
-    expect(all).toMatch(/Cells judged under Simple acceptance \(ILAC-G8:09\/2019\)/);
+    expect(all).toMatch(/Cells judged under Simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
   });
 
   it("states the 0.2 It statistics with Cpl and its formula, that the decision rests on the sample, and who authorised it", () => {

@@ -93,29 +93,37 @@ describe("the procedure's decision rule with the budgets", () => {
     accuracy: { current: { percentOfReading: 1, percentOfRange: 0, range: 5 }, voltage: { percentOfReading: 1, percentOfRange: 0, range: 5 }, time: { ppm: 1000 } },
   };
 
-  it("guarded acceptance leaves a result inside the guard band not decided; simple acceptance lets it conform", () => {
+  it("inside the guard band: binary rule does not conform, non-binary rule conditional pass, simple acceptance conforms (ILAC-G8:09/2019 4.2)", () => {
     const measured = evaluate({ ...close.input, instruments: [clauseFourChannel] }).acceptance[0]!.measured!.value;
     expect(measured).toBeGreaterThan(3);
     // U = 1.16 % of about 3.015 Ah is 0.035 Ah (REFERENCES.md §6 Example A limits): the guard band covers it.
     expect(measured).toBeLessThan(3.03);
-    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "guarded acceptance"), instruments: [clauseFourChannel] });
-    expect(guarded.decisionRule).toBe("guarded acceptance");
-    expect(guarded.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "not decided" });
-    expect(guarded.acceptance[0]!.statement).toContain("guarded acceptance");
+    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "binary guard band"), instruments: [clauseFourChannel] });
+    expect(guarded.decisionRule).toBe("binary guard band");
+    expect(guarded.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "does not conform" });
+    expect(guarded.acceptance[0]!.statement).toContain("binary statement with guard band w = U (ILAC-G8:09/2019 4.2.2)");
+    // The repeat rule could have run another cycle: the specimen is not decided (evaluate-repeat-rule.ts).
     expect(guarded.verdict.specimenConforms).toBe("not decided");
+    const fourOutcomes = evaluate({ ...close.input, resolution: withRule(close.resolution, "non-binary guard band"), instruments: [clauseFourChannel] });
+    expect(fourOutcomes.acceptance[0]).toMatchObject({ rule: "non-binary guard band", outcome: "conditional pass" });
+    expect(fourOutcomes.verdict.specimenConforms).toBe("conditional pass");
+    // A resolution frozen under the earlier name is read as the binary rule.
+    const legacy = evaluate({ ...close.input, resolution: { ...close.resolution, decisionRule: "guarded acceptance" }, instruments: [clauseFourChannel] });
+    expect(legacy.decisionRule).toBe("binary guard band");
+    expect(legacy.acceptance[0]).toMatchObject({ outcome: "does not conform" });
     const simple = evaluate({ ...close.input, instruments: [clauseFourChannel] });
     expect(simple.acceptance[0]).toMatchObject({ rule: "simple acceptance", outcome: "conforms" });
   });
 
-  it("guarded acceptance conforms when the result clears the limit by U", () => {
+  it("a guard-band rule conforms when the result clears the limit by U", () => {
     const clear = buildRatedCapacityRun();
-    const guarded = evaluate({ ...clear.input, resolution: withRule(clear.resolution, "guarded acceptance"), instruments: [channel] });
-    expect(guarded.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "conforms" });
+    const guarded = evaluate({ ...clear.input, resolution: withRule(clear.resolution, "binary guard band"), instruments: [channel] });
+    expect(guarded.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "conforms" });
     expect(guarded.verdict.specimenConforms).toBe("conforms");
   });
 
-  it("without a cycler channel's accuracy there is no budget; guarded acceptance is not decided, simple acceptance decides", () => {
-    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "guarded acceptance"), instruments: [thermometer] });
+  it("without a cycler channel's accuracy there is no budget; a guard-band rule is not decided, simple acceptance decides", () => {
+    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "binary guard band"), instruments: [thermometer] });
     expect(guarded.uncertainty).toEqual([]);
     expect(guarded.uncertaintyNotEvaluated.map((entry) => [entry.stepId, entry.quantity])).toEqual([
       ["precondition", "capacity"],
@@ -125,7 +133,7 @@ describe("the procedure's decision rule with the budgets", () => {
     ]);
     expect(guarded.uncertaintyNotEvaluated[0]!.reason).toBe("no cycler channel is among the run's instruments, so no accuracy applies to the log's readings");
     expect(guarded.acceptance[0]).toMatchObject({ outcome: "not decided", uncertainty: { evaluated: false }, expandedUncertainty: null });
-    expect(guarded.acceptance[0]!.statement).toContain("guarded acceptance needs the expanded uncertainty, and it was not evaluated");
+    expect(guarded.acceptance[0]!.statement).toContain("a guard band w = U needs the expanded uncertainty, and it was not evaluated");
 
     const simple = evaluate({ ...close.input });
     expect(simple.acceptance[0]).toMatchObject({ outcome: "conforms", uncertainty: { evaluated: false } });
@@ -190,7 +198,7 @@ describe("DC resistance budget of a pulse step", () => {
     const procedure = {
       ...dcResistanceTemplate,
       acceptance: [{ kind: "resistance" as const, id: "dc-limit", stepId: "pulse", atMost: { value: 50, unit: "mOhm" as const } }],
-      decisionRule: "guarded acceptance" as const,
+      decisionRule: "binary guard band" as const,
     };
     const resolution = resolveOrThrow({ procedure });
     const log = generateSyntheticLog({
@@ -219,7 +227,7 @@ describe("DC resistance budget of a pulse step", () => {
     const entry = evaluation.uncertainty.find((candidate) => candidate.quantity === "dc-resistance");
     expect(entry).toMatchObject({ stepId: "pulse", cycle: 1 });
     expect(entry!.budget.value).toBe(pulseStep.dcResistance!.resistanceOhm);
-    expect(evaluation.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "conforms", uncertainty: { evaluated: true, quantity: "dc-resistance" } });
+    expect(evaluation.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "conforms", uncertainty: { evaluated: true, quantity: "dc-resistance" } });
     expect(evaluation.acceptance[0]!.expandedUncertainty).toBeCloseTo(entry!.budget.expandedUncertainty, 12);
   });
 });
