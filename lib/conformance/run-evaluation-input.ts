@@ -56,8 +56,20 @@ export const evaluationOptionsSchema = z.strictObject({
   gapAllowanceS: notNegative("the pause allowance").default(600),
   /** Recorded step times and the log's phase times may differ by this much, s (hand-noted times). */
   timeAgreementS: notNegative("the time agreement").default(300),
-  /** Share of constant-current samples allowed outside the tolerance (switching transients). */
-  currentOutlierShare: z.number().min(0).max(1).default(0.02),
+  /**
+   * Time, in total, that a constant-current part may spend outside the current tolerance (switching
+   * transients last seconds: common practice), s. A duration, not a share of samples: 2 % of a 5 h
+   * discharge would be 6 min off-current.
+   */
+  currentExcursionAllowanceS: notNegative("the off-current allowance").default(10),
+  /**
+   * How far a logged charge voltage may read above its limit before it counts as above it: the noise
+   * of a logged constant-voltage hold, V (our own default, common practice). Not a percentage: the
+   * ±1 % of IEC 61960-3 clause 4 is a measurement tolerance, not a charge limit.
+   */
+  chargeVoltageReadingAllowanceV: notNegative("the charge voltage reading allowance").default(0.005),
+  /** No longer used (the allowance was a share of samples); kept so settings stored with it still read. */
+  currentOutlierShare: z.number().min(0).max(1).optional(),
   /** How the log is cut into phases (lib/analysis segment options). */
   segment: segmentOptionsSchema.optional(),
 });
