@@ -10,6 +10,7 @@ import { checkEndCondition } from "./check-end-condition";
 import { checkLogPhaseFound, checkRecordMatchesLog, checkUnexplainedLogPhases } from "./check-log-agreement";
 import { checkOrderAndGap, checkStepRecorded, type PlacedStep } from "./check-order-and-gaps";
 import { checkRating } from "./check-rating";
+import { checkRestWindow } from "./check-rest-window";
 import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
@@ -78,7 +79,17 @@ export interface RunEvaluation {
 export type RunEvaluationResult = { ok: true; evaluation: RunEvaluation } | { ok: false; problems: FieldProblem[] };
 
 /** One step of one cycle through every rule family, in the order a reviewer reads them. */
-function checkStep({ placed, previous, resolution }: { placed: PlacedStep; previous: PlacedStep | undefined; resolution: ProcedureResolution }): Finding[] {
+function checkStep({
+  placed,
+  previous,
+  next,
+  resolution,
+}: {
+  placed: PlacedStep;
+  previous: PlacedStep | undefined;
+  next: PlacedStep | undefined;
+  resolution: ProcedureResolution;
+}): Finding[] {
   const { context } = placed;
   return [
     checkStepRecorded(context),
@@ -87,6 +98,7 @@ function checkStep({ placed, previous, resolution }: { placed: PlacedStep; previ
     ...checkRecordMatchesLog(context),
     ...checkAmbient(context),
     ...checkDurations(context),
+    ...checkRestWindow({ current: placed, previous, next }),
     ...checkSetPoints(context),
     ...checkCurrentHold(context),
     ...checkEndCondition(context),
@@ -206,7 +218,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       logNote: evidence.kind === "found" ? null : evidence.reason,
       results: evidence.kind === "found" ? evidence.results : null,
       dcResistance: evidence.kind === "found" ? evidence.dcResistance : null,
-      findings: checkStep({ placed: current, previous: placed[k - 1], resolution }),
+      findings: checkStep({ placed: current, previous: placed[k - 1], next: placed[k + 1], resolution }),
     };
   });
 

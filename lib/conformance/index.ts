@@ -15,6 +15,7 @@ export * from "./check-charge-voltage";
 export * from "./check-rating";
 export * from "./check-cautions-acknowledged";
 export * from "./check-order-and-gaps";
+export * from "./check-rest-window";
 export * from "./check-log-agreement";
 export * from "./evaluate-acceptance";
 export * from "./evaluate-uncertainty";
