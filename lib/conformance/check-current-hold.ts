@@ -2,6 +2,7 @@ import type { IndexRange, LogColumns } from "@/lib/analysis";
 import { assertNever, formatNumber, type ResolvedSetPoint } from "@/protocols";
 import type { Finding, FindingDraft } from "./finding";
 import { citeProcedure, citeTolerance, commonPractice, formatPercent, formatRange, formatValue } from "./format-value";
+import { explainTooSlowForPulse } from "./check-pulse-timing";
 import { createFinding, explainMissingLog, type StepContext } from "./step-context";
 import { createBand, isInsideBand, type Band } from "./tolerance-band";
 
@@ -108,6 +109,9 @@ function checkPulseLevels(context: StepContext, checks: { base: HoldCheck; pulse
       return createFinding(context, { ...draft, observed: { text: missing ?? "no set-point" }, outcome: "not assessable" });
     }
     if (evidence.dcResistance === null) {
+      // A log sampled too slowly to show the pulse cannot tell whether it was held (issue 12, 3d).
+      const tooSlow = context.step.kind === "pulse" ? explainTooSlowForPulse(context.step, evidence.columns, evidence.phase) : null;
+      if (tooSlow !== null) return createFinding(context, { ...draft, observed: { text: tooSlow }, outcome: "not assessable" });
       return createFinding(context, { ...draft, observed: { text: "no two-level pulse was found in the logged phase" }, outcome: "deviates" });
     }
     const meanA = Math.abs(level === "base" ? evidence.dcResistance.baseMeanCurrentA : evidence.dcResistance.pulseMeanCurrentA);

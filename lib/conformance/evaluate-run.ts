@@ -9,6 +9,7 @@ import { checkDurations } from "./check-durations";
 import { checkEndCondition } from "./check-end-condition";
 import { checkLogPhaseFound, checkRecordMatchesLog, checkUnexplainedLogPhases } from "./check-log-agreement";
 import { checkOrderAndGap, checkStepRecorded, type PlacedStep } from "./check-order-and-gaps";
+import { checkPulseTiming } from "./check-pulse-timing";
 import { checkRating } from "./check-rating";
 import { checkRestWindow } from "./check-rest-window";
 import { checkSetPoints } from "./check-set-points";
@@ -101,6 +102,7 @@ function checkStep({
     ...checkRestWindow({ current: placed, previous, next }),
     ...checkSetPoints(context),
     ...checkCurrentHold(context),
+    ...checkPulseTiming(context),
     ...checkEndCondition(context),
     ...checkChargeVoltage(context),
     ...checkRating(context),

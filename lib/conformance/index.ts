@@ -16,6 +16,7 @@ export * from "./check-rating";
 export * from "./check-cautions-acknowledged";
 export * from "./check-order-and-gaps";
 export * from "./check-rest-window";
+export * from "./check-pulse-timing";
 export * from "./check-log-agreement";
 export * from "./evaluate-acceptance";
 export * from "./evaluate-uncertainty";

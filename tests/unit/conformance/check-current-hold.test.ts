@@ -57,8 +57,13 @@ describe("checkCurrentHold", () => {
       ["pulse#1/current-held/baseCurrent", "meets"],
       ["pulse#1/current-held/pulseCurrent", "meets"],
     ]);
-    const single = checkCurrentHold(contextOf({ step: steps.pulse, evidence: evidenceOf(discharge(50, 0.6), { pulse: true }) }));
+    // One level only, sampled every 0.1 s (fast enough to have shown a 1 s pulse): deviates.
+    const flat = logOf(levelOf(150, 3.9, -0.6), Array.from({ length: 150 }, (_, k) => k * 0.1));
+    const single = checkCurrentHold(contextOf({ step: steps.pulse, evidence: evidenceOf(flat, { pulse: true }) }));
     expect(single.map((f) => f.outcome)).toEqual(["deviates", "deviates"]);
+    // Sampled every 1 s, the same log could not have shown it: not assessable (check-pulse-timing.test.ts).
+    const slow = checkCurrentHold(contextOf({ step: steps.pulse, evidence: evidenceOf(discharge(50, 0.6), { pulse: true }) }));
+    expect(slow.map((f) => f.outcome)).toEqual(["not assessable", "not assessable"]);
   });
 
   it("cannot judge without a log; rests carry no current check", () => {
