@@ -93,6 +93,20 @@ export interface CertificateStepResult {
   dcResistanceOhm: number | null;
   /** The step ran outside the cell's rating. */
   beyondRating: boolean;
+  /**
+   * The set-point current(s) of the step in A and as a multiple of It (It = rated capacity / 1 h,
+   * IEC 61434): as the operator programmed them, else as the procedure resolved them. Absent in
+   * certificates issued before it was stated.
+   */
+  setPoints?: CertificateSetPointCurrent[];
+}
+
+export interface CertificateSetPointCurrent {
+  /** "current", "base current", "pulse current". */
+  name: string;
+  currentA: number;
+  itMultiple: number;
+  from: "as programmed" | "from the procedure";
 }
 
 export interface CertificateCriterion {
@@ -145,8 +159,13 @@ export interface RunCertificatePayload extends CertificateCommon {
   sampling: string;
   /** 7.8.2.1 e. */
   method: { code: string; title: string; version: number; standard: string; clause: string; note: string | null };
-  /** 7.8.2.1 h: first and last recorded moment of the run, ISO; null when nothing was timed. */
-  testing: { from: string | null; to: string | null };
+  /**
+   * 7.8.2.1 i, dates of testing, ISO 8601 in UTC: the data log's first and last sample when the log's
+   * start is known, else the first and last moment the step sheet records; null when nothing was timed.
+   * `source` says which (absent in certificates issued before it was stated); `stepSheet` gives the
+   * step sheet's own span beside the log's, so a reader sees both where they differ.
+   */
+  testing: { from: string | null; to: string | null; source?: string; stepSheet?: { from: string | null; to: string | null } | null };
   /** 7.8.3.1 a: the ambient of each step as recorded. */
   conditions: CertificateAmbient[];
   instruments: CertificateInstrument[];

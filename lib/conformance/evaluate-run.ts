@@ -69,12 +69,37 @@ export interface RunEvaluation {
   uncertainty: StepUncertainty[];
   /** Results with no budget, and why (no cycler channel, no stated accuracy). Absent in older stored evaluations. */
   uncertaintyNotEvaluated: UncertaintyNotEvaluated[];
+  /**
+   * When the log's first and last samples were taken, on the wall clock (ISO 8601, UTC): the dates of
+   * testing a certificate states (ISO/IEC 17025:2017 7.8.2.1 i). Absent without a log or its start time,
+   * and in evaluations stored before it was recorded.
+   */
+  logSpan?: LogSpan;
   /** Every criterion on every cycle of its step. */
   acceptance: AcceptanceResult[];
   repeat: RepeatOutcome | null;
   /** The statement of conformity per criterion, on the cycle it rests on. */
   conformity: CriterionConformity[];
   verdict: RunVerdict;
+}
+
+export interface LogSpan {
+  from: string;
+  to: string;
+  /** "log timestamps" when the log carried wall-clock time; else its elapsed time laid from the first recorded step start. */
+  startedFrom: "log timestamps" | "first recorded step start";
+}
+
+/** The log's first and last samples on the wall clock, when its start is known. */
+function findLogSpan(log: RunEvaluationInput["log"], logStartMs: number | null, startedFrom: LogSpan["startedFrom"] | undefined): LogSpan | undefined {
+  if (log === undefined || log.length === 0 || logStartMs === null || !Number.isFinite(logStartMs)) return undefined;
+  const first = log.timeS[0] as number;
+  const last = log.timeS[log.length - 1] as number;
+  return {
+    from: new Date(logStartMs + first * 1000).toISOString(),
+    to: new Date(logStartMs + last * 1000).toISOString(),
+    startedFrom: startedFrom ?? "log timestamps",
+  };
 }
 
 export type RunEvaluationResult = { ok: true; evaluation: RunEvaluation } | { ok: false; problems: FieldProblem[] };
@@ -182,7 +207,7 @@ function stateConformity({
 export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   const checked = checkRunEvaluationInput(input);
   if (!checked.ok) return checked;
-  const { resolution, cellRating, stepRecords, log, logStartedAt, procedureSource, options, evaluatedAgainst, instruments } = checked.value;
+  const { resolution, cellRating, stepRecords, log, logStartedAt, logStartedFrom, procedureSource, options, evaluatedAgainst, instruments } = checked.value;
   // A resolution frozen on a run planned before procedures named a rule has none: simple acceptance.
   const decisionRule = readDecisionRule(resolution);
   const citation = procedureSource ? `${procedureSource.standard} ${procedureSource.clause}` : null;
@@ -247,6 +272,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
   const otherVersionNote = describeOtherVersion(evaluatedAgainst);
+  const logSpan = findLogSpan(log, logStartMs, logStartedFrom);
   const verdict = decideVerdict({
     findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
     conformity,
@@ -261,6 +287,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       runFindings,
       log: logAnalysis.summary,
       decisionRule,
+      ...(logSpan !== undefined && { logSpan }),
       uncertainty: uncertainties.budgets,
       uncertaintyNotEvaluated: uncertainties.notEvaluated,
       acceptance,

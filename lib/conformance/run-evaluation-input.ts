@@ -102,6 +102,8 @@ export const storedRunEvaluationSchema = z.strictObject({
   stepRecords: z.array(stepRecordSchema).max(10_000),
   /** The wall-clock time of the log's first sample (timeS = 0). */
   logStartedAt: recordedTimeSchema.optional(),
+  /** Where logStartedAt comes from: the log's own timestamps, or (elapsed-time logs) the first recorded step start. */
+  logStartedFrom: z.enum(["log timestamps", "first recorded step start"]).optional(),
   procedureSource: procedureSourceSchema.optional(),
   options: evaluationOptionsSchema.prefault({}),
   evaluatedAgainst: evaluatedAgainstSchema.default({}),
@@ -130,6 +132,7 @@ export interface RunEvaluationInput {
   stepRecords: readonly StepRecordInput[];
   log?: LogColumns;
   logStartedAt?: string;
+  logStartedFrom?: "log timestamps" | "first recorded step start";
   procedureSource?: ProcedureSource;
   options?: EvaluationOptionsInput;
   evaluatedAgainst?: EvaluatedAgainst;
@@ -157,12 +160,13 @@ export function checkRunEvaluationInput(input: RunEvaluationInput): RunEvaluatio
   if (typeof resolution !== "object" || resolution === null || !Array.isArray(resolution.steps) || !Array.isArray(resolution.acceptance)) {
     problems.push({ path: "resolution", message: "the resolution is the result of resolving the procedure version on the cell specification" });
   } else if (resolution.decisionRule !== undefined && !decisionRuleSchema.safeParse(resolution.decisionRule).success) {
-    problems.push({ path: "resolution.decisionRule", message: "the decision rule is simple acceptance or guarded acceptance" });
+    problems.push({ path: "resolution.decisionRule", message: "the decision rule is simple acceptance, binary guard band or non-binary guard band" });
   }
   const parsed = storedRunEvaluationSchema.safeParse({
     cellRating: input.cellRating,
     stepRecords: input.stepRecords,
     logStartedAt: input.logStartedAt,
+    logStartedFrom: input.logStartedFrom,
     procedureSource: input.procedureSource,
     options: input.options,
     evaluatedAgainst: input.evaluatedAgainst,
