@@ -1,4 +1,4 @@
-import type { DcResistancePulse, StepResults } from "@/lib/analysis";
+import { describeDischargeEnd, type DcResistancePulse, type StepResults } from "@/lib/analysis";
 import { readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
 import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
 import { checkAmbient } from "./check-ambient";
@@ -249,7 +249,14 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     };
   });
 
-  const uncertainties = evaluateStepUncertainties({ steps, instruments });
+  const uncertainties = evaluateStepUncertainties({
+    steps: steps.map((step, k) => {
+      const evidence = contexts[k]?.evidence;
+      const log = step.kind === "discharge" && evidence?.kind === "found" ? describeDischargeEnd(evidence.columns, evidence.phase) : null;
+      return { ...step, log };
+    }),
+    instruments,
+  });
   const acceptance = resolution.acceptance.flatMap((criterion) =>
     contexts
       .filter((context) => context.step.id === criterion.stepId)

@@ -49,13 +49,16 @@ describe("uncertainty budgets of a rated-capacity run", () => {
     expect(capacity.rows.map((row) => [row.quantity, row.source, row.tolerance, row.unit, row.distribution])).toEqual([
       ["current", "CH-07 current accuracy", "±(0.05 % of reading + 0.05 % of 5 A range)", "A", "rectangular"],
       ["time", "CH-07 time accuracy", "±100 ppm of the elapsed time", "s", "rectangular"],
+      // Issue 12, 2: where the discharge stops, through |dQ/dV| at the end of the log (the synthetic log writes
+      // full-precision values, so no resolution line).
+      ["end voltage", expect.stringMatching(/^CH-07 voltage accuracy, moving where the discharge stops \(\|dQ\/dV\| = [\d.]+ Ah\/V at the end of the log\)$/), "±(0.02 % of reading + 0.02 % of 5 V range)", "V", "rectangular"],
     ]);
     const meanA = (results.capacityAh * 3600) / results.durationS;
     // a(I) = 0.05 % of Ī + 0.05 % of 5 A; u = a/√3 (GUM 4.3.7); 100 ppm of t for the time base.
     expect(capacity.rows[0]!.halfWidth).toBeCloseTo(0.0005 * meanA + 0.0025, 12);
     expect(capacity.rows[0]!.relativeStandardUncertainty).toBeCloseTo((0.0005 * meanA + 0.0025) / Math.sqrt(3) / meanA, 12);
     expect(capacity.rows[1]!.halfWidth).toBeCloseTo(1e-4 * results.durationS, 9);
-    const ur = Math.hypot(capacity.rows[0]!.relativeStandardUncertainty, capacity.rows[1]!.relativeStandardUncertainty);
+    const ur = Math.hypot(capacity.rows[0]!.relativeStandardUncertainty, capacity.rows[1]!.relativeStandardUncertainty, capacity.rows[2]!.relativeContribution);
     expect(capacity.relativeExpandedUncertainty).toBeCloseTo(2 * ur, 12);
     expect(capacity.expandedUncertainty).toBeCloseTo(2 * ur * results.capacityAh, 12);
 
@@ -159,11 +162,24 @@ describe("the procedure's decision rule with the budgets", () => {
     const both = evaluate({ ...close.input, instruments: [channel, clauseFourChannel] });
     const capacity = both.uncertainty.find((entry) => entry.stepId === "discharge" && entry.quantity === "capacity")!.budget;
     expect(capacity.rows[0]!.source).toBe("CH-C4 current accuracy");
-    expect(capacity.relativeExpandedUncertainty * 100).toBeCloseTo(1.1605, 3);
+    // Current and time alone give Example A's 1.1605 % (REFERENCES.md §6); the end-voltage term adds to it in quadrature.
+    const [current, time, end] = capacity.rows;
+    expect(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution) * 100).toBeCloseTo(1.1605, 3);
+    expect(capacity.relativeExpandedUncertainty).toBeCloseTo(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution, end!.relativeContribution), 12);
+    expect(capacity.relativeExpandedUncertainty * 100).toBeGreaterThan(1.1605);
     const noTime: RunInstrument = { ...channel, identifier: "CH-08", accuracy: { current: channel.accuracy.current, voltage: channel.accuracy.voltage } };
     const oneUnstated = evaluate({ ...close.input, instruments: [channel, noTime] });
     expect(oneUnstated.uncertainty).toEqual([]);
     expect(oneUnstated.uncertaintyNotEvaluated[0]!.reason).toContain("CH-08 states no time accuracy");
+  });
+
+  it("never makes a budget for a reading outside the range the channel's accuracy is stated for (issue 13, 4)", () => {
+    const small: RunInstrument = { ...channel, identifier: "CH-05", accuracy: { ...channel.accuracy, current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 0.5 } } };
+    const evaluation = evaluate({ ...close.input, instruments: [small] });
+    const capacity = evaluation.uncertaintyNotEvaluated.find((entry) => entry.stepId === "discharge" && entry.quantity === "capacity");
+    expect(capacity?.reason).toMatch(/^the current of 0\.6\d* A is outside the range of CH-05 \(0\.5 A\), for which its accuracy is stated$/);
+    expect(evaluation.uncertainty.filter((entry) => entry.stepId === "discharge")).toEqual([]);
+    expect(evaluation.acceptance[0]!.statement).toContain("Measurement uncertainty not evaluated: the current of 0.6");
   });
 
   it("refuses an instrument whose accuracy is not a specification, with its path", () => {
