@@ -7,6 +7,7 @@ import { checkChargeVoltage } from "./check-charge-voltage";
 import { checkCurrentHold } from "./check-current-hold";
 import { checkDurations } from "./check-durations";
 import { checkEndCondition } from "./check-end-condition";
+import { checkInstrumentTolerances } from "./check-instrument-tolerances";
 import { checkLogPhaseFound, checkRecordMatchesLog, checkUnexplainedLogPhases } from "./check-log-agreement";
 import { checkOrderAndGap, checkStepRecorded, type PlacedStep } from "./check-order-and-gaps";
 import { checkPulseTiming } from "./check-pulse-timing";
@@ -275,6 +276,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     checkResolution(resolution, citation),
     checkRecordsFit(plan.recordProblems, citation),
     checkUnexplainedLogPhases(logAnalysis.summary, citation),
+    ...(instruments.length > 0 ? [checkInstrumentTolerances(instruments, resolution, citation)] : []),
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });

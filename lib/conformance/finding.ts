@@ -21,7 +21,8 @@ export type FindingRule =
   | "current-within-rating"
   | "caution-acknowledged"
   | "rest-window-within-limit"
-  | "pulse-timing";
+  | "pulse-timing"
+  | "instruments-meet-tolerances";
 
 export type FindingUnit = "A" | "V" | "s" | "°C" | "Ah" | "Ω";
 

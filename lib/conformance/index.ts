@@ -17,6 +17,7 @@ export * from "./check-cautions-acknowledged";
 export * from "./check-order-and-gaps";
 export * from "./check-rest-window";
 export * from "./check-pulse-timing";
+export * from "./check-instrument-tolerances";
 export * from "./check-log-agreement";
 export * from "./evaluate-acceptance";
 export * from "./evaluate-uncertainty";
