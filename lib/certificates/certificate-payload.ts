@@ -272,6 +272,11 @@ export interface LotCertificatePayload extends CertificateCommon {
   testing: { from: string | null; to: string | null };
   /** The lot decision rests on the sample; results relate only to the cells tested. */
   sampleStatement: string;
+  /**
+   * How the ISO 2859-1 plan was used: switching rules not applied, a continuing series of lots
+   * assumed, and ISO 2859-2 named for an isolated lot. Absent in lot certificates issued before it was stated.
+   */
+  samplingContext?: string;
 }
 
 export type CertificatePayload = RunCertificatePayload | LotCertificatePayload;

@@ -163,6 +163,10 @@ describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling
     expect(all).toContain("Lot accepted — 0 nonconforming of 13 tested is within the acceptance number 0: accept.");
     expect(all).toMatch(/Rule Single sampling \(ISO 2859-1\): test 13 specimens; accept the lot with 0 or fewer nonconforming, reject it with 1 or more/);
     expect(all).toMatch(/Cells judged under Simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
+    // Issue 12, 6: ISO 2859-1's switching rules and its series-of-lots basis [published: the standard's scope], and
+    // ISO 2859-2 named for a lot in isolation (not implemented).
+    expect(all).toMatch(/Use of ISO 2859-1 The sampling plan is an ISO 2859-1 single sampling plan at normal inspection\. The switching rules of ISO 2859-1 \(to tightened or reduced inspection\) were not applied, and the plan's AQL assumes a continuing series of lots\./);
+    expect(all).toContain("For a lot in isolation, ISO 2859-2 (plans indexed by limiting quality) is the applicable approach; it is not implemented in this software");
   });
 
   it("states the 0.2 It statistics with Cpl and its formula, that the decision rests on the sample, and who authorised it", () => {
