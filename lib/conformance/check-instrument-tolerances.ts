@@ -13,8 +13,10 @@ const pct = (x: number) => `${formatNumber(x, { maxDecimals: 3 })} %`;
  * clause 4; held as parameters in protocols/measurement-tolerances.ts). A cycler channel is checked
  * at every set-point current and voltage of the run's charge and discharge steps; a thermometer or
  * climate chamber against the temperature tolerance. A run whose instruments do not meet them is flagged.
+ * An accuracy the register does not state is not checked (the budget says it is not evaluated); with
+ * nothing stated at all there is no finding.
  */
-export function checkInstrumentTolerances(instruments: readonly RunInstrument[], resolution: ProcedureResolution, citation: string | null): Finding {
+export function checkInstrumentTolerances(instruments: readonly RunInstrument[], resolution: ProcedureResolution, citation: string | null): Finding | null {
   const problems: string[] = [];
   const unstated: string[] = [];
   let checked = 0;
@@ -58,15 +60,10 @@ export function checkInstrumentTolerances(instruments: readonly RunInstrument[],
     }
   }
   const unique = [...new Set(unstated)];
-  const outcome = problems.length > 0 ? "deviates" : unique.length > 0 || checked === 0 ? "not assessable" : "meets";
-  const observed =
-    problems.length > 0
-      ? problems.join("; ")
-      : unique.length > 0
-        ? `cannot be told: ${unique.join("; ")}`
-        : checked === 0
-          ? "no instrument whose accuracy the tolerances concern is recorded for the run"
-          : `every stated accuracy is within the tolerances (${checked} checks)`;
+  if (checked === 0) return null;
+  const outcome = problems.length > 0 ? "deviates" : "meets";
+  const notChecked = unique.length > 0 ? `; not checked: ${unique.join("; ")}` : "";
+  const observed = problems.length > 0 ? `${problems.join("; ")}${notChecked}` : `every stated accuracy is within the tolerances (${checked} checks)${notChecked}`;
   return createRunFinding({
     rule: "instruments-meet-tolerances",
     title: "Instruments accurate enough for the measurement tolerances",

@@ -276,7 +276,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     checkResolution(resolution, citation),
     checkRecordsFit(plan.recordProblems, citation),
     checkUnexplainedLogPhases(logAnalysis.summary, citation),
-    ...(instruments.length > 0 ? [checkInstrumentTolerances(instruments, resolution, citation)] : []),
+    ...[checkInstrumentTolerances(instruments, resolution, citation)].filter((finding): finding is Finding => finding !== null),
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
