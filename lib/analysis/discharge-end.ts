@@ -36,7 +36,8 @@ export function findResolution(values: ArrayLike<number>, range: IndexRange): nu
     if (d > decimals) decimals = d;
   }
   // More than 6 decimals: written at (nearly) full precision, no resolution worth a budget line.
-  return decimals < 0 || decimals > 6 ? null : 10 ** -decimals;
+  // toFixed keeps 10⁻⁴ as 0.0001 rather than 0.00009999999999999999.
+  return decimals < 0 || decimals > 6 ? null : Number((10 ** -decimals).toFixed(decimals));
 }
 
 /**

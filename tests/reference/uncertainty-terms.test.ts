@@ -73,7 +73,8 @@ describe("reading the end of a logged discharge", () => {
   });
 
   it("finds a column's resolution from its written decimals, and none for full-precision values", () => {
-    expect(findResolution([0.6003, 0.6, 0.59], { from: 0, to: 2 })).toBeCloseTo(1e-4, 15);
+    expect(findResolution([0.6003, 0.6, 0.59], { from: 0, to: 2 })).toBe(0.0001);
+    expect(String(findResolution([0.6003], { from: 0, to: 0 }))).toBe("0.0001");
     expect(findResolution([0.1 + 0.2, 0.6], { from: 0, to: 1 })).toBeCloseTo(0.1, 15);
     expect(findResolution([Math.PI, Math.E], { from: 0, to: 1 })).toBeNull();
   });
