@@ -4,9 +4,11 @@ import { computeDesignation } from './designation';
 
 /**
  * Positive-electrode letters of the IEC 61960 cell designation (clause 5.1): cobalt, nickel,
- * manganese, vanadium, titanium.
+ * manganese, vanadium, titanium; and, from an IECEE CTL decision on cell designations under IEC
+ * 62133 (which refers to IEC 61960 clause 5.1), iron (F), iron phosphate (Fp), manganese phosphate
+ * (Mp) and any other material (X). See docs/references.md for the source and what is not confirmed.
  */
-export const positiveElectrodeLetters = ['C', 'N', 'M', 'V', 'T'] as const;
+export const positiveElectrodeLetters = ['C', 'N', 'M', 'V', 'T', 'F', 'Fp', 'Mp', 'X'] as const;
 export type PositiveElectrodeLetter = (typeof positiveElectrodeLetters)[number];
 
 export const positiveElectrodeNames: Record<PositiveElectrodeLetter, string> = {
@@ -15,6 +17,10 @@ export const positiveElectrodeNames: Record<PositiveElectrodeLetter, string> = {
   M: 'manganese',
   V: 'vanadium',
   T: 'titanium',
+  F: 'iron',
+  Fp: 'iron phosphate',
+  Mp: 'manganese phosphate',
+  X: 'other material',
 };
 
 export const cellShapes = ['cylindrical', 'prismatic'] as const;
@@ -35,7 +41,7 @@ export const cellSpecificationFieldsSchema = z.strictObject({
   designation: z.string().trim().min(1, { error: 'the designation is empty' }).max(40).optional(),
   chemistry: z.strictObject({
     positiveElectrode: z.enum(positiveElectrodeLetters, {
-      error: explainTypeError('the positive electrode is one of the IEC 61960 letters C, N, M, V, T'),
+      error: explainTypeError('the positive electrode is one of the letters C, N, M, V, T, F, Fp, Mp, X'),
     }),
     /** The maker's or the trade's name for the chemistry, e.g. "NMC". */
     label: z.string().trim().min(1, { error: 'name the chemistry, e.g. NMC' }).max(40),

@@ -19,6 +19,15 @@ export function roundUpToWholeMm(valueMm: number): number {
   return Math.ceil(valueMm - 1e-9);
 }
 
+/**
+ * One dimension as the designation writes it: whole mm rounded up; below 1 mm, tenths of a mm
+ * rounded up with a leading "t" (IEC 61960 clause 5.1: 0.7 mm → t7).
+ */
+export function writeDimension(valueMm: number): string {
+  if (valueMm < 1) return `t${Math.ceil(valueMm * 10 - 1e-9)}`;
+  return String(roundUpToWholeMm(valueMm));
+}
+
 function checkDimension(value: number | undefined, words: string): string | undefined {
   if (value === undefined) return `the ${words} is needed for the designation`;
   if (!Number.isFinite(value) || value <= 0) return `the ${words} must be a positive number of mm`;
@@ -38,7 +47,7 @@ export function computeDesignation(cell: DesignationInput): DesignationResult {
     if (problem || cell.maxDiameterMm === undefined) return { ok: false, message: problem ?? '' };
     return {
       ok: true,
-      designation: `${prefix}R${roundUpToWholeMm(cell.maxDiameterMm)}/${roundUpToWholeMm(cell.maxHeightMm)}`,
+      designation: `${prefix}R${writeDimension(cell.maxDiameterMm)}/${writeDimension(cell.maxHeightMm)}`,
     };
   }
   const problem =
@@ -48,6 +57,6 @@ export function computeDesignation(cell: DesignationInput): DesignationResult {
   if (problem || cell.maxThicknessMm === undefined || cell.maxWidthMm === undefined) {
     return { ok: false, message: problem ?? '' };
   }
-  const sizes = [cell.maxThicknessMm, cell.maxWidthMm, cell.maxHeightMm].map(roundUpToWholeMm);
+  const sizes = [cell.maxThicknessMm, cell.maxWidthMm, cell.maxHeightMm].map(writeDimension);
   return { ok: true, designation: `${prefix}P${sizes.join('/')}` };
 }

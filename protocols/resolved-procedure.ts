@@ -1,5 +1,5 @@
 import type { CapacityBasis } from './acceptance-criterion';
-import type { DecisionRule } from './decision-rule';
+import type { StoredDecisionRule } from './decision-rule';
 import type { SetPointToleranceName } from './measurement-tolerances';
 import type { RepeatRule } from './repeat-rule';
 import type { ResolvedTemperatureRange, ResolvedValue } from './resolve-quantity';
@@ -136,9 +136,10 @@ export interface ProcedureResolution {
   acceptance: ResolvedCriterion[];
   /**
    * The procedure's decision rule for its acceptance criteria. Resolutions frozen on runs planned
-   * before procedures stated a rule have none: read them with readDecisionRule.
+   * before procedures stated a rule have none, and older ones may name "guarded acceptance": read
+   * them with readDecisionRule.
    */
-  decisionRule: DecisionRule;
+  decisionRule: StoredDecisionRule;
   repeat?: RepeatRule;
   errors: ResolutionError[];
   cautions: ResolutionCaution[];

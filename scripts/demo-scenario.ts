@@ -20,7 +20,7 @@ export const DEMO_USERS: { email: string; displayName: string; role: Role; passw
 
 /**
  * Invented cell makers and models for the demo library. The dimensions give the IEC 61960
- * designations INR22/71, INR19/66 and IMR19/65.
+ * designations INR22/71, INR19/66, IMR19/65 and IFpR27/66.
  */
 export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: import("../protocols").CellSpecification }[] = [
   {
@@ -83,6 +83,27 @@ export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: imp
       maxMassG: 46,
       maxDiameterMm: 18.3,
       maxHeightMm: 65.0,
+    },
+  },
+  {
+    // An iron-phosphate cell: positive-electrode letters Fp (IECEE CTL decision on IEC 62133 designations), IFpR27/66.
+    maker: "Tarnwick Cells",
+    model: "TW-26F30",
+    data: {
+      chemistry: { positiveElectrode: "Fp", label: "LFP" },
+      shape: "cylindrical",
+      ratedCapacityMah: 3000,
+      minimumCapacityMah: 2950,
+      nominalVoltageV: 3.2,
+      chargeVoltageV: 3.65,
+      standardChargeCurrentA: 1.5,
+      maxChargeCurrentA: 3,
+      chargeTerminationCurrentA: 0.15,
+      maxContinuousDischargeCurrentA: 9,
+      endOfDischargeVoltageV: 2.5,
+      maxMassG: 90,
+      maxDiameterMm: 26.2,
+      maxHeightMm: 65.4,
     },
   },
 ];

@@ -3,6 +3,8 @@ import clsx from "clsx";
 const TONES: Record<string, { tone: string; mark: string }> = {
   conforms: { tone: "text-meets", mark: "✓" },
   "does not conform": { tone: "text-deviates", mark: "✕" },
+  "conditional pass": { tone: "text-unassessed", mark: "✓?" },
+  "conditional fail": { tone: "text-deviates", mark: "✕?" },
   "not decided": { tone: "text-unassessed", mark: "?" },
   "lot accepted": { tone: "text-meets", mark: "✓" },
   "lot rejected": { tone: "text-deviates", mark: "✕" },

@@ -1,11 +1,15 @@
 "use client";
 
-import { decisionRules, explainDecisionRule } from "@/protocols";
+import { decisionRules, explainDecisionRule, type DecisionRule } from "@/protocols";
 import { SelectInput } from "./select-input";
 
 export const DECISION_RULE_PATH = "definition.decisionRule";
 
-const RULE_WORDS = { "simple acceptance": "Simple acceptance", "guarded acceptance": "Guarded acceptance" } as const;
+const RULE_WORDS: Record<DecisionRule, string> = {
+  "simple acceptance": "Simple acceptance, w = 0 (ILAC-G8:09/2019 4.2.1)",
+  "binary guard band": "Binary statement with guard band w = U (ILAC-G8:09/2019 4.2.2)",
+  "non-binary guard band": "Non-binary statement with guard band w = U, four outcomes (ILAC-G8:09/2019 4.2.3)",
+};
 
 /**
  * How the measurement uncertainty enters the pass/fail statement of every criterion (ISO/IEC

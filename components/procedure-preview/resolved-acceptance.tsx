@@ -1,6 +1,7 @@
 import {
   assertNever,
   explainDecisionRule,
+  nameDecisionRule,
   formatNumber,
   type DecisionRule,
   type RepeatRule,
@@ -74,7 +75,7 @@ export function ResolvedAcceptance({
       )}
       {acceptance.length > 0 && (
         <p className="text-sm" data-testid="preview-decision-rule">
-          Decision rule: <span className="font-medium">{decisionRule}</span>. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+          Decision rule: <span className="font-medium">{nameDecisionRule(decisionRule)}</span>. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
         </p>
       )}
       {repeat && (

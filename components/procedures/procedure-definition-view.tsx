@@ -1,6 +1,6 @@
 import { RichTextView } from "@/components/rich-text/rich-text-view";
 import type { RichTextDoc } from "@/lib/rich-text";
-import { describeCriterion, describeStep, explainDecisionRule, formatQuantity, readDecisionRule, type Procedure } from "@/protocols";
+import { describeCriterion, describeStep, explainDecisionRule, formatQuantity, nameDecisionRule, readDecisionRule, type Procedure } from "@/protocols";
 
 /** A procedure version read like a paper method sheet: header, steps in order, criteria, cautions. */
 export function ProcedureDefinitionView({
@@ -79,7 +79,7 @@ export function ProcedureDefinitionView({
         )}
         {acceptance.length > 0 && (
           <p className="mt-2 text-sm" data-testid="decision-rule">
-            <span className="font-semibold">Decision rule:</span> {decisionRule}. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+            <span className="font-semibold">Decision rule:</span> {nameDecisionRule(decisionRule)}. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
           </p>
         )}
         {repeat && (

@@ -15,3 +15,5 @@ export * from "./synthetic-log";
 export * from "./write-log-csv";
 export * from "./uncertainty";
 export * from "./dc-resistance-uncertainty";
+export * from "./discharge-end";
+export * from "./capacity-budget-terms";

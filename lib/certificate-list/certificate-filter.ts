@@ -8,7 +8,7 @@ export const certificateFilterSchema = z.object({
   spec: z.uuid().optional().catch(undefined),
   from: day.optional().catch(undefined),
   to: day.optional().catch(undefined),
-  verdict: z.enum(["conforms", "does not conform", "not decided"]).optional().catch(undefined),
+  verdict: z.enum(["conforms", "conditional pass", "conditional fail", "does not conform", "not decided"]).optional().catch(undefined),
 });
 
 export type CertificateFilter = z.infer<typeof certificateFilterSchema>;

@@ -1,9 +1,8 @@
 import type { LotMemberResult } from "@/db/lot-sampling";
-import type { DecisionRule } from "@/lib/conformance";
 import { summariseStatistics, type SummaryResult } from "@/lib/lot-results/summarise-results";
 import type { LotDecision, SamplingPlan } from "@/lib/sampling";
 import { findReferenceGroup, groupByCurrent } from "@/lib/statistics";
-import type { CellSpecification } from "@/protocols";
+import type { CellSpecification, StoredDecisionRule } from "@/protocols";
 import { formatNumber } from "@/protocols/format-number";
 import { describeCertifiedCell, NO_EXTERNAL_PROVIDERS, REPRODUCTION, sign } from "./build-run-payload";
 import {
@@ -26,7 +25,7 @@ export interface LotSampledRun {
   /** The run's valid certificate, if one was issued. */
   certificate: string | null;
   procedure: { code: string; title: string; version: number; standard: string; clause: string };
-  decisionRule: DecisionRule;
+  decisionRule: StoredDecisionRule;
   testing: { from: string | null; to: string | null };
 }
 
@@ -54,6 +53,16 @@ export interface LotCertificateRecords {
 export const LOT_RESULTS_RELATE = "The results relate only to the cells tested; the lot decision rests on the sample.";
 
 const cells = (n: number) => `${formatNumber(n)} ${n === 1 ? "cell" : "cells"}`;
+
+/**
+ * ISO 2859-1 indexes its plans by AQL for a continuing series of lots and switches between normal,
+ * tightened and reduced inspection by the results of successive lots; ISO 2859-2 gives plans indexed
+ * by limiting quality for a lot in isolation (both [published]: the standards' scopes, cited by number).
+ * The switching rules are not applied here, and ISO 2859-2 is not implemented.
+ */
+export const SAMPLING_CONTEXT =
+  "The sampling plan is an ISO 2859-1 single sampling plan at normal inspection. The switching rules of ISO 2859-1 (to tightened or reduced inspection) were not applied, and the plan's AQL assumes a continuing series of lots. " +
+  "For a lot in isolation, ISO 2859-2 (plans indexed by limiting quality) is the applicable approach; it is not implemented in this software, so this decision is made with the ISO 2859-1 plan as if the lot were one of a series.";
 
 function describeDraw(draw: LotCertificateRecords["draw"], lotSize: number): string {
   if (draw.method === "chosen" && draw.positions.length === lotSize) return `The whole lot, tray positions 1 to ${formatNumber(lotSize)}, taken as the sample (100 % inspection).`;
@@ -192,6 +201,7 @@ export function buildLotCertificatePayload(records: LotCertificateRecords): LotC
     statistics,
     statisticsNote: note,
     testing: spanOf(records.runs),
+    samplingContext: SAMPLING_CONTEXT,
     sampleStatement:
       `The lot decision rests on the sample: ${cells(records.counts.drawn)} drawn under the plan above, of which ${cells(records.counts.tested)} tested with a statement of conformity. ` +
       `The results relate only to the cells tested; for the cells not drawn the certificate states the lot decision of ISO 2859-1 single sampling, not a result.`,

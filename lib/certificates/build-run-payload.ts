@@ -1,13 +1,15 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import { listCountedReadings, type DecisionRule, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
-import type { CellSpecification, ProcedureResolution } from "@/protocols";
+import { listCountedReadings, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
+import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
+import { formatMomentsInText } from "./certificate-format";
 import {
   CERTIFICATE_PAYLOAD_FORMAT,
   type CertificateAmbient,
   type CertificateCriterion,
   type CertificateFinding,
   type CertificateInstrument,
+  type CertificateSetPointCurrent,
   type CertificateStepResult,
   type CertificateUncertainty,
   type RunCertificatePayload,
@@ -21,15 +23,15 @@ import { listEvaluationFindings, type AcknowledgedDeviation } from "./review-cov
  * "uncertainty not evaluated".
  */
 interface LaterEvaluationFields {
-  decisionRule?: DecisionRule;
+  decisionRule?: StoredDecisionRule;
   uncertainty?: { stepId: string; cycle: number; quantity: "capacity" | "energy" | "dc-resistance"; budget: UncertaintyBudget }[];
   uncertaintyNotEvaluated?: { stepId: string; cycle: number; quantity: string; reason: string }[];
 }
 export type StoredEvaluation = Omit<RunEvaluation, keyof LaterEvaluationFields> & LaterEvaluationFields;
 
 /** The decision rule an evaluation applied: its own field, else the one its acceptance results name, else simple acceptance. */
-export function readDecisionRule(evaluation: StoredEvaluation): DecisionRule {
-  const legacy = (evaluation.settings as { decisionRule?: DecisionRule } | undefined)?.decisionRule;
+export function readDecisionRule(evaluation: StoredEvaluation): StoredDecisionRule {
+  const legacy = (evaluation.settings as { decisionRule?: StoredDecisionRule } | undefined)?.decisionRule;
   return evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? legacy ?? "simple acceptance";
 }
 
@@ -82,6 +84,30 @@ function coversTesting(instrument: RecordedInstrument, testing: { from: string |
   return instrument.calibratedOn <= testing.from.slice(0, 10) && testing.to.slice(0, 10) <= instrument.dueOn;
 }
 
+type Span = { from: string | null; to: string | null };
+
+/**
+ * The dates of testing (ISO/IEC 17025:2017 7.8.2.1 i) from what happened: the data log's first and
+ * last sample on the wall clock when the evaluation knows the log's start, with the step sheet's
+ * recorded span beside it; without such a log, the step sheet's span, saying so.
+ */
+export function findDatesOfTesting(evaluation: StoredEvaluation, stepRecords: RunCertificateRecords["stepRecords"]): RunCertificatePayload["testing"] {
+  const stepSheet = findTestingSpan(stepRecords);
+  const log = evaluation.logSpan;
+  if (log === undefined) return { ...stepSheet, source: "from the step sheet's recorded times: no data log with a known start time was evaluated", stepSheet: null };
+  const source =
+    log.startedFrom === "log timestamps"
+      ? "from the data log's first and last sample (the log's own timestamps)"
+      : "from the data log's first and last sample (its elapsed time, laid from the first step start recorded on the step sheet)";
+  return { from: log.from, to: log.to, source, stepSheet };
+}
+
+/** Both spans, so an instrument's calibration is checked over every moment either names. */
+function widestSpan(testing: RunCertificatePayload["testing"]): Span {
+  const moments = [testing.from, testing.to, testing.stepSheet?.from ?? null, testing.stepSheet?.to ?? null].filter((t): t is string => t !== null).sort();
+  return moments.length === 0 ? { from: null, to: null } : { from: moments[0] as string, to: moments[moments.length - 1] as string };
+}
+
 function labelOf(evaluation: StoredEvaluation, stepId: string | null, cycle: number | null): string {
   if (stepId === null) return "the run as a whole";
   const label = evaluation.steps.find((s) => s.stepId === stepId)?.label ?? stepId;
@@ -94,8 +120,9 @@ function describeFinding(evaluation: StoredEvaluation, finding: Finding, note: s
     findingId: finding.id,
     where: labelOf(evaluation, finding.stepId, finding.cycle),
     title: finding.title,
-    expected: finding.expected.text,
-    observed: finding.observed.text,
+    // One timestamp form throughout the certificate (ISO 8601 with zone, to the minute): findings write raw ISO moments.
+    expected: formatMomentsInText(finding.expected.text),
+    observed: formatMomentsInText(finding.observed.text),
     clause: finding.clause,
     reviewerNote: note,
   };
@@ -133,7 +160,38 @@ function summariseAmbient(evaluation: StoredEvaluation, records: readonly StepRe
   });
 }
 
-function listResults(evaluation: StoredEvaluation): CertificateStepResult[] {
+/**
+ * The set-point current(s) of a measured step, in A and as a multiple of It = Cn / 1 h (IEC 61434,
+ * REFERENCES.md §1): the programmed value the operator recorded, else the procedure's resolved one.
+ */
+export function describeSetPointCurrents(
+  step: { stepId: string; cycle: number },
+  resolution: ProcedureResolution,
+  records: readonly StepRecord[],
+  ratedCapacityMAh: number,
+): CertificateSetPointCurrent[] {
+  const resolved = resolution.steps.find((s) => s.id === step.stepId);
+  const programmed = records.find((r) => r.stepId === step.stepId && r.cycle === step.cycle)?.programmed ?? {};
+  const it = ratedCapacityMAh / 1000;
+  if (!resolved || !(it > 0)) return [];
+  const fields =
+    resolved.kind === "charge" || resolved.kind === "discharge"
+      ? ([["current", "current", resolved.current]] as const)
+      : resolved.kind === "pulse"
+        ? ([
+            ["baseCurrent", "base current", resolved.baseCurrent],
+            ["pulseCurrent", "pulse current", resolved.pulseCurrent],
+          ] as const)
+        : [];
+  return fields.flatMap(([field, name, target]): CertificateSetPointCurrent[] => {
+    const entered = programmed[field];
+    const currentA = entered ?? target?.value;
+    if (currentA === undefined) return [];
+    return [{ name, currentA, itMultiple: currentA / it, from: entered !== undefined ? "as programmed" : "from the procedure" }];
+  });
+}
+
+function listResults(evaluation: StoredEvaluation, resolution: ProcedureResolution, records: readonly StepRecord[], ratedCapacityMAh: number): CertificateStepResult[] {
   return evaluation.steps.flatMap((step): CertificateStepResult[] => {
     const r = step.results;
     if (!r || step.kind === "rest" || step.kind === "soak" || step.kind === "measure") return [];
@@ -151,6 +209,7 @@ function listResults(evaluation: StoredEvaluation): CertificateStepResult[] {
         maxTemperatureC: r.maxTemperatureC,
         dcResistanceOhm: step.dcResistance?.resistanceOhm ?? null,
         beyondRating: step.findings.some((f) => f.beyondRating === true),
+        setPoints: describeSetPointCurrents(step, resolution, records, ratedCapacityMAh),
       },
     ];
   });
@@ -223,7 +282,7 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
   const evaluation = records.evaluation.value;
   const findings = listEvaluationFindings(evaluation);
   const notes = new Map(records.review.acknowledged.map((a) => [a.findingId, a.note.trim()]));
-  const testing = findTestingSpan(records.stepRecords);
+  const testing = findDatesOfTesting(evaluation, records.stepRecords);
   const count = (outcome: Finding["outcome"]) => findings.filter((f) => f.outcome === outcome).length;
   return {
     format: CERTIFICATE_PAYLOAD_FORMAT,
@@ -256,8 +315,8 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     },
     testing,
     conditions: summariseAmbient(evaluation, records.stepRecords, records.run.resolution),
-    instruments: listInstruments(records, testing),
-    results: listResults(evaluation),
+    instruments: listInstruments(records, widestSpan(testing)),
+    results: listResults(evaluation, records.run.resolution, records.stepRecords, records.cell.data.ratedCapacityMah),
     conformity: {
       decisionRule: readDecisionRule(evaluation),
       specimenConforms: evaluation.verdict.specimenConforms,

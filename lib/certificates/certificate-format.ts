@@ -41,9 +41,21 @@ export function formatCelsiusRange(min: number, max: number): string {
   return formatFigure(min, 1) === formatFigure(max, 1) ? formatCelsius(min) : `${formatCelsius(min)} to ${formatCelsius(max)}`;
 }
 
-/** "2026-12-02 14:03 UTC": unambiguous in any country. */
+/**
+ * "2026-12-02T14:03Z": ISO 8601 extended format with its zone (UTC), the one form every moment on a
+ * certificate takes. A time given with another offset is converted to UTC first.
+ */
 export function formatMoment(iso: string): string {
-  return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+  const ms = Date.parse(iso);
+  const utc = Number.isFinite(ms) ? new Date(ms).toISOString() : iso;
+  return `${utc.slice(0, 16)}Z`;
+}
+
+const ISO_MOMENT = /\b\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(?::\d{2}(?:\.\d+)?)?(?:Z|[+-]\d{2}:\d{2})/g;
+
+/** Every ISO moment inside a text (a finding's words) written the certificate's one way. */
+export function formatMomentsInText(text: string): string {
+  return text.replace(ISO_MOMENT, (moment) => formatMoment(moment));
 }
 
 /** A value of an uncertainty budget in its own unit, with as many significant digits as it needs. */

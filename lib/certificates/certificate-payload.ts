@@ -1,5 +1,6 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import type { ConformityOutcome, DecisionRule, FindingOutcome, RunVerdict } from "@/lib/conformance";
+import type { ConformityOutcome, FindingOutcome, RunVerdict } from "@/lib/conformance";
+import type { StoredDecisionRule } from "@/protocols";
 
 /**
  * What a certificate states, as plain JSON. Its canonical form (canonical-json.ts) is hashed and the
@@ -92,6 +93,20 @@ export interface CertificateStepResult {
   dcResistanceOhm: number | null;
   /** The step ran outside the cell's rating. */
   beyondRating: boolean;
+  /**
+   * The set-point current(s) of the step in A and as a multiple of It (It = rated capacity / 1 h,
+   * IEC 61434): as the operator programmed them, else as the procedure resolved them. Absent in
+   * certificates issued before it was stated.
+   */
+  setPoints?: CertificateSetPointCurrent[];
+}
+
+export interface CertificateSetPointCurrent {
+  /** "current", "base current", "pulse current". */
+  name: string;
+  currentA: number;
+  itMultiple: number;
+  from: "as programmed" | "from the procedure";
 }
 
 export interface CertificateCriterion {
@@ -144,8 +159,13 @@ export interface RunCertificatePayload extends CertificateCommon {
   sampling: string;
   /** 7.8.2.1 e. */
   method: { code: string; title: string; version: number; standard: string; clause: string; note: string | null };
-  /** 7.8.2.1 h: first and last recorded moment of the run, ISO; null when nothing was timed. */
-  testing: { from: string | null; to: string | null };
+  /**
+   * 7.8.2.1 i, dates of testing, ISO 8601 in UTC: the data log's first and last sample when the log's
+   * start is known, else the first and last moment the step sheet records; null when nothing was timed.
+   * `source` says which (absent in certificates issued before it was stated); `stepSheet` gives the
+   * step sheet's own span beside the log's, so a reader sees both where they differ.
+   */
+  testing: { from: string | null; to: string | null; source?: string; stepSheet?: { from: string | null; to: string | null } | null };
   /** 7.8.3.1 a: the ambient of each step as recorded. */
   conditions: CertificateAmbient[];
   instruments: CertificateInstrument[];
@@ -153,7 +173,8 @@ export interface RunCertificatePayload extends CertificateCommon {
   results: CertificateStepResult[];
   /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
   conformity: {
-    decisionRule: DecisionRule;
+    /** As the evaluation applied it; certificates of evaluations stored before ILAC-G8's three rules may say "guarded acceptance". */
+    decisionRule: StoredDecisionRule;
     specimenConforms: ConformityOutcome;
     procedureFollowed: RunVerdict["procedureFollowed"];
     beyondRating: boolean;
@@ -243,7 +264,7 @@ export interface LotCertificatePayload extends CertificateCommon {
   /** The lot decision of the plan: accept or reject (a pending lot gets no certificate). */
   lotDecision: { verdict: "accept" | "reject"; words: "lot accepted" | "lot rejected"; statement: string; rule: string };
   /** The decision rule(s) each cell's statement of conformity was made under (ILAC-G8). */
-  cellDecisionRules: DecisionRule[];
+  cellDecisionRules: StoredDecisionRule[];
   statistics: LotCertificateStatistics | null;
   /** Why there are no statistics, when there are none. */
   statisticsNote: string | null;
@@ -251,6 +272,11 @@ export interface LotCertificatePayload extends CertificateCommon {
   testing: { from: string | null; to: string | null };
   /** The lot decision rests on the sample; results relate only to the cells tested. */
   sampleStatement: string;
+  /**
+   * How the ISO 2859-1 plan was used: switching rules not applied, a continuing series of lots
+   * assumed, and ISO 2859-2 named for an isolated lot. Absent in lot certificates issued before it was stated.
+   */
+  samplingContext?: string;
 }
 
 export type CertificatePayload = RunCertificatePayload | LotCertificatePayload;

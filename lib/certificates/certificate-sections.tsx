@@ -1,5 +1,6 @@
 import { View } from "@react-pdf/renderer";
 import type { ConformityOutcome } from "@/lib/conformance";
+import { explainDecisionRule, formatNumber, nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 import {
   formatCelsius,
   formatCelsiusRange,
@@ -10,16 +11,22 @@ import {
   formatMoment,
   formatVolts,
   formatWh,
+  withUnit,
 } from "./certificate-format";
 import { OutcomeMark, VqPlot, type OutcomeTone } from "./certificate-figures";
-import type { CertificateCell, CertificateCommon, CertificateFinding, RunCertificatePayload } from "./certificate-payload";
+import type { CertificateCell, CertificateCommon, CertificateFinding, CertificateStepResult, RunCertificatePayload } from "./certificate-payload";
 import { Field, Heading, ink, outcomeColour, rule, styles, Table, Tx } from "./certificate-primitives";
 import type { DischargeCurve } from "./vq-plot";
 
 type P = { payload: RunCertificatePayload };
 
 export function toneOfConformity(outcome: ConformityOutcome): OutcomeTone {
-  return outcome === "conforms" ? "meets" : outcome === "does not conform" ? "deviates" : "open";
+  return outcome === "conforms" ? "meets" : outcome === "does not conform" || outcome === "conditional fail" ? "deviates" : "open";
+}
+
+/** The outcome's words with a capital, as a headline writes them. */
+export function capitaliseOutcome(outcome: string): string {
+  return `${outcome.charAt(0).toUpperCase()}${outcome.slice(1)}`;
 }
 
 export function OutcomeLine({ tone, words, rest, large }: { tone: OutcomeTone; words: string; rest: string; large?: boolean }) {
@@ -61,8 +68,8 @@ export function TitleBlock({ payload }: P) {
         <OutcomeLine
           large
           tone={toneOfConformity(c.specimenConforms)}
-          words={c.specimenConforms === "conforms" ? "Conforms" : c.specimenConforms === "does not conform" ? "Does not conform" : "Not decided"}
-          rest={` — statement of conformity of specimen ${payload.item.specimen.identifier} to the acceptance criteria of ${payload.method.code}, under ${rule_} (section 7).`}
+          words={capitaliseOutcome(c.specimenConforms)}
+          rest={` — statement of conformity of specimen ${payload.item.specimen.identifier} to the acceptance criteria of ${payload.method.code}, under the decision rule ${nameDecisionRule(rule_)} (section 7).`}
         />
         <OutcomeLine
           tone={c.procedureFollowed === "yes" ? "meets" : c.procedureFollowed === "no" ? "deviates" : "open"}
@@ -109,6 +116,10 @@ export function ItemSection({ payload }: P) {
   );
 }
 
+function describeSpan(span: { from: string | null; to: string | null }): string {
+  return span.from && span.to ? `${formatMoment(span.from)} to ${formatMoment(span.to)}` : "not recorded";
+}
+
 export function MethodSection({ payload }: P) {
   const m = payload.method;
   const t = payload.testing;
@@ -118,7 +129,10 @@ export function MethodSection({ payload }: P) {
       <Field label="Procedure">{`${m.code} version ${m.version}: ${m.title}`}</Field>
       <Field label="Standard and clause">{`${m.standard}, ${m.clause}`}</Field>
       {m.note && <Field label="Note">{m.note}</Field>}
-      <Field label="Dates of testing">{t.from && t.to ? `${formatMoment(t.from)} to ${formatMoment(t.to)}` : "not recorded"}</Field>
+      <Field label="Dates of testing">{t.from && t.to ? `${formatMoment(t.from)} to ${formatMoment(t.to)}${t.source ? `, ${t.source}` : ""}` : "not recorded"}</Field>
+      {t.stepSheet?.from && t.stepSheet.to && describeSpan(t.stepSheet) !== describeSpan(t) && (
+        <Field label="Step sheet">{`${describeSpan(t.stepSheet)}: the times the operator recorded, which differ from the data log's`}</Field>
+      )}
       <Field label="Date of issue">{formatMoment(payload.issuedAt)}</Field>
     </View>
   );
@@ -185,6 +199,14 @@ export function InstrumentsSection({ payload }: P) {
   );
 }
 
+/** "set-point 0.600 A = 0.2 It, as programmed" under a step's name (It = Cn / 1 h, IEC 61434). */
+export function describeSetPoints(setPoints: CertificateStepResult["setPoints"]): string {
+  if (!setPoints || setPoints.length === 0) return "";
+  const parts = setPoints.map((s) => `${s.name === "current" ? "set-point" : s.name} ${withUnit(s.currentA, 3, "A")} = ${formatNumber(s.itMultiple, { maxDecimals: 3 })} It`);
+  const from = [...new Set(setPoints.map((s) => s.from))].join(" / ");
+  return `\n${parts.join("; ")}, ${from}`;
+}
+
 export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve[] }) {
   const withResistance = payload.results.some((r) => r.dcResistanceOhm !== null);
   const columns = [
@@ -210,7 +232,7 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
         }
         columns={columns}
         rows={payload.results.map((r) => [
-          `${r.label}${r.beyondRating ? " (outside rating)" : ""}`,
+          `${r.label}${r.beyondRating ? " (outside rating)" : ""}${describeSetPoints(r.setPoints)}`,
           formatDuration(r.durationS),
           formatMah(r.capacityMAh),
           formatWh(r.energyWh),
@@ -327,10 +349,9 @@ function describeMeaning(words: string): string {
 }
 
 /** A decision rule as the certificate words it (ILAC-G8:09/2019; JCGM 106:2012). */
-export function describeDecisionRule(rule: string): string {
-  return rule === "simple acceptance"
-    ? "Simple acceptance (ILAC-G8:09/2019): the measured value is compared with the limit as it is."
-    : "Guarded acceptance (ILAC-G8:09/2019, JCGM 106:2012): the guard band equals the expanded uncertainty.";
+export function describeDecisionRule(rule: StoredDecisionRule): string {
+  const name = nameDecisionRule(rule);
+  return `${name.charAt(0).toUpperCase()}${name.slice(1)}: ${explainDecisionRule(rule)}`;
 }
 
 export function SignatureBlock({ heading, s, note }: { heading: string; s: { printedName: string; signedAt: string; meaningWords: string }; note?: string }) {

@@ -12,7 +12,7 @@ import { DomainError } from "@/lib/errors";
 import { formatNumber } from "@/protocols/format-number";
 import { SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 import type { LotCertificateRecords, LotSampledRun } from "./build-lot-payload";
-import { findTestingSpan, readDecisionRule, type StoredEvaluation } from "./build-run-payload";
+import { findDatesOfTesting, findTestingSpan, readDecisionRule, type StoredEvaluation } from "./build-run-payload";
 import { hashCanonicalJson } from "./canonical-json";
 
 /** Everything a lot certificate rests on but the number, the issue time, the approval and what it replaces. */
@@ -78,6 +78,8 @@ async function checkLotMayBeCertified(db: Executor, actor: SignedInUser, lotId: 
   return { lot, sampling: { ...sampling, plan, draw, decision }, runs: runs.filter((r) => r !== null) };
 }
 
+const spanOnly = ({ from, to }: { from: string | null; to: string | null }) => ({ from, to });
+
 /** What each sampled run adds: its procedure, its certificate, the decision rule it was judged by and when it was tested. */
 async function describeSampledRun(db: Executor, run: NonNullable<Awaited<ReturnType<typeof getRun>>>): Promise<LotSampledRun> {
   const [review, certificate, records] = await Promise.all([getLatestRunReview(db, run.id), findValidRunCertificate(db, run.id), listStepRecords(db, run.id)]);
@@ -89,7 +91,8 @@ async function describeSampledRun(db: Executor, run: NonNullable<Awaited<ReturnT
     procedure: { code: run.procedure.code, title: run.procedure.title, version: run.procedure.number, standard: run.procedureSource.standard, clause: run.procedureSource.clause },
     // Written only by evaluateStoredRun; older evaluations lack the later fields (StoredEvaluation).
     decisionRule: evaluation ? readDecisionRule(evaluation.evaluation as StoredEvaluation) : "simple acceptance",
-    testing: findTestingSpan(records),
+    // The data log's own span when the evaluation knows it (issue 12, 7a), else the step sheet's.
+    testing: evaluation ? spanOnly(findDatesOfTesting(evaluation.evaluation as StoredEvaluation, records)) : findTestingSpan(records),
   };
 }
 

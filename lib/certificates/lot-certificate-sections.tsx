@@ -143,6 +143,7 @@ export function LotDecisionSection({ payload }: P) {
       </Field>
       <Field label="Cells judged under">{payload.cellDecisionRules.length === 0 ? "no cell was tested" : payload.cellDecisionRules.map(describeDecisionRule).join(" ")}</Field>
       <Field label="Resting on the sample">{payload.sampleStatement}</Field>
+      {payload.samplingContext && <Field label="Use of ISO 2859-1">{payload.samplingContext}</Field>}
       {payload.sample.some((m) => m.result !== "conforms") && (
         <View style={{ marginTop: 3 }}>
           {payload.sample

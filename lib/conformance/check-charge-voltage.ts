@@ -1,51 +1,58 @@
 import type { Finding } from "./finding";
-import { citeTolerance, commonPractice, formatPercent, formatValue } from "./format-value";
+import { formatNumber } from "@/protocols";
+import { commonPractice, formatValue } from "./format-value";
 import { createFinding, explainMissingLog, type StepContext } from "./step-context";
-import { createBand, isInsideBand } from "./tolerance-band";
+
+/** "5 mV", "1.6 mV". */
+function formatMillivolts(volts: number): string {
+  return `${formatNumber(volts * 1000, { maxDecimals: 1 })} mV`;
+}
 
 /**
- * During a charge the logged voltage never rises above the charge voltage plus the voltage
- * tolerance (IEC 61960-3 clause 4: ±1 %, REFERENCES.md §3). The limit is the step's charge voltage
- * or the cell's, whichever is lower: above the step's it is a deviation from the procedure, above
- * the cell's it is also outside the rating (never exceed the charge voltage: common practice,
- * DESIGN.md §7, REFERENCES.md §12).
+ * During a charge the logged voltage never rises above the cell's rated charge voltage (never
+ * exceed the charge voltage: common practice, DESIGN.md §7, REFERENCES.md §12), nor above the
+ * step's own charge voltage when that is lower. The ±1 % voltage tolerance of IEC 61960-3 clause 4
+ * is a tolerance of the measurement, not a licence to charge 42 mV above a 4.2 V rating: the only
+ * margin is a reading allowance in volts for the noise of a logged constant-voltage hold (a lab
+ * setting, our own default). A rise above the cell's charge voltage is a deviation and a safety
+ * finding, marked beyond the rating.
  */
 export function checkChargeVoltage(context: StepContext): Finding[] {
   const { step, cellRating } = context;
   if (step.kind !== "charge") return [];
-  const tolerance = step.tolerances.voltagePercent;
+  const allowance = context.settings.chargeVoltageReadingAllowanceV;
+  const rated = cellRating.chargeVoltageV;
   const stepVoltage = step.voltage?.value;
-  const limit = stepVoltage === undefined ? cellRating.chargeVoltageV : Math.min(stepVoltage, cellRating.chargeVoltageV);
-  const band = createBand(limit, tolerance.value);
-  const ratingBand = createBand(cellRating.chargeVoltageV, tolerance.value);
-  const whose = stepVoltage !== undefined && stepVoltage <= cellRating.chargeVoltageV ? "the step's charge voltage" : "the cell's charge voltage";
+  const limit = stepVoltage === undefined ? rated : Math.min(stepVoltage, rated);
+  const whose = stepVoltage !== undefined && stepVoltage < rated ? "the step's charge voltage" : "the cell's rated charge voltage";
+  const max = limit + allowance;
   const draft = {
     rule: "charge-voltage-within-limit" as const,
     title: "Charge voltage never above its limit",
     severity: "caution" as const,
     expected: {
-      text: `at most ${formatValue(band.max, "V")}: ${whose} ${formatValue(limit, "V")} ${formatPercent(tolerance.value)}`,
+      text: `at most ${whose} ${formatValue(limit, "V")}${allowance > 0 ? `, with a reading allowance of ${formatMillivolts(allowance)} for the logged noise` : ""}`,
       value: limit,
-      max: band.max,
+      max,
       unit: "V" as const,
     },
-    clause: `${citeTolerance(tolerance)}; cell rating, ${commonPractice}`,
+    clause: `cell rating: never above the charge voltage, ${commonPractice}; reading allowance: our own setting`,
   };
   const missing = explainMissingLog(context.evidence);
   if (missing !== null || context.evidence.kind !== "found") {
     return [createFinding(context, { ...draft, observed: { text: missing ?? "no log phase" }, outcome: "not assessable" })];
   }
   const highest = context.evidence.results.maxVoltageV;
-  const beyondRating = !isInsideBand(highest, { max: ratingBand.max });
+  const beyondRating = highest > rated + allowance;
   return [
     createFinding(context, {
       ...draft,
       observed: {
-        text: `highest logged voltage ${formatValue(highest, "V")}${beyondRating ? ", above the cell's charge voltage" : ""}`,
+        text: `highest logged voltage ${formatValue(highest, "V")}${beyondRating ? `, ${formatMillivolts(highest - rated)} above the cell's rated charge voltage: a safety finding` : ""}`,
         value: highest,
         unit: "V",
       },
-      outcome: isInsideBand(highest, { max: band.max }) ? "meets" : "deviates",
+      outcome: highest <= max ? "meets" : "deviates",
       ...(beyondRating && { beyondRating }),
     }),
   ];

@@ -1,22 +1,45 @@
 import type { IndexRange, LogColumns } from "@/lib/analysis";
 import { assertNever, formatNumber, type ResolvedSetPoint } from "@/protocols";
 import type { Finding, FindingDraft } from "./finding";
-import { citeProcedure, citeTolerance, formatPercent, formatRange, formatValue } from "./format-value";
+import { citeProcedure, citeTolerance, commonPractice, formatPercent, formatRange, formatValue } from "./format-value";
+import { explainTooSlowForPulse } from "./check-pulse-timing";
 import { createFinding, explainMissingLog, type StepContext } from "./step-context";
 import { createBand, isInsideBand, type Band } from "./tolerance-band";
 
-/** Mean |I| over a range and how many samples fall outside the band. */
-function countOutside(columns: LogColumns, range: IndexRange, band: Band): { meanA: number; samples: number; outside: number } {
-  const c = columns.currentA;
+interface Excursions {
+  meanA: number;
+  samples: number;
+  outside: number;
+  /** Time spent outside the band: each outside sample stands for the interval up to the next sample, s. */
+  outsideS: number;
+  /** The longest unbroken run outside the band, s. */
+  longestS: number;
+}
+
+/** Mean |I| over a range, and how many samples and how much time fall outside the band. */
+function measureExcursions(columns: LogColumns, range: IndexRange, band: Band): Excursions {
+  const { currentA: c, timeS: t } = columns;
   let sum = 0;
   let outside = 0;
+  let outsideS = 0;
+  let runS = 0;
+  let longestS = 0;
   for (let i = range.from; i <= range.to; i++) {
     const magnitude = Math.abs(c[i] as number);
     sum += magnitude;
-    if (!isInsideBand(magnitude, band)) outside++;
+    // The last sample of the range stands for the interval before it (there is no next one inside).
+    const weight = i < range.to ? (t[i + 1] as number) - (t[i] as number) : i > range.from ? (t[i] as number) - (t[i - 1] as number) : 0;
+    if (isInsideBand(magnitude, band)) {
+      runS = 0;
+      continue;
+    }
+    outside++;
+    outsideS += weight;
+    runS += weight;
+    if (runS > longestS) longestS = runS;
   }
   const samples = range.to - range.from + 1;
-  return { meanA: sum / samples, samples, outside };
+  return { meanA: sum / samples, samples, outside, outsideS, longestS };
 }
 
 interface HoldCheck {
@@ -27,7 +50,7 @@ interface HoldCheck {
 
 function draftHold(context: StepContext, check: HoldCheck, band: Band | null): Omit<FindingDraft, "observed" | "outcome"> {
   const tolerance = context.step.tolerances.currentPercent;
-  const allowed = context.settings.currentOutlierShare;
+  const allowed = context.settings.currentExcursionAllowanceS;
   return {
     rule: "current-held",
     field: check.field,
@@ -38,12 +61,12 @@ function draftHold(context: StepContext, check: HoldCheck, band: Band | null): O
         : {
             text:
               `${formatValue(check.target.value, "A")} ${formatPercent(tolerance.value)} (${formatRange(band, "A")}) over the constant-current part, ` +
-              `at most ${formatNumber(allowed * 100, { maxDecimals: 2 })} % of samples outside`,
+              `at most ${formatValue(allowed, "s")} in total outside it (switching transients)`,
             value: check.target.value,
             ...band,
             unit: "A",
           },
-    clause: `${citeProcedure(context.citation, check.words)}; ${citeTolerance(tolerance)}; share of samples outside: our own allowance for switching transients`,
+    clause: `${citeProcedure(context.citation, check.words)}; ${citeTolerance(tolerance)}; time outside: our own allowance for switching transients, ${commonPractice}`,
   };
 }
 
@@ -57,13 +80,16 @@ function checkHeldOver(context: StepContext, check: HoldCheck, range: () => Inde
   }
   const span = range();
   if ("reason" in span) return createFinding(context, { ...draft, observed: { text: span.reason }, outcome: span.outcome });
-  const { meanA, samples, outside } = countOutside(context.evidence.columns, span, band);
-  const share = outside / samples;
-  const held = isInsideBand(meanA, band) && share <= context.settings.currentOutlierShare;
+  const { meanA, samples, outside, outsideS, longestS } = measureExcursions(context.evidence.columns, span, band);
+  const held = isInsideBand(meanA, band) && outsideS <= context.settings.currentExcursionAllowanceS;
+  const excursions =
+    outside === 0
+      ? "none outside the tolerance"
+      : `${formatNumber(outside)} outside the tolerance for ${formatValue(outsideS, "s")} in total (longest ${formatValue(longestS, "s")})`;
   return createFinding(context, {
     ...draft,
     observed: {
-      text: `mean ${formatValue(meanA, "A")} over ${formatNumber(samples)} samples, ${formatNumber(outside)} outside the tolerance (${formatNumber(share * 100, { maxDecimals: 2 })} %)`,
+      text: `mean ${formatValue(meanA, "A")} over ${formatNumber(samples)} samples, ${excursions}`,
       value: meanA,
       unit: "A",
     },
@@ -83,6 +109,9 @@ function checkPulseLevels(context: StepContext, checks: { base: HoldCheck; pulse
       return createFinding(context, { ...draft, observed: { text: missing ?? "no set-point" }, outcome: "not assessable" });
     }
     if (evidence.dcResistance === null) {
+      // A log sampled too slowly to show the pulse cannot tell whether it was held (issue 12, 3d).
+      const tooSlow = context.step.kind === "pulse" ? explainTooSlowForPulse(context.step, evidence.columns, evidence.phase) : null;
+      if (tooSlow !== null) return createFinding(context, { ...draft, observed: { text: tooSlow }, outcome: "not assessable" });
       return createFinding(context, { ...draft, observed: { text: "no two-level pulse was found in the logged phase" }, outcome: "deviates" });
     }
     const meanA = Math.abs(level === "base" ? evidence.dcResistance.baseMeanCurrentA : evidence.dcResistance.pulseMeanCurrentA);
@@ -97,8 +126,8 @@ function checkPulseLevels(context: StepContext, checks: { base: HoldCheck; pulse
 /**
  * The logged current held the resolved set-point within the current tolerance (IEC 61960-3
  * clause 4: ±1 %, REFERENCES.md §3) over the constant-current part: a charge's CC part, a whole
- * discharge, each level of a pulse. A few samples may stray (switching transients); how many is a
- * setting, not a value from the standard.
+ * discharge, each level of a pulse. The current may stray for a few seconds in total (switching
+ * transients); how long is a setting in seconds, not a value from the standard.
  */
 export function checkCurrentHold(context: StepContext): Finding[] {
   const { step, evidence } = context;

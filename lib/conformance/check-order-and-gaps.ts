@@ -33,9 +33,10 @@ function nameStep(context: StepContext): string {
 }
 
 /**
- * The step starts after the one before it ends (the procedure's order), and any pause between them
- * longer than the allowance has a recorded reason (no unexplained gap: common practice; the
- * allowance is a lab setting, not a value from a standard). Times come from the log when both steps
+ * The step starts after the one before it ends (the procedure's order), with no pause longer than
+ * the allowance (common practice; the allowance is a lab setting, not a value from a standard). A
+ * longer pause is a deviation from the method even when its reason is recorded: the reason is
+ * stated with it (ISO/IEC 17025:2017 7.8.2.1 n, deviations from the method), never read as "meets". Times come from the log when both steps
  * were found in it, else from the records; times from different clocks are not compared.
  */
 export function checkOrderAndGap({ current, previous }: { current: PlacedStep; previous: PlacedStep }): Finding {
@@ -75,8 +76,8 @@ export function checkOrderAndGap({ current, previous }: { current: PlacedStep; p
   if (reason !== undefined) {
     return createFinding(context, {
       ...draft,
-      observed: { ...observed, text: `${pauseText}, explained: ${reason}` },
-      outcome: "meets",
+      observed: { ...observed, text: `${pauseText}, reason recorded: ${reason}` },
+      outcome: "deviates",
       note: `Pause explained by the operator: ${reason}`,
     });
   }

@@ -43,11 +43,14 @@ function decideProcedure(findings: readonly Finding[]): { outcome: RunVerdict["p
   return { outcome: "yes", reasons: [`Procedure followed: all ${findings.length} checks meet.`] };
 }
 
-/** Any failure decides; otherwise any open question leaves it undecided (conservative combination). */
+/**
+ * The specimen's statement from its criteria, the least favourable first: a failure decides; then a
+ * conditional fail (ILAC-G8:09/2019 4.2.3); then an open question leaves it undecided; then a
+ * conditional pass; only when every criterion conforms does the specimen conform.
+ */
+const worstFirst: readonly ConformityOutcome[] = ["does not conform", "conditional fail", "not decided", "conditional pass"];
 function combineConformity(conformity: readonly CriterionConformity[]): ConformityOutcome {
-  if (conformity.some((entry) => entry.outcome === "does not conform")) return "does not conform";
-  if (conformity.some((entry) => entry.outcome === "not decided")) return "not decided";
-  return "conforms";
+  return worstFirst.find((outcome) => conformity.some((entry) => entry.outcome === outcome)) ?? "conforms";
 }
 
 /**

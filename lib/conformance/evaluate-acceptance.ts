@@ -1,6 +1,6 @@
-import { assertNever, type ResolvedCriterion } from "@/protocols";
+import { assertNever, type ResolvedCriterion, type StoredDecisionRule } from "@/protocols";
 import { hasStoppedBeforeEndVoltage } from "./check-end-condition";
-import { evaluateConformity, type ConformityOutcome, type DecisionRule, type SpecificationLimit } from "./decision-rule";
+import { citeStatementOfConformity, evaluateConformity, usesGuardBand, type ConformityOutcome, type DecisionRule, type SpecificationLimit } from "./decision-rule";
 import type { CriterionUncertainty, UncertaintyQuantity } from "./evaluate-uncertainty";
 import type { FindingUnit, FindingValue } from "./finding";
 import { citeProcedure, formatValue } from "./format-value";
@@ -21,7 +21,8 @@ export interface AcceptanceResult {
   limit: (FindingValue & { side: SpecificationLimit["side"] }) | null;
   measured: FindingValue | null;
   outcome: ConformityOutcome;
-  rule: DecisionRule;
+  /** The rule applied; evaluations stored before ILAC-G8's three rules were offered may say "guarded acceptance". */
+  rule: StoredDecisionRule;
   /** U in the criterion's unit (Ah, s, Ω), when the step's budget gives one. */
   expandedUncertainty: number | null;
   /**
@@ -91,9 +92,9 @@ const notGiven: AcceptanceJudgement = { rule: "simple acceptance", uncertainty: 
 
 /**
  * Judges one criterion on one cycle under the procedure's decision rule (decision-rule.ts), with the
- * expanded uncertainty of the step's budget as the guard band of guarded acceptance. Without a
- * budget, simple acceptance still decides (and says the uncertainty was not evaluated); guarded
- * acceptance cannot, so the result is not decided with that reason.
+ * expanded uncertainty of the step's budget as the guard band w = U of the two guard-band rules.
+ * Without a budget, simple acceptance still decides (and says the uncertainty was not evaluated);
+ * the guard-band rules cannot, so the result is not decided with that reason.
  * A discharge that stopped before its end voltage could only have delivered more, so a shortfall
  * on it is not decided rather than a failure (definition: capacity to the end voltage is at least
  * the capacity delivered so far).
@@ -118,7 +119,7 @@ export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepCo
     stepId: criterion.stepId,
     cycle: context.cycle,
     rule,
-    clause: `${citeProcedure(context.citation, "acceptance criterion")}; decision rule: ISO/IEC 17025:2017 7.8.6, ILAC-G8:09/2019`,
+    clause: `${citeProcedure(context.citation, "acceptance criterion")}; decision rule: ${citeStatementOfConformity(rule)}`,
     limit: limit && { text: `${limit.side === "lower" ? "at least" : "at most"} ${limit.explanation}`, value: limit.value, side: limit.side, unit: quantity.unit },
     measured: "reason" in measured ? null : { text: `${formatValue(measured.value, quantity.unit)}, ${measured.source}`, value: measured.value, unit: quantity.unit },
     uncertainty,
@@ -129,8 +130,8 @@ export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepCo
   const undecided = (why: string): AcceptanceResult => ({ ...base, expandedUncertainty: expanded, outcome: "not decided", statement: `Not decided: ${why}.`, notes: [] });
   if (limit === null) return undecided("the limit is not resolved on this cell specification");
   if ("reason" in measured) return undecided(measured.reason);
-  if (rule === "guarded acceptance" && expanded === null) {
-    return undecided(`guarded acceptance needs the expanded uncertainty, and it was not evaluated (${uncertainty.evaluated ? "no budget" : uncertainty.reason})`);
+  if (usesGuardBand(rule) && expanded === null) {
+    return undecided(`a guard band w = U needs the expanded uncertainty, and it was not evaluated (${uncertainty.evaluated ? "no budget" : uncertainty.reason})`);
   }
 
   const decision = evaluateConformity({
@@ -148,7 +149,7 @@ export function evaluateAcceptance(criterion: ResolvedCriterion, context: StepCo
   const evidence = context.evidence;
   if (limit.side === "lower" && evidence.kind === "found" && hasStoppedBeforeEndVoltage(context.step, evidence.results)) {
     notes.push("The discharge stopped before its end voltage; a complete discharge could only have delivered more.");
-    if (outcome === "does not conform") outcome = "not decided";
+    if (outcome === "does not conform" || outcome === "conditional fail") outcome = "not decided";
   }
   const statement = outcome === decision.value.outcome ? decision.value.statement : `${decision.value.statement} Not decided, as the discharge stopped early.`;
   return { ...base, expandedUncertainty: expanded, outcome, statement: uncertaintyNote === null ? statement : `${statement} ${uncertaintyNote}`, notes };

@@ -32,15 +32,16 @@ interface Judgement {
 
 function judge({ rule, cyclesRun, considered }: { rule: RepeatRule; cyclesRun: number; considered: AcceptanceResult[] }): Judgement {
   const beyond = cyclesRun > rule.maxCycles ? `; ${cyclesRun} cycles ran where at most ${rule.maxCycles} are allowed` : "";
-  const met = considered.find((result) => result.outcome === "conforms");
+  // Under the non-binary rule (ILAC-G8:09/2019 4.2.3) a conditional pass is a pass with its condition stated.
+  const met = considered.find((result) => result.outcome === "conforms" || result.outcome === "conditional pass");
   if (met) {
     const extra = cyclesRun - met.cycle;
     return {
       status: "met",
       metInCycle: met.cycle,
       decisiveCycle: met.cycle,
-      specimenOutcome: "conforms",
-      statement: `Met in cycle ${met.cycle} of up to ${rule.maxCycles}.`,
+      specimenOutcome: met.outcome,
+      statement: `Met in cycle ${met.cycle} of up to ${rule.maxCycles}${met.outcome === "conforms" ? "" : ` (${met.outcome})`}.`,
       followed:
         extra > 0
           ? { outcome: "deviates", text: `met in cycle ${met.cycle}, yet ${extra} more cycle${extra === 1 ? "" : "s"} ran` }
@@ -67,8 +68,8 @@ function judge({ rule, cyclesRun, considered }: { rule: RepeatRule; cyclesRun: n
       status: "not met in any cycle",
       metInCycle: null,
       decisiveCycle: rule.maxCycles,
-      specimenOutcome: "does not conform",
-      statement: `Not met in any of the ${rule.maxCycles} cycles allowed.`,
+      specimenOutcome: last.outcome === "conditional fail" ? "conditional fail" : "does not conform",
+      statement: `Not met in any of the ${rule.maxCycles} cycles allowed${last.outcome === "conditional fail" ? " (the last one a conditional fail)" : ""}.`,
       followed: { outcome: beyond ? "deviates" : "meets", text: `all ${rule.maxCycles} cycles ran without meeting the criterion${beyond}` },
     };
   }

@@ -1,4 +1,4 @@
-import type { DcResistancePulse, StepResults } from "@/lib/analysis";
+import { describeDischargeEnd, type DcResistancePulse, type StepResults } from "@/lib/analysis";
 import { readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
 import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
 import { checkAmbient } from "./check-ambient";
@@ -7,9 +7,12 @@ import { checkChargeVoltage } from "./check-charge-voltage";
 import { checkCurrentHold } from "./check-current-hold";
 import { checkDurations } from "./check-durations";
 import { checkEndCondition } from "./check-end-condition";
+import { checkInstrumentTolerances } from "./check-instrument-tolerances";
 import { checkLogPhaseFound, checkRecordMatchesLog, checkUnexplainedLogPhases } from "./check-log-agreement";
 import { checkOrderAndGap, checkStepRecorded, type PlacedStep } from "./check-order-and-gaps";
+import { checkPulseTiming } from "./check-pulse-timing";
 import { checkRating } from "./check-rating";
+import { checkRestWindow } from "./check-rest-window";
 import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
@@ -67,6 +70,12 @@ export interface RunEvaluation {
   uncertainty: StepUncertainty[];
   /** Results with no budget, and why (no cycler channel, no stated accuracy). Absent in older stored evaluations. */
   uncertaintyNotEvaluated: UncertaintyNotEvaluated[];
+  /**
+   * When the log's first and last samples were taken, on the wall clock (ISO 8601, UTC): the dates of
+   * testing a certificate states (ISO/IEC 17025:2017 7.8.2.1 i). Absent without a log or its start time,
+   * and in evaluations stored before it was recorded.
+   */
+  logSpan?: LogSpan;
   /** Every criterion on every cycle of its step. */
   acceptance: AcceptanceResult[];
   repeat: RepeatOutcome | null;
@@ -75,10 +84,39 @@ export interface RunEvaluation {
   verdict: RunVerdict;
 }
 
+export interface LogSpan {
+  from: string;
+  to: string;
+  /** "log timestamps" when the log carried wall-clock time; else its elapsed time laid from the first recorded step start. */
+  startedFrom: "log timestamps" | "first recorded step start";
+}
+
+/** The log's first and last samples on the wall clock, when its start is known. */
+function findLogSpan(log: RunEvaluationInput["log"], logStartMs: number | null, startedFrom: LogSpan["startedFrom"] | undefined): LogSpan | undefined {
+  if (log === undefined || log.length === 0 || logStartMs === null || !Number.isFinite(logStartMs)) return undefined;
+  const first = log.timeS[0] as number;
+  const last = log.timeS[log.length - 1] as number;
+  return {
+    from: new Date(logStartMs + first * 1000).toISOString(),
+    to: new Date(logStartMs + last * 1000).toISOString(),
+    startedFrom: startedFrom ?? "log timestamps",
+  };
+}
+
 export type RunEvaluationResult = { ok: true; evaluation: RunEvaluation } | { ok: false; problems: FieldProblem[] };
 
 /** One step of one cycle through every rule family, in the order a reviewer reads them. */
-function checkStep({ placed, previous, resolution }: { placed: PlacedStep; previous: PlacedStep | undefined; resolution: ProcedureResolution }): Finding[] {
+function checkStep({
+  placed,
+  previous,
+  next,
+  resolution,
+}: {
+  placed: PlacedStep;
+  previous: PlacedStep | undefined;
+  next: PlacedStep | undefined;
+  resolution: ProcedureResolution;
+}): Finding[] {
   const { context } = placed;
   return [
     checkStepRecorded(context),
@@ -87,8 +125,10 @@ function checkStep({ placed, previous, resolution }: { placed: PlacedStep; previ
     ...checkRecordMatchesLog(context),
     ...checkAmbient(context),
     ...checkDurations(context),
+    ...checkRestWindow({ current: placed, previous, next }),
     ...checkSetPoints(context),
     ...checkCurrentHold(context),
+    ...checkPulseTiming(context),
     ...checkEndCondition(context),
     ...checkChargeVoltage(context),
     ...checkRating(context),
@@ -168,7 +208,7 @@ function stateConformity({
 export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   const checked = checkRunEvaluationInput(input);
   if (!checked.ok) return checked;
-  const { resolution, cellRating, stepRecords, log, logStartedAt, procedureSource, options, evaluatedAgainst, instruments } = checked.value;
+  const { resolution, cellRating, stepRecords, log, logStartedAt, logStartedFrom, procedureSource, options, evaluatedAgainst, instruments } = checked.value;
   // A resolution frozen on a run planned before procedures named a rule has none: simple acceptance.
   const decisionRule = readDecisionRule(resolution);
   const citation = procedureSource ? `${procedureSource.standard} ${procedureSource.clause}` : null;
@@ -206,11 +246,18 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       logNote: evidence.kind === "found" ? null : evidence.reason,
       results: evidence.kind === "found" ? evidence.results : null,
       dcResistance: evidence.kind === "found" ? evidence.dcResistance : null,
-      findings: checkStep({ placed: current, previous: placed[k - 1], resolution }),
+      findings: checkStep({ placed: current, previous: placed[k - 1], next: placed[k + 1], resolution }),
     };
   });
 
-  const uncertainties = evaluateStepUncertainties({ steps, instruments });
+  const uncertainties = evaluateStepUncertainties({
+    steps: steps.map((step, k) => {
+      const evidence = contexts[k]?.evidence;
+      const log = step.kind === "discharge" && evidence?.kind === "found" ? describeDischargeEnd(evidence.columns, evidence.phase) : null;
+      return { ...step, log };
+    }),
+    instruments,
+  });
   const acceptance = resolution.acceptance.flatMap((criterion) =>
     contexts
       .filter((context) => context.step.id === criterion.stepId)
@@ -229,10 +276,12 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     checkResolution(resolution, citation),
     checkRecordsFit(plan.recordProblems, citation),
     checkUnexplainedLogPhases(logAnalysis.summary, citation),
+    ...[checkInstrumentTolerances(instruments, resolution, citation)].filter((finding): finding is Finding => finding !== null),
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
   const otherVersionNote = describeOtherVersion(evaluatedAgainst);
+  const logSpan = findLogSpan(log, logStartMs, logStartedFrom);
   const verdict = decideVerdict({
     findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
     conformity,
@@ -247,6 +296,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       runFindings,
       log: logAnalysis.summary,
       decisionRule,
+      ...(logSpan !== undefined && { logSpan }),
       uncertainty: uncertainties.budgets,
       uncertaintyNotEvaluated: uncertainties.notEvaluated,
       acceptance,

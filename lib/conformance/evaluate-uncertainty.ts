@@ -1,6 +1,8 @@
 import {
   evaluateCapacityUncertainty,
   evaluateDcResistanceUncertainty,
+  extendCapacityBudget,
+  type DischargeLogDetail,
   evaluateEnergyUncertainty,
   type AnalysisResult,
   type DcResistancePulse,
@@ -36,6 +38,8 @@ export interface StepResultsForBudget {
   kind: ResolvedStep["kind"];
   results: StepResults | null;
   dcResistance: DcResistancePulse | null;
+  /** The end of a logged discharge and the log's resolution, for the capacity budget's further terms. */
+  log?: DischargeLogDetail | null;
 }
 
 /** The expanded uncertainty a criterion is judged with: its step's budget, or why there is none. */
@@ -72,7 +76,35 @@ function explainMissingAccuracy(channels: readonly RunInstrument[], quantity: Un
   return null;
 }
 
-function budgetFor(channel: RunInstrument, quantity: UncertaintyQuantity, step: StepResultsForBudget): AnalysisResult<UncertaintyBudget> | null {
+/**
+ * Why a channel's stated accuracy does not apply to this result, or null: a reading beyond the range
+ * the accuracy is stated for has no stated accuracy, so no budget is made for it.
+ */
+function explainOutsideRange(channel: RunInstrument, quantity: UncertaintyQuantity, step: StepResultsForBudget): string | null {
+  const { current, voltage } = channel.accuracy;
+  const currents: number[] = [];
+  const voltages: number[] = [];
+  if ((quantity === "capacity" || quantity === "energy") && step.results !== null) {
+    currents.push((step.results.capacityAh * 3600) / step.results.durationS);
+    voltages.push(step.results.maxVoltageV);
+  }
+  if (quantity === "dc-resistance" && step.dcResistance !== null) {
+    currents.push(Math.abs(step.dcResistance.i1A), Math.abs(step.dcResistance.i2A));
+    voltages.push(Math.abs(step.dcResistance.u1V), Math.abs(step.dcResistance.u2V));
+  }
+  const show = (x: number, unit: string) => `${Number(x.toPrecision(4))} ${unit}`;
+  const beyondCurrent = current === undefined ? undefined : currents.find((i) => i > current.range);
+  if (current !== undefined && beyondCurrent !== undefined) {
+    return `the current of ${show(beyondCurrent, "A")} is outside the range of ${channel.identifier} (${show(current.range, "A")}), for which its accuracy is stated`;
+  }
+  const beyondVoltage = voltage === undefined ? undefined : voltages.find((v) => v > voltage.range);
+  if (voltage !== undefined && beyondVoltage !== undefined) {
+    return `the voltage of ${show(beyondVoltage, "V")} is outside the range of ${channel.identifier} (${show(voltage.range, "V")}), for which its accuracy is stated`;
+  }
+  return null;
+}
+
+function budgetFor(channel: RunInstrument, quantity: UncertaintyQuantity, step: StepResultsForBudget, repeated: readonly number[]): AnalysisResult<UncertaintyBudget> | null {
   const { results, dcResistance } = step;
   const sources = listUncertaintySources({ accuracy: channel.accuracy, instrument: channel.identifier }).filter((source) =>
     INPUTS[quantity].includes(source.quantity),
@@ -83,9 +115,24 @@ function budgetFor(channel: RunInstrument, quantity: UncertaintyQuantity, step: 
       if (results === null) return null;
       // The time-weighted mean current Ī = Q / t, so that Q = Ī·t holds exactly for the budget's model.
       const currentA = (results.capacityAh * 3600) / results.durationS;
-      return quantity === "capacity"
-        ? evaluateCapacityUncertainty({ capacityAh: results.capacityAh, currentA, durationS: results.durationS, sources })
-        : evaluateEnergyUncertainty({
+      if (quantity === "capacity") {
+        const made = evaluateCapacityUncertainty({ capacityAh: results.capacityAh, currentA, durationS: results.durationS, sources });
+        if (!made.ok) return made;
+        const voltage = sources.find((source) => source.quantity === "voltage") ?? listUncertaintySources({ accuracy: channel.accuracy, instrument: channel.identifier }).find((s) => s.quantity === "voltage");
+        const log = step.log ?? null;
+        return {
+          ok: true,
+          value: extendCapacityBudget(made.value, {
+            ...(log !== null && voltage !== undefined && log.endSlopeAhPerV !== null && {
+              endVoltage: { source: voltage.source, tolerance: voltage.tolerance, ...(voltage.statedLimit !== undefined && { statedLimit: voltage.statedLimit }), endVoltageV: log.endVoltageV, slopeAhPerV: log.endSlopeAhPerV },
+            }),
+            ...(log?.currentResolutionA != null && { currentResolutionA: { value: log.currentResolutionA, currentA } }),
+            ...(log?.timeResolutionS != null && { timeResolutionS: { value: log.timeResolutionS, durationS: results.durationS } }),
+            ...(repeated.length >= 2 && { repeatedCycles: { capacitiesAh: repeated } }),
+          }),
+        };
+      }
+      return evaluateEnergyUncertainty({
             energyWh: results.energyWh,
             meanVoltageV: results.meanVoltageV ?? Number.NaN,
             currentA,
@@ -135,6 +182,12 @@ export function evaluateStepUncertainties({
   const channels = listLogChannels(instruments);
   const budgets: StepUncertainty[] = [];
   const notEvaluated: UncertaintyNotEvaluated[] = [];
+  // Capacities of each discharge step over its cycles: a Type A term when there are several.
+  const capacitiesByStep = new Map<string, number[]>();
+  for (const step of steps) {
+    if (step.kind !== "discharge" || step.results === null) continue;
+    capacitiesByStep.set(step.stepId, [...(capacitiesByStep.get(step.stepId) ?? []), step.results.capacityAh]);
+  }
   for (const step of steps) {
     for (const quantity of quantitiesOf(step)) {
       const where = { stepId: step.stepId, cycle: step.cycle, quantity };
@@ -143,7 +196,13 @@ export function evaluateStepUncertainties({
         notEvaluated.push({ ...where, reason: missing });
         continue;
       }
-      const made = channels.map((channel) => budgetFor(channel, quantity, step));
+      // Issue 13, 4 (budget side): never a budget for a reading outside the range the accuracy is stated for.
+      const outside = channels.map((channel) => explainOutsideRange(channel, quantity, step)).find((reason) => reason !== null);
+      if (outside) {
+        notEvaluated.push({ ...where, reason: outside });
+        continue;
+      }
+      const made = channels.map((channel) => budgetFor(channel, quantity, step, capacitiesByStep.get(step.stepId) ?? []));
       if (made.some((budget) => budget === null)) continue;
       const failed = made.find((budget) => budget !== null && !budget.ok);
       if (failed && !failed.ok) {

@@ -19,7 +19,10 @@ export type FindingRule =
   | "termination-reached"
   | "charge-voltage-within-limit"
   | "current-within-rating"
-  | "caution-acknowledged";
+  | "caution-acknowledged"
+  | "rest-window-within-limit"
+  | "pulse-timing"
+  | "instruments-meet-tolerances";
 
 export type FindingUnit = "A" | "V" | "s" | "°C" | "Ah" | "Ω";
 

@@ -56,8 +56,20 @@ export const evaluationOptionsSchema = z.strictObject({
   gapAllowanceS: notNegative("the pause allowance").default(600),
   /** Recorded step times and the log's phase times may differ by this much, s (hand-noted times). */
   timeAgreementS: notNegative("the time agreement").default(300),
-  /** Share of constant-current samples allowed outside the tolerance (switching transients). */
-  currentOutlierShare: z.number().min(0).max(1).default(0.02),
+  /**
+   * Time, in total, that a constant-current part may spend outside the current tolerance (switching
+   * transients last seconds: common practice), s. A duration, not a share of samples: 2 % of a 5 h
+   * discharge would be 6 min off-current.
+   */
+  currentExcursionAllowanceS: notNegative("the off-current allowance").default(10),
+  /**
+   * How far a logged charge voltage may read above its limit before it counts as above it: the noise
+   * of a logged constant-voltage hold, V (our own default, common practice). Not a percentage: the
+   * ±1 % of IEC 61960-3 clause 4 is a measurement tolerance, not a charge limit.
+   */
+  chargeVoltageReadingAllowanceV: notNegative("the charge voltage reading allowance").default(0.005),
+  /** No longer used (the allowance was a share of samples); kept so settings stored with it still read. */
+  currentOutlierShare: z.number().min(0).max(1).optional(),
   /** How the log is cut into phases (lib/analysis segment options). */
   segment: segmentOptionsSchema.optional(),
 });
@@ -90,6 +102,8 @@ export const storedRunEvaluationSchema = z.strictObject({
   stepRecords: z.array(stepRecordSchema).max(10_000),
   /** The wall-clock time of the log's first sample (timeS = 0). */
   logStartedAt: recordedTimeSchema.optional(),
+  /** Where logStartedAt comes from: the log's own timestamps, or (elapsed-time logs) the first recorded step start. */
+  logStartedFrom: z.enum(["log timestamps", "first recorded step start"]).optional(),
   procedureSource: procedureSourceSchema.optional(),
   options: evaluationOptionsSchema.prefault({}),
   evaluatedAgainst: evaluatedAgainstSchema.default({}),
@@ -118,6 +132,7 @@ export interface RunEvaluationInput {
   stepRecords: readonly StepRecordInput[];
   log?: LogColumns;
   logStartedAt?: string;
+  logStartedFrom?: "log timestamps" | "first recorded step start";
   procedureSource?: ProcedureSource;
   options?: EvaluationOptionsInput;
   evaluatedAgainst?: EvaluatedAgainst;
@@ -145,12 +160,13 @@ export function checkRunEvaluationInput(input: RunEvaluationInput): RunEvaluatio
   if (typeof resolution !== "object" || resolution === null || !Array.isArray(resolution.steps) || !Array.isArray(resolution.acceptance)) {
     problems.push({ path: "resolution", message: "the resolution is the result of resolving the procedure version on the cell specification" });
   } else if (resolution.decisionRule !== undefined && !decisionRuleSchema.safeParse(resolution.decisionRule).success) {
-    problems.push({ path: "resolution.decisionRule", message: "the decision rule is simple acceptance or guarded acceptance" });
+    problems.push({ path: "resolution.decisionRule", message: "the decision rule is simple acceptance, binary guard band or non-binary guard band" });
   }
   const parsed = storedRunEvaluationSchema.safeParse({
     cellRating: input.cellRating,
     stepRecords: input.stepRecords,
     logStartedAt: input.logStartedAt,
+    logStartedFrom: input.logStartedFrom,
     procedureSource: input.procedureSource,
     options: input.options,
     evaluatedAgainst: input.evaluatedAgainst,

@@ -48,7 +48,7 @@ export async function evaluateStoredRun(
     cellRating: run.cellRating,
     stepRecords,
     ...(columns && { log: columns }),
-    ...(logStartedAt && { logStartedAt }),
+    ...(logStartedAt && { logStartedAt, logStartedFrom: log?.loggedFrom ? ("log timestamps" as const) : ("first recorded step start" as const) }),
     procedureSource: run.procedureSource,
     instruments,
     evaluatedAgainst: against

@@ -45,9 +45,9 @@ async function setUpLab() {
   const operator = await makeUser("operator", "Oda Operator");
   const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: "TM-LOT", data: inventedCell });
   const rated = await releaseRatedCapacityProcedure(engineer, reviewer, "T-LOT-RC", "simple acceptance");
-  // Guarded acceptance needs the expanded uncertainty; the channel below has no accuracy, so no
+  // A guard-band rule needs the expanded uncertainty; the channel below has no accuracy, so no
   // budget is made and every run of this procedure ends "not decided" (lib/conformance/evaluate-acceptance.ts).
-  const guarded = await releaseRatedCapacityProcedure(engineer, reviewer, "T-LOT-GD", "guarded acceptance");
+  const guarded = await releaseRatedCapacityProcedure(engineer, reviewer, "T-LOT-GD", "binary guard band");
   const draft = await createProcedure(engineer, procedureDraftSchema.parse({ definition: { ...structuredClone(ratedCapacityAt20cTemplate), header: { ...ratedCapacityAt20cTemplate.header, code: "T-LOT-DRAFT" } } }));
   const channel = (
     await getDb()

@@ -8,7 +8,8 @@ import { formatCelsius, formatMah, formatWh } from "@/lib/certificates/certifica
 import type { CertificatePayload } from "@/lib/certificates/certificate-payload";
 import { renderCertificatePdf } from "@/lib/certificates/render-certificate";
 import type { DischargeCurve } from "@/lib/certificates/vq-plot";
-import { buildFixturePayload } from "../unit/certificates/fixture-payload";
+import { buildRunCertificatePayload } from "@/lib/certificates/build-run-payload";
+import { buildFixturePayload, buildFixtureRecords } from "../unit/certificates/fixture-payload";
 import { buildLotFixturePayload } from "../unit/certificates/fixture-lot-payload";
 
 // What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as REFERENCES.md §8
@@ -65,8 +66,10 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
     expect(all).toContain("Testmoor Cells TM-21700-30, INR22/71, NMC");
     expect(all).toMatch(/Condition on receipt\s+intact, no dents, open-circuit voltage 3\.48 V/);
     expect(all).toMatch(/Date of receipt\s+2026-02-26/);
-    expect(all).toMatch(/Dates of testing\s+2026-03-02 08:00 UTC to 2026-03-02 \d\d:\d\d UTC/);
-    expect(all).toMatch(/Date of issue\s+2026-03-04 09:30 UTC/);
+    // 7.8.2.1 i [published] with issue 12, 7a: the dates of testing are the data log's first and last sample.
+    expect(all).toMatch(/Dates of testing\s+2026-03-02T08:00Z to 2026-03-02T\d\d:\d\dZ, from the data log's first and last sample \(the log's own timestamps\)/);
+    expect(all).not.toContain("Step sheet"); // the step sheet's times agree with the log here
+    expect(all).toMatch(/Date of issue\s+2026-03-04T09:30Z/);
     expect(all).toMatch(/Sampling\s+Not applicable/);
   });
 
@@ -88,7 +91,7 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
     expect(all).toContain("No result on this certificate comes from an external provider");
     expect(all).toMatch(/Reviewed by .*Rhea Okafor/);
     expect(all).toMatch(/Approved for issue by .*Tomas Lindqvist/);
-    expect(all).toContain("2026-03-04 08:12 UTC");
+    expect(all).toContain("2026-03-04T08:12Z");
     expect(all).toContain("Meaning: reviewed (checked the records, findings and results against the procedure)");
     expect(all).toContain("Meaning: approved (authorised the certificate for issue)");
     expect(all).toContain("http://localhost:3000/check/C-00042");
@@ -99,7 +102,9 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
     expect(all).toContain(`${formatCelsius(15).replace(/\u00a0/g, " ")} to ${formatCelsius(25).replace(/\u00a0/g, " ")}`);
     expect(all).toContain("22.4 °C to 26.5 °C (3 readings)");
     expect(all).toMatch(/Conforms — statement of conformity of specimen SP-0042/);
-    expect(all).toMatch(/Decision rule\s+Simple acceptance \(ILAC-G8:09\/2019\)/);
+    // ILAC-G8:09/2019 4.2.1 [published, clause checked against a public copy]: the rule is named with its clause.
+    expect(all).toMatch(/Decision rule\s+Simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
+    expect(all).toMatch(/under the decision rule simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
     const capacity = payload.uncertainty.find((u) => u.quantity === "capacity")!.budget;
     expect(all).toContain(`U = ±${formatMah(capacity.expandedUncertainty * 1000).replace(/\u00a0/g, " ")}`);
     expect(all).toContain("sqrt 3");
@@ -157,7 +162,11 @@ describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling
     expect(all).toMatch(/41 L-2026-021-41 R-00100 C-00070 3 061 mAh/);
     expect(all).toContain("Lot accepted — 0 nonconforming of 13 tested is within the acceptance number 0: accept.");
     expect(all).toMatch(/Rule Single sampling \(ISO 2859-1\): test 13 specimens; accept the lot with 0 or fewer nonconforming, reject it with 1 or more/);
-    expect(all).toMatch(/Cells judged under Simple acceptance \(ILAC-G8:09\/2019\)/);
+    expect(all).toMatch(/Cells judged under Simple acceptance \(binary statement, guard band w = 0\) \(ILAC-G8:09\/2019 4\.2\.1\)/);
+    // Issue 12, 6: ISO 2859-1's switching rules and its series-of-lots basis [published: the standard's scope], and
+    // ISO 2859-2 named for a lot in isolation (not implemented).
+    expect(all).toMatch(/Use of ISO 2859-1 The sampling plan is an ISO 2859-1 single sampling plan at normal inspection\. The switching rules of ISO 2859-1 \(to tightened or reduced inspection\) were not applied, and the plan's AQL assumes a continuing series of lots\./);
+    expect(all).toContain("For a lot in isolation, ISO 2859-2 (plans indexed by limiting quality) is the applicable approach; it is not implemented in this software");
   });
 
   it("states the 0.2 It statistics with Cpl and its formula, that the decision rests on the sample, and who authorised it", () => {
@@ -174,5 +183,44 @@ describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling
     const rejected = squash((await renderPages(buildLotFixturePayload({ nonconforming: true }), [], "lot-rejected")).pages.join("\n"));
     expect(rejected).toContain("Lot rejected — 1 nonconforming of 13 tested reaches the rejection number 1: reject.");
     expect(rejected).toMatch(/does not conform — tray position 33, specimen L-2026-021-33, run R-00102/);
+  });
+});
+
+// Issue 12, 7: a certificate states only what happened. Dates of testing (ISO/IEC 17025:2017 7.8.2.1 i [published])
+// from the data log's own time span, with the step sheet's beside it where they differ; the set-point current of each
+// measured step in A and as a multiple of It (It = Cn / 1 h, IEC 61434 [published], REFERENCES.md §1); one timestamp
+// form, ISO 8601 with its zone.
+describe("certificate contents: what happened (issue 12, 7a, 7b, 7e)", async () => {
+  const { records, curves } = buildFixtureRecords();
+  const shift = (iso: string | undefined) => (iso === undefined ? undefined : new Date(Date.parse(iso) + 30 * 60_000).toISOString());
+  const stepRecords = records.stepRecords.map((r) => ({
+    ...r,
+    ...(r.startedAt && { startedAt: shift(r.startedAt) }),
+    ...(r.endedAt && { endedAt: shift(r.endedAt) }),
+    ambientReadings: r.ambientReadings.map((a) => ({ ...a, at: shift(a.at) ?? a.at })),
+    // The capacity discharge programmed at 3 It (9 A on a 3 000 mAh cell) where the procedure says 0.2 It.
+    programmed: r.stepId === "discharge" ? { ...r.programmed, current: 9 } : r.programmed,
+  }));
+  const payload = buildRunCertificatePayload({ ...records, stepRecords });
+  const all = squash((await renderPages(payload, curves, "what-happened")).pages.join("\n"));
+
+  it("dates testing from the data log's first and last sample, and shows the step sheet's differing times beside them", () => {
+    expect(payload.testing).toMatchObject({ from: "2026-03-02T08:00:00.000Z", source: expect.stringContaining("data log's first and last sample") });
+    expect(payload.testing.stepSheet?.from).toBe("2026-03-02T08:30:00.000Z");
+    expect(all).toMatch(/Dates of testing\s+2026-03-02T08:00Z to 2026-03-02T\d\d:\d\dZ, from the data log's first and last sample/);
+    expect(all).toMatch(/Step sheet\s+2026-03-02T08:30Z to 2026-03-02T\d\d:\d\dZ: the times the operator recorded, which differ from the data log's/);
+  });
+
+  it("states the set-point current of each measured step in A and as a multiple of It: a run programmed at 3 It says 3 It", () => {
+    const discharge = payload.results.find((r) => r.stepId === "discharge");
+    expect(discharge?.setPoints).toEqual([{ name: "current", currentA: 9, itMultiple: 3, from: "as programmed" }]);
+    expect(all).toContain("set-point 9.000 A = 3 It, as programmed");
+    expect(all).toContain("set-point 1.500 A = 0.5 It, as programmed");
+  });
+
+  it("writes every moment one way, ISO 8601 with its zone (no 'UTC' words, no seconds or fractions)", () => {
+    expect(all).not.toMatch(/\bUTC\b/);
+    expect(all).not.toMatch(/T\d\d:\d\d:\d\d/);
+    expect(all.match(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}Z/g)?.length).toBeGreaterThanOrEqual(6);
   });
 });

@@ -1,8 +1,10 @@
 import { formatValue, type AcceptanceResult, type ConformityOutcome, type CriterionConformity } from "@/lib/conformance";
-import { explainDecisionRule, type DecisionRule } from "@/protocols";
+import { explainDecisionRule, nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 
 const OUTCOME: Record<ConformityOutcome, { mark: string; tone: string }> = {
   conforms: { mark: "✓", tone: "text-meets" },
+  "conditional pass": { mark: "✓?", tone: "text-unassessed" },
+  "conditional fail": { mark: "✕?", tone: "text-deviates" },
   "does not conform": { mark: "✕", tone: "text-deviates" },
   "not decided": { mark: "?", tone: "text-ink-soft" },
 };
@@ -11,8 +13,8 @@ function showLimit(result: AcceptanceResult | undefined): { limit: string; accep
   const limit = result?.limit;
   if (!result || !limit || limit.value === undefined || limit.unit === undefined) return { limit: "—", acceptance: null };
   const sign = limit.side === "lower" ? "≥" : "≤";
-  // Guarded acceptance moves the limit inward by U (ILAC-G8:09/2019): the value a result must reach to conform.
-  const guarded = result.rule === "guarded acceptance" && result.expandedUncertainty !== null;
+  // A guard band moves the limit inward by U (ILAC-G8:09/2019 4.2.2, 4.2.3): the value a result must reach to conform.
+  const guarded = result.rule !== "simple acceptance" && result.expandedUncertainty !== null;
   const inward = limit.side === "lower" ? 1 : -1;
   return {
     limit: `${sign} ${formatValue(limit.value, limit.unit)}`,
@@ -39,7 +41,7 @@ export function ConformityTable({
   conformity,
   acceptance,
 }: {
-  decisionRule: DecisionRule;
+  decisionRule: StoredDecisionRule;
   conformity: readonly CriterionConformity[];
   acceptance: readonly AcceptanceResult[];
 }) {
@@ -49,7 +51,7 @@ export function ConformityTable({
   return (
     <div className="flex flex-col gap-2">
       <p className="text-sm" data-testid="decision-rule">
-        <span className="font-semibold">Decision rule applied: {decisionRule}</span> (ISO/IEC 17025:2017 7.8.6; ILAC-G8:09/2019).{" "}
+        <span className="font-semibold">Decision rule applied: {nameDecisionRule(decisionRule)}</span> (ISO/IEC 17025:2017 7.8.6).{" "}
         <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
       </p>
       <div className="overflow-x-auto">

@@ -1,21 +1,20 @@
 import type { RunVerdict } from "@/lib/conformance";
-import type { DecisionRule } from "@/protocols";
+import { nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 
 const FOLLOWED: Record<RunVerdict["procedureFollowed"], string> = { yes: "yes", no: "no", "not decided": "not decided" };
 
 /** The two answers of an evaluation, in words, with the decision rule the specimen's statement was made under when given. */
-export function VerdictWords({ verdict, decisionRule }: { verdict: RunVerdict; decisionRule?: DecisionRule }) {
-  const conforms = verdict.specimenConforms === "conforms" ? "conforms" : verdict.specimenConforms === "does not conform" ? "does not conform" : "not decided";
+export function VerdictWords({ verdict, decisionRule }: { verdict: RunVerdict; decisionRule?: StoredDecisionRule }) {
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="verdict">
       <dt className="font-semibold">Procedure followed</dt>
       <dd>{FOLLOWED[verdict.procedureFollowed]}</dd>
       <dt className="font-semibold">Specimen</dt>
-      <dd>{conforms}</dd>
+      <dd>{verdict.specimenConforms}</dd>
       {decisionRule && (
         <>
           <dt className="font-semibold">Decision rule</dt>
-          <dd>{decisionRule}</dd>
+          <dd>{nameDecisionRule(decisionRule)}</dd>
         </>
       )}
       {verdict.beyondRating && (

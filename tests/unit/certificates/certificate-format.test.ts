@@ -15,7 +15,9 @@ describe("certificate figures", () => {
     expect(plain(formatFigure(-0.04, 1))).toBe("0.0");
     expect(plain(formatDuration(18_360))).toBe("5 h 06 min");
     expect(plain(formatDuration(42))).toBe("42 s");
-    expect(formatMoment("2026-03-04T09:30:12.345Z")).toBe("2026-03-04 09:30 UTC");
+    expect(formatMoment("2026-03-04T09:30:12.345Z")).toBe("2026-03-04T09:30Z");
+    // ISO 8601 with its zone throughout (issue 12, 7e): another offset is converted to UTC.
+    expect(formatMoment("2026-03-04T10:30:00+01:00")).toBe("2026-03-04T09:30Z");
   });
 
   it("never lets a value break from its unit or inside its digit groups", () => {

@@ -28,13 +28,14 @@ describe("checkOrderAndGap", () => {
     expect(checkOrderAndGap({ previous: charge, current: later }).outcome).toBe("meets");
   });
 
-  it("deviates for an unexplained pause longer than the allowance, and meets when its reason is recorded", () => {
+  it("deviates for a pause longer than the allowance, stating its reason when one is recorded (issue 12, 3a: no longer 'meets')", () => {
     const late = placed({ stepId: "rest", startedAt: "2026-03-02T10:10:01Z", endedAt: "2026-03-02T11:00:00Z" });
     expect(checkOrderAndGap({ previous: charge, current: late })).toMatchObject({ outcome: "deviates", observed: { value: 601 } });
     const explained = placed({ stepId: "rest", startedAt: "2026-03-02T10:30:00Z", endedAt: "2026-03-02T11:00:00Z", pauseReason: "chamber door alarm" });
     const finding = checkOrderAndGap({ previous: charge, current: explained });
-    expect(finding.outcome).toBe("meets");
-    expect(finding.observed.text).toContain("explained: chamber door alarm");
+    expect(finding.outcome).toBe("deviates");
+    expect(finding.observed.text).toContain("reason recorded: chamber door alarm");
+    expect(finding.note).toBe("Pause explained by the operator: chamber door alarm");
   });
 
   it("deviates for a step started before the previous one ended (out of order)", () => {

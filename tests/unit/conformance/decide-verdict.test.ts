@@ -30,6 +30,16 @@ describe("decideVerdict", () => {
     expect(decideVerdict({ findings: [findingOf("meets"), findingOf("not assessable")], conformity: conforms, otherVersionNote: null }).procedureFollowed).toBe("not decided");
   });
 
+  it("combines the four outcomes of ILAC-G8:09/2019 4.2.3 least favourable first", () => {
+    const of = (...outcomes: ("conforms" | "conditional pass" | "conditional fail" | "does not conform" | "not decided")[]) =>
+      decideVerdict({ findings: [], conformity: outcomes.map((outcome, k) => ({ criterionId: `c${k}`, outcome, cycle: 1, statement: "" })), otherVersionNote: null }).specimenConforms;
+    expect(of("conforms", "conditional pass")).toBe("conditional pass");
+    expect(of("conditional pass", "not decided")).toBe("not decided");
+    expect(of("not decided", "conditional fail")).toBe("conditional fail");
+    expect(of("conditional fail", "does not conform", "conforms")).toBe("does not conform");
+    expect(of("conforms", "conforms")).toBe("conforms");
+  });
+
   it("combines criteria conservatively and states nothing without one", () => {
     const mixed = [...conforms, { criterionId: "time", outcome: "not decided" as const, cycle: 1, statement: "" }];
     expect(decideVerdict({ findings: [], conformity: mixed, otherVersionNote: null }).specimenConforms).toBe("not decided");

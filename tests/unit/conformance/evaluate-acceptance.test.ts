@@ -31,14 +31,14 @@ describe("evaluateAcceptance", () => {
     expect(evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(4.9) })).outcome).toBe("does not conform");
   });
 
-  it("applies guarded acceptance with the expanded uncertainty of the step's budget as guard band", () => {
+  it("applies the binary guard-band rule (ILAC-G8:09/2019 4.2.2) with the expanded uncertainty of the step's budget as guard band", () => {
     // Measured 3.03 Ah over 5.05 h at 0.6 A. Example B limits (REFERENCES.md §6) give U = 0.539 % = 0.0163 Ah, which
     // 3.03 Ah clears; clause-4 limits (Example A) give U = 1.1605 % = 0.0352 Ah, which it does not.
     const guarded = (sources: UncertaintySource[]) => {
       const budget = evaluateCapacityUncertainty({ capacityAh: 3.03, currentA: 0.6, durationS: 5.05 * 3600, sources });
       if (!budget.ok) throw new Error(budget.error.message);
       return evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.05) }), {
-        rule: "guarded acceptance",
+        rule: "binary guard band",
         uncertainty: { evaluated: true, quantity: "capacity", budget: budget.value },
       });
     };
@@ -52,17 +52,18 @@ describe("evaluateAcceptance", () => {
       { quantity: "current", source: "clause 4", tolerance: { form: "percent-of-reading", percent: 1 } },
       { quantity: "time", source: "clause 4", tolerance: { form: "percent-of-reading", percent: 0.1 } },
     ]);
-    expect(clauseFour.outcome).toBe("not decided");
+    // Inside the guard band the binary rule has no third outcome: does not conform.
+    expect(clauseFour.outcome).toBe("does not conform");
     expect(clauseFour.expandedUncertainty).toBeCloseTo(0.011605 * 3.03, 5);
     expect(clauseFour.statement).toContain("acceptance limit of 3.035 Ah");
   });
 
-  it("without a budget, guarded acceptance is not decided and simple acceptance decides, both saying why", () => {
+  it("without a budget, a guard-band rule is not decided and simple acceptance decides, both saying why", () => {
     const notEvaluated = { evaluated: false as const, reason: "the cycler channel CH-1 states no current accuracy in the instrument register" };
-    const guarded = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.1) }), { rule: "guarded acceptance", uncertainty: notEvaluated });
+    const guarded = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.1) }), { rule: "non-binary guard band", uncertainty: notEvaluated });
     expect(guarded).toMatchObject({ outcome: "not decided", expandedUncertainty: null, uncertainty: notEvaluated });
     expect(guarded.statement).toBe(
-      "Not decided: guarded acceptance needs the expanded uncertainty, and it was not evaluated (the cycler channel CH-1 states no current accuracy in the instrument register).",
+      "Not decided: a guard band w = U needs the expanded uncertainty, and it was not evaluated (the cycler channel CH-1 states no current accuracy in the instrument register).",
     );
     const simple = evaluateAcceptance(capacity, contextOf({ step: steps.discharge, evidence: dischargeFor(5.1) }), { rule: "simple acceptance", uncertainty: notEvaluated });
     expect(simple.outcome).toBe("conforms");

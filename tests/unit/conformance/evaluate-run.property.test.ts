@@ -64,7 +64,7 @@ const inputArbitrary: fc.Arbitrary<RunEvaluationInput> = fc
     log: fc.oneof(fc.constant(undefined), fc.constant(nominalLog), smallLogArbitrary),
     logStartedAt: maybe(timeArbitrary),
     options: maybe(fc.record({ gapAllowanceS: fc.integer({ min: 0, max: 10_000 }) }, { requiredKeys: [] })),
-    decisionRule: fc.constantFrom("simple acceptance" as const, "guarded acceptance" as const),
+    decisionRule: fc.constantFrom("simple acceptance" as const, "binary guard band" as const, "non-binary guard band" as const),
     instruments: fc.subarray(instrumentChoices),
   })
   .map(({ pick, decisionRule, ...rest }) => {
@@ -108,7 +108,7 @@ describe("evaluateRun properties", () => {
         expect(evaluation.decisionRule).toBe(input.resolution.decisionRule);
         for (const result of evaluation.acceptance) {
           expect(result.rule).toBe(evaluation.decisionRule);
-          if (evaluation.decisionRule !== "guarded acceptance" || result.outcome !== "conforms") continue;
+          if (evaluation.decisionRule === "simple acceptance" || result.outcome !== "conforms") continue;
           expect(result.expandedUncertainty).not.toBeNull();
           const { limit, measured } = result;
           if (limit?.value === undefined || measured?.value === undefined || result.expandedUncertainty === null) throw new Error("a conforming result has a limit, a value and U");

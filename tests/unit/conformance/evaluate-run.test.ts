@@ -41,6 +41,7 @@ describe("evaluateRun on a rated-capacity run (IEC 61960-3 7.3.1 template, inven
       "record-matches-log",
       "ambient-in-range",
       "duration-within-limits",
+      "rest-window-within-limit",
       "set-point-matches/duration",
     ]);
     expect(rulesOf("charge")).toEqual([

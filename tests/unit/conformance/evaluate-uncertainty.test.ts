@@ -49,13 +49,16 @@ describe("uncertainty budgets of a rated-capacity run", () => {
     expect(capacity.rows.map((row) => [row.quantity, row.source, row.tolerance, row.unit, row.distribution])).toEqual([
       ["current", "CH-07 current accuracy", "±(0.05 % of reading + 0.05 % of 5 A range)", "A", "rectangular"],
       ["time", "CH-07 time accuracy", "±100 ppm of the elapsed time", "s", "rectangular"],
+      // Issue 12, 2: where the discharge stops, through |dQ/dV| at the end of the log (the synthetic log writes
+      // full-precision values, so no resolution line).
+      ["end voltage", expect.stringMatching(/^CH-07 voltage accuracy, moving where the discharge stops \(\|dQ\/dV\| = [\d.]+ Ah\/V at the end of the log\)$/), "±(0.02 % of reading + 0.02 % of 5 V range)", "V", "rectangular"],
     ]);
     const meanA = (results.capacityAh * 3600) / results.durationS;
     // a(I) = 0.05 % of Ī + 0.05 % of 5 A; u = a/√3 (GUM 4.3.7); 100 ppm of t for the time base.
     expect(capacity.rows[0]!.halfWidth).toBeCloseTo(0.0005 * meanA + 0.0025, 12);
     expect(capacity.rows[0]!.relativeStandardUncertainty).toBeCloseTo((0.0005 * meanA + 0.0025) / Math.sqrt(3) / meanA, 12);
     expect(capacity.rows[1]!.halfWidth).toBeCloseTo(1e-4 * results.durationS, 9);
-    const ur = Math.hypot(capacity.rows[0]!.relativeStandardUncertainty, capacity.rows[1]!.relativeStandardUncertainty);
+    const ur = Math.hypot(capacity.rows[0]!.relativeStandardUncertainty, capacity.rows[1]!.relativeStandardUncertainty, capacity.rows[2]!.relativeContribution);
     expect(capacity.relativeExpandedUncertainty).toBeCloseTo(2 * ur, 12);
     expect(capacity.expandedUncertainty).toBeCloseTo(2 * ur * results.capacityAh, 12);
 
@@ -93,29 +96,37 @@ describe("the procedure's decision rule with the budgets", () => {
     accuracy: { current: { percentOfReading: 1, percentOfRange: 0, range: 5 }, voltage: { percentOfReading: 1, percentOfRange: 0, range: 5 }, time: { ppm: 1000 } },
   };
 
-  it("guarded acceptance leaves a result inside the guard band not decided; simple acceptance lets it conform", () => {
+  it("inside the guard band: binary rule does not conform, non-binary rule conditional pass, simple acceptance conforms (ILAC-G8:09/2019 4.2)", () => {
     const measured = evaluate({ ...close.input, instruments: [clauseFourChannel] }).acceptance[0]!.measured!.value;
     expect(measured).toBeGreaterThan(3);
     // U = 1.16 % of about 3.015 Ah is 0.035 Ah (REFERENCES.md §6 Example A limits): the guard band covers it.
     expect(measured).toBeLessThan(3.03);
-    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "guarded acceptance"), instruments: [clauseFourChannel] });
-    expect(guarded.decisionRule).toBe("guarded acceptance");
-    expect(guarded.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "not decided" });
-    expect(guarded.acceptance[0]!.statement).toContain("guarded acceptance");
+    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "binary guard band"), instruments: [clauseFourChannel] });
+    expect(guarded.decisionRule).toBe("binary guard band");
+    expect(guarded.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "does not conform" });
+    expect(guarded.acceptance[0]!.statement).toContain("binary statement with guard band w = U (ILAC-G8:09/2019 4.2.2)");
+    // The repeat rule could have run another cycle: the specimen is not decided (evaluate-repeat-rule.ts).
     expect(guarded.verdict.specimenConforms).toBe("not decided");
+    const fourOutcomes = evaluate({ ...close.input, resolution: withRule(close.resolution, "non-binary guard band"), instruments: [clauseFourChannel] });
+    expect(fourOutcomes.acceptance[0]).toMatchObject({ rule: "non-binary guard band", outcome: "conditional pass" });
+    expect(fourOutcomes.verdict.specimenConforms).toBe("conditional pass");
+    // A resolution frozen under the earlier name is read as the binary rule.
+    const legacy = evaluate({ ...close.input, resolution: { ...close.resolution, decisionRule: "guarded acceptance" }, instruments: [clauseFourChannel] });
+    expect(legacy.decisionRule).toBe("binary guard band");
+    expect(legacy.acceptance[0]).toMatchObject({ outcome: "does not conform" });
     const simple = evaluate({ ...close.input, instruments: [clauseFourChannel] });
     expect(simple.acceptance[0]).toMatchObject({ rule: "simple acceptance", outcome: "conforms" });
   });
 
-  it("guarded acceptance conforms when the result clears the limit by U", () => {
+  it("a guard-band rule conforms when the result clears the limit by U", () => {
     const clear = buildRatedCapacityRun();
-    const guarded = evaluate({ ...clear.input, resolution: withRule(clear.resolution, "guarded acceptance"), instruments: [channel] });
-    expect(guarded.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "conforms" });
+    const guarded = evaluate({ ...clear.input, resolution: withRule(clear.resolution, "binary guard band"), instruments: [channel] });
+    expect(guarded.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "conforms" });
     expect(guarded.verdict.specimenConforms).toBe("conforms");
   });
 
-  it("without a cycler channel's accuracy there is no budget; guarded acceptance is not decided, simple acceptance decides", () => {
-    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "guarded acceptance"), instruments: [thermometer] });
+  it("without a cycler channel's accuracy there is no budget; a guard-band rule is not decided, simple acceptance decides", () => {
+    const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "binary guard band"), instruments: [thermometer] });
     expect(guarded.uncertainty).toEqual([]);
     expect(guarded.uncertaintyNotEvaluated.map((entry) => [entry.stepId, entry.quantity])).toEqual([
       ["precondition", "capacity"],
@@ -125,7 +136,7 @@ describe("the procedure's decision rule with the budgets", () => {
     ]);
     expect(guarded.uncertaintyNotEvaluated[0]!.reason).toBe("no cycler channel is among the run's instruments, so no accuracy applies to the log's readings");
     expect(guarded.acceptance[0]).toMatchObject({ outcome: "not decided", uncertainty: { evaluated: false }, expandedUncertainty: null });
-    expect(guarded.acceptance[0]!.statement).toContain("guarded acceptance needs the expanded uncertainty, and it was not evaluated");
+    expect(guarded.acceptance[0]!.statement).toContain("a guard band w = U needs the expanded uncertainty, and it was not evaluated");
 
     const simple = evaluate({ ...close.input });
     expect(simple.acceptance[0]).toMatchObject({ outcome: "conforms", uncertainty: { evaluated: false } });
@@ -151,11 +162,24 @@ describe("the procedure's decision rule with the budgets", () => {
     const both = evaluate({ ...close.input, instruments: [channel, clauseFourChannel] });
     const capacity = both.uncertainty.find((entry) => entry.stepId === "discharge" && entry.quantity === "capacity")!.budget;
     expect(capacity.rows[0]!.source).toBe("CH-C4 current accuracy");
-    expect(capacity.relativeExpandedUncertainty * 100).toBeCloseTo(1.1605, 3);
+    // Current and time alone give Example A's 1.1605 % (REFERENCES.md §6); the end-voltage term adds to it in quadrature.
+    const [current, time, end] = capacity.rows;
+    expect(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution) * 100).toBeCloseTo(1.1605, 3);
+    expect(capacity.relativeExpandedUncertainty).toBeCloseTo(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution, end!.relativeContribution), 12);
+    expect(capacity.relativeExpandedUncertainty * 100).toBeGreaterThan(1.1605);
     const noTime: RunInstrument = { ...channel, identifier: "CH-08", accuracy: { current: channel.accuracy.current, voltage: channel.accuracy.voltage } };
     const oneUnstated = evaluate({ ...close.input, instruments: [channel, noTime] });
     expect(oneUnstated.uncertainty).toEqual([]);
     expect(oneUnstated.uncertaintyNotEvaluated[0]!.reason).toContain("CH-08 states no time accuracy");
+  });
+
+  it("never makes a budget for a reading outside the range the channel's accuracy is stated for (issue 13, 4)", () => {
+    const small: RunInstrument = { ...channel, identifier: "CH-05", accuracy: { ...channel.accuracy, current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 0.5 } } };
+    const evaluation = evaluate({ ...close.input, instruments: [small] });
+    const capacity = evaluation.uncertaintyNotEvaluated.find((entry) => entry.stepId === "discharge" && entry.quantity === "capacity");
+    expect(capacity?.reason).toMatch(/^the current of 0\.6\d* A is outside the range of CH-05 \(0\.5 A\), for which its accuracy is stated$/);
+    expect(evaluation.uncertainty.filter((entry) => entry.stepId === "discharge")).toEqual([]);
+    expect(evaluation.acceptance[0]!.statement).toContain("Measurement uncertainty not evaluated: the current of 0.6");
   });
 
   it("refuses an instrument whose accuracy is not a specification, with its path", () => {
@@ -190,7 +214,7 @@ describe("DC resistance budget of a pulse step", () => {
     const procedure = {
       ...dcResistanceTemplate,
       acceptance: [{ kind: "resistance" as const, id: "dc-limit", stepId: "pulse", atMost: { value: 50, unit: "mOhm" as const } }],
-      decisionRule: "guarded acceptance" as const,
+      decisionRule: "binary guard band" as const,
     };
     const resolution = resolveOrThrow({ procedure });
     const log = generateSyntheticLog({
@@ -219,7 +243,7 @@ describe("DC resistance budget of a pulse step", () => {
     const entry = evaluation.uncertainty.find((candidate) => candidate.quantity === "dc-resistance");
     expect(entry).toMatchObject({ stepId: "pulse", cycle: 1 });
     expect(entry!.budget.value).toBe(pulseStep.dcResistance!.resistanceOhm);
-    expect(evaluation.acceptance[0]).toMatchObject({ rule: "guarded acceptance", outcome: "conforms", uncertainty: { evaluated: true, quantity: "dc-resistance" } });
+    expect(evaluation.acceptance[0]).toMatchObject({ rule: "binary guard band", outcome: "conforms", uncertainty: { evaluated: true, quantity: "dc-resistance" } });
     expect(evaluation.acceptance[0]!.expandedUncertainty).toBeCloseTo(entry!.budget.expandedUncertainty, 12);
   });
 });

@@ -27,7 +27,7 @@ describe("stepRecordSchema", () => {
       stepRecords: [{ stepId: "rest", completed: true, ambientReadings: [{ at: "2026-03-02T08:00:00Z", celsius: 22.5 }] }],
     });
     expect(storedRunEvaluationSchema.parse(JSON.parse(JSON.stringify(stored)))).toEqual(stored);
-    expect(stored.options).toEqual({ gapAllowanceS: 600, timeAgreementS: 300, currentOutlierShare: 0.02 });
+    expect(stored.options).toEqual({ gapAllowanceS: 600, timeAgreementS: 300, currentExcursionAllowanceS: 10, chargeVoltageReadingAllowanceV: 0.005 });
   });
 });
 

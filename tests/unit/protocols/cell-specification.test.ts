@@ -54,8 +54,8 @@ describe('cell specification schema', () => {
     expect(validateCellSpecification({ ...typicalNmcCell, designation: 'inr22/71' }).ok).toBe(true);
   });
 
-  it('accepts only the IEC 61960 positive-electrode letters and refuses unknown fields', () => {
-    expect(pathsOf({ ...typicalNmcCell, chemistry: { positiveElectrode: 'X', label: 'NMC' } })).toEqual([
+  it('accepts only the IEC 61960 and IECEE CTL positive-electrode letters and refuses unknown fields', () => {
+    expect(pathsOf({ ...typicalNmcCell, chemistry: { positiveElectrode: 'Q', label: 'NMC' } })).toEqual([
       'chemistry.positiveElectrode',
     ]);
     expect(problemsOf({ ...typicalNmcCell, colour: 'blue' })).toEqual([{ path: '', message: 'unexpected field: colour' }]);

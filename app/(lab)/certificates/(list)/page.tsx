@@ -64,6 +64,8 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
             <option value="">any</option>
             <option value="conforms">conforms</option>
             <option value="does not conform">does not conform</option>
+            <option value="conditional pass">conditional pass</option>
+            <option value="conditional fail">conditional fail</option>
             <option value="not decided">not decided</option>
           </select>
         </label>
