@@ -339,4 +339,13 @@ export interface Database {
   certificate: CertificateTable;
   mail_message: MailMessageTable;
   lot_sample_draw: LotSampleDrawTable;
+  run_participant: RunParticipantTable;
+}
+
+/** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
+export interface RunParticipantTable {
+  run_id: string;
+  user_id: string;
+  activity: "started" | "recorded" | "uploaded" | "submitted";
+  first_at: DefaultedTimestamp;
 }

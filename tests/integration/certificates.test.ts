@@ -244,7 +244,7 @@ describe("run certificates", () => {
     await accept(run.runId);
     // An operator has no signing role; the operator of this very run is refused even as an engineer.
     await expect(issueRunCertificate(l.operator, run.runId, { password: PASSWORD })).rejects.toThrow(/Only an engineer/);
-    await expect(issueRunCertificate({ ...l.operator, role: "engineer" }, run.runId, { password: PASSWORD })).rejects.toThrow(/You operated run/);
+    await expect(issueRunCertificate({ ...l.operator, role: "engineer" }, run.runId, { password: PASSWORD })).rejects.toThrow(/You took part in run/);
     await expect(issueRunCertificate(l.issuer, run.runId, { password: "not my password" })).rejects.toThrow(/password is not right/);
     const refused = await listAuditEvents(getDb(), { action: "signature.refused" });
     expect(refused[0]).toMatchObject({ actorLabel: expect.stringContaining("Ida Issuer"), detail: { what: `certificate of run ${run.number}`, reason: "wrong password" } });
@@ -313,7 +313,7 @@ describe("run certificates", () => {
     expect((await listAuditEvents(getDb(), { entityType: "certificate", entityId: old!.id })).map((e) => e.action)).toContain("certificate.supersede");
 
     await expect(revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "" })).rejects.toThrow(/Say why/);
-    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, second.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You operated run/);
+    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, second.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You took part in run/);
     await expect(revokeCertificate(l.issuer, second.number, { password: "wrong", reason: "Channel found out of tolerance" })).rejects.toThrow(/password is not right/);
     expect((await getCertificateByNumber(getDb(), second.number))?.status).toBe("valid");
     await revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "Cycler channel found out of tolerance at its next calibration" });
