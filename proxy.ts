@@ -25,11 +25,12 @@ export async function proxy(request: NextRequest) {
 }
 
 /**
- * A log upload (up to 200 MB) is left out: the proxy would buffer its whole body. That route makes
- * the same origin check itself before it reads a byte (app/api/runs/[id]/logs/route.ts).
+ * The uploads (a log up to 200 MB, a datasheet up to 10 MB) are left out: the proxy would buffer their
+ * bodies, and cut them at its own limit. Those routes make the same origin check themselves before they
+ * read a byte, and count the body as it arrives (lib/api/limited-body.ts).
  * The public certificate check is left out too: it changes nothing, needs no session, and an
  * assessor may call it from a script (`curl --data-binary @certificate.pdf`), which sends no Origin.
  */
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/check/).*)"],
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/specs/[^/]+/datasheet$|api/check/).*)"],
 };

@@ -9,7 +9,9 @@ export type DomainErrorCode =
   | "conflict"
   | "invalid"
   | "rate-limited"
-  | "foreign-origin";
+  | "foreign-origin"
+  | "too-large"
+  | "unavailable";
 
 const STATUS: Record<DomainErrorCode, number> = {
   unauthenticated: 401,
@@ -19,6 +21,8 @@ const STATUS: Record<DomainErrorCode, number> = {
   invalid: 422,
   "rate-limited": 429,
   "foreign-origin": 403,
+  "too-large": 413,
+  unavailable: 503,
 };
 
 export class DomainError extends Error {

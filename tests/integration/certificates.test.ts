@@ -357,4 +357,31 @@ describe("run certificates", () => {
     const unsigned = await checkCertificatePdf(number, new TextEncoder().encode("%PDF-1.7\n%%EOF\n"));
     expect(unsigned.signature).toMatchObject({ present: false, valid: false, signedByLab: false });
   });
+  // Issue 11 row 2: a 150 MiB chunked body with no Content-Length was read whole before it was refused.
+  it("stops reading a public check upload at its limit, whatever the body's length", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("HUGE");
+    await accept(run.runId);
+    const { number } = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    const { POST } = await import("@/app/api/check/[number]/route");
+    const MiB = 1024 * 1024;
+    let pulled = 0;
+    let cancelled = false;
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (pulled >= 150 * MiB) return controller.close();
+        pulled += MiB;
+        controller.enqueue(new Uint8Array(MiB));
+      },
+      cancel() {
+        cancelled = true;
+      },
+    }, { highWaterMark: 0 });
+    const req = new Request(`http://localhost/api/check/${number}`, { method: "POST", body, headers: { "content-type": "application/pdf" }, duplex: "half" } as RequestInit);
+    const res = await POST(req, { params: Promise.resolve({ number }) });
+    expect(res.status).toBe(413);
+    expect((await res.json()).error.message).toMatch(/larger than 20 MB/);
+    expect(pulled).toBeLessThanOrEqual(22 * MiB);
+    expect(cancelled).toBe(true);
+  });
 });
