@@ -1,27 +1,61 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { isSameOrigin } from "@/lib/auth/origin";
 import { recordForeignOrigin } from "@/lib/auth/foreign-origin";
+import { findUnstorableInRequest } from "@/lib/security/request-text-check";
+import { contentSecurityPolicy, securityHeaders } from "@/lib/security/security-headers";
+import { describeUnstorableText, UNSTORABLE_HEADER } from "@/lib/security/unstorable-text";
 
 /**
- * Runs before every request. It only refuses writes from a foreign origin (CSRF) and passes the
- * path on for sign-in redirects; authorisation happens in each page, handler and action.
+ * Runs before every request. It refuses writes from a foreign origin (CSRF) and text the database
+ * cannot store, sets the security headers (a fresh CSP nonce per request) and passes the path on for
+ * sign-in redirects; authorisation happens in each page, handler and action.
  */
 export async function proxy(request: NextRequest) {
   const method = request.method.toUpperCase();
+  const https = request.nextUrl.protocol === "https:" || request.headers.get("x-forwarded-proto") === "https";
+  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
+  const csp = contentSecurityPolicy(nonce, { dev: process.env.NODE_ENV === "development" });
+  const finish = (response: NextResponse) => {
+    response.headers.set("content-security-policy", csp);
+    for (const [name, value] of Object.entries(securityHeaders({ https }))) response.headers.set(name, value);
+    return response;
+  };
+
   if (method !== "GET" && method !== "HEAD" && method !== "OPTIONS") {
     const origin = request.headers.get("origin");
     const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
     if (!isSameOrigin(origin, host)) {
       await recordForeignOrigin({ method, path: request.nextUrl.pathname, origin, host });
-      return NextResponse.json(
-        { error: { code: "foreign-origin", message: "This request came from another site and was refused." } },
-        { status: 403 },
+      return finish(
+        NextResponse.json({ error: { code: "foreign-origin", message: "This request came from another site and was refused." } }, { status: 403 }),
       );
     }
   }
+
   const headers = new Headers(request.headers);
+  headers.delete(UNSTORABLE_HEADER);
+  const unstorable = await findUnstorableInRequest(request);
+  if (unstorable) {
+    const message = describeUnstorableText(unstorable, { saving: method !== "GET" && method !== "HEAD" });
+    if (request.headers.has("next-action")) {
+      // A server action answers in its own format: it reads this and refuses with the message.
+      headers.set(UNSTORABLE_HEADER, encodeURIComponent(JSON.stringify({ field: unstorable.path, message })));
+    } else if (request.nextUrl.pathname.startsWith("/api/")) {
+      return finish(NextResponse.json({ error: { code: "invalid", message, fields: [{ path: unstorable.path, message }] } }, { status: 422 }));
+    } else {
+      return finish(new NextResponse(refusalPage(message), { status: 422, headers: { "content-type": "text/html; charset=utf-8" } }));
+    }
+  }
+
   headers.set("x-cellwright-path", request.nextUrl.pathname + request.nextUrl.search);
-  return NextResponse.next({ request: { headers } });
+  headers.set("x-nonce", nonce);
+  headers.set("content-security-policy", csp);
+  return finish(NextResponse.next({ request: { headers } }));
+}
+
+function refusalPage(message: string): string {
+  const text = message.replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
+  return `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Not accepted</title></head><body style="font-family:sans-serif;max-width:40rem;margin:3rem auto;padding:0 1rem"><h1>This address was not accepted</h1><p>${text}</p><p><a href="/">Back to the workbench</a></p></body></html>`;
 }
 
 /**

@@ -28,11 +28,14 @@ const STATUS: Record<DomainErrorCode, number> = {
 export class DomainError extends Error {
   readonly code: DomainErrorCode;
   readonly status: number;
-  constructor(code: DomainErrorCode, message: string) {
+  /** The form field or JSON path the error is about, when there is one. */
+  readonly field?: string;
+  constructor(code: DomainErrorCode, message: string, options: { field?: string } = {}) {
     super(message);
     this.name = "DomainError";
     this.code = code;
     this.status = STATUS[code];
+    if (options.field) this.field = options.field;
   }
 }
 
