@@ -1,6 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { isSameOrigin } from "@/lib/auth/origin";
 import { recordForeignOrigin } from "@/lib/auth/foreign-origin";
+import { SESSION_COOKIE, sessionCookieAttributes, slideSession } from "@/lib/auth/session-cookie";
 import { findUnstorableInRequest } from "@/lib/security/request-text-check";
 import { contentSecurityPolicy, securityHeaders } from "@/lib/security/security-headers";
 import { describeUnstorableText, UNSTORABLE_HEADER } from "@/lib/security/unstorable-text";
@@ -50,7 +51,25 @@ export async function proxy(request: NextRequest) {
   headers.set("x-cellwright-path", request.nextUrl.pathname + request.nextUrl.search);
   headers.set("x-nonce", nonce);
   headers.set("content-security-policy", csp);
-  return finish(NextResponse.next({ request: { headers } }));
+  const response = NextResponse.next({ request: { headers } });
+  await followSession(request, response);
+  return finish(response);
+}
+
+/**
+ * The session cookie expires with its session, and both slide while the person works. Only on reads:
+ * sign-in and sign-out (actions, POST) set the cookie themselves and must have the last word. An
+ * unknown or ended session is left to the session check, which removes its cookie.
+ */
+async function followSession(request: NextRequest, response: NextResponse): Promise<void> {
+  const sessionId = request.cookies.get(SESSION_COOKIE)?.value;
+  if (!sessionId || (request.method !== "GET" && request.method !== "HEAD")) return;
+  try {
+    const expires = await slideSession(sessionId);
+    if (expires) response.cookies.set(SESSION_COOKIE, sessionId, sessionCookieAttributes(expires));
+  } catch {
+    // The database is unreachable: the page itself says so; the cookie stays as it is.
+  }
 }
 
 function refusalPage(message: string): string {

@@ -340,6 +340,7 @@ export interface Database {
   mail_message: MailMessageTable;
   lot_sample_draw: LotSampleDrawTable;
   run_participant: RunParticipantTable;
+  refused_request_tally: RefusedRequestTallyTable;
 }
 
 /** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
@@ -348,4 +349,14 @@ export interface RunParticipantTable {
   user_id: string;
   activity: "started" | "recorded" | "uploaded" | "submitted";
   first_at: DefaultedTimestamp;
+}
+
+/** Refused cross-site requests counted per 10-minute window and origin (migration 0013). */
+export interface RefusedRequestTallyTable {
+  window_start: Date;
+  kind: "foreign-origin";
+  origin: string;
+  last_path: string;
+  count: Generated<number>;
+  last_at: DefaultedTimestamp;
 }

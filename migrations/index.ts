@@ -6,6 +6,7 @@ import * as m0004 from "./0004_runs";
 import * as m0005 from "./0005_review_certificates_mail";
 import * as m0006 from "./0006_lot_sampling";
 import * as m0012 from "./0012_run_participants";
+import * as m0013 from "./0013_refused_request_tally";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -19,4 +20,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0005_review_certificates_mail": m0005,
   "0006_lot_sampling": m0006,
   "0012_run_participants": m0012,
+  "0013_refused_request_tally": m0013,
 };
