@@ -19,7 +19,7 @@ test("an admin adds a person, that person signs in, and deactivation signs them 
   await form.getByLabel("E-mail").fill(email);
   await form.getByLabel("First password").fill("short");
   await form.getByRole("button", { name: "Add person" }).click();
-  await expect(form.getByText("Use at least 10 characters.")).toBeVisible();
+  await expect(form.getByText(/Use at least 12 characters/)).toBeVisible();
   await expect(page.getByTestId(`user-${email}`)).toHaveCount(0);
 
   await form.getByLabel("Name").fill("Noor Newcomer");
