@@ -36,6 +36,9 @@ export interface UserSessionTable {
   id: string;
   user_id: string;
   expires_at: Timestamp;
+  created_at: DefaultedTimestamp;
+  address: ColumnType<string | null, string | null | undefined, string | null>;
+  client: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface SignInAttemptTable {

@@ -7,6 +7,7 @@ import * as m0005 from "./0005_review_certificates_mail";
 import * as m0006 from "./0006_lot_sampling";
 import * as m0012 from "./0012_run_participants";
 import * as m0013 from "./0013_refused_request_tally";
+import * as m0014 from "./0014_session_details";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -21,4 +22,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0006_lot_sampling": m0006,
   "0012_run_participants": m0012,
   "0013_refused_request_tally": m0013,
+  "0014_session_details": m0014,
 };

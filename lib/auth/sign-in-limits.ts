@@ -40,3 +40,14 @@ export async function clearSignInLimit(actor: SignedInUser, input: z.input<typeo
     return forgotten;
   });
 }
+
+/** Refused cross-site requests of the last day, counted per 10-minute window and origin. */
+export async function listRefusedRequests(now = new Date()) {
+  return getDb()
+    .selectFrom("refused_request_tally")
+    .select(["window_start", "origin", "last_path", "count", "last_at"])
+    .where("window_start", ">", new Date(now.getTime() - 24 * 3_600_000))
+    .orderBy("last_at", "desc")
+    .limit(100)
+    .execute();
+}

@@ -38,7 +38,7 @@ const sleep = (ms: number) => new Promise<void>((resolve) => setTimeout(resolve,
  * Checks the credentials and, on success, opens a session. Every attempt is recorded (for rate
  * limiting) and audited in the same transaction as its outcome.
  */
-export async function signIn(input: SignInInput & { address: string; now?: Date; pause?: (ms: number) => Promise<void> }): Promise<SignInResult> {
+export async function signIn(input: SignInInput & { address: string; client?: string; now?: Date; pause?: (ms: number) => Promise<void> }): Promise<SignInResult> {
   const { email, password, address } = input;
   const now = input.now ?? new Date();
   const since = new Date(now.getTime() - SIGN_IN_LIMITS.windowMinutes * 60_000);
@@ -76,7 +76,7 @@ export async function signIn(input: SignInInput & { address: string; now?: Date;
       return fail("deactivated", "This account has been deactivated. Ask your lab's administrator.");
     }
 
-    const sessionId = await createSession(tx, account.id);
+    const sessionId = await createSession(tx, account.id, { address, client: input.client });
     await recordSignInAttempt(tx, { email, address, succeeded: true });
     await recordAuditEvent(tx, {
       actorId: account.id,

@@ -1,5 +1,6 @@
 "use server";
 
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { safeNextPath } from "@/lib/auth/safe-next";
 import { getRequestAddress } from "@/lib/auth/request-info";
@@ -13,7 +14,7 @@ export async function signInAction(_prev: ActionState, formData: FormData): Prom
   if (!parsed.success) return toActionState(parsed.error);
   let result;
   try {
-    result = await signIn({ ...parsed.data, address: await getRequestAddress() });
+    result = await signIn({ ...parsed.data, address: await getRequestAddress(), client: (await headers()).get("user-agent") ?? undefined });
   } catch (error) {
     return toActionState(error);
   }
