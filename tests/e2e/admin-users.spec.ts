@@ -38,6 +38,22 @@ test("an admin adds a person, that person signs in, and deactivation signs them 
   await theirPage.getByRole("button", { name: "Sign in" }).click();
   await expect(theirPage.getByTestId("signed-in-name")).toHaveText("Noor Newcomer");
 
+  // Issue 13 item 14 / issue 11: the admin sets a new password; a weak one is refused, and a good one
+  // signs the person out everywhere at once.
+  const row = page.getByTestId(`user-${email}`);
+  await row.getByLabel("New password for Noor Newcomer").fill("aaaaaaaaaaaa");
+  await row.getByRole("button", { name: "Set the typed password as Noor Newcomer's password" }).click();
+  await expect(row.getByRole("alert")).toContainText("more than one or two different characters");
+  await row.getByLabel("New password for Noor Newcomer").fill("harbour lamp copper tray");
+  await row.getByRole("button", { name: "Set the typed password as Noor Newcomer's password" }).click();
+  await expect(row.getByRole("status")).toContainText("Noor Newcomer has a new password; 1 session was signed out.");
+  await theirPage.reload();
+  await expect(theirPage).toHaveURL(/\/sign-in/);
+  await theirPage.getByLabel("E-mail").fill(email);
+  await theirPage.getByLabel("Password").fill("harbour lamp copper tray");
+  await theirPage.getByRole("button", { name: "Sign in" }).click();
+  await expect(theirPage.getByTestId("signed-in-name")).toHaveText("Noor Newcomer");
+
   await page.getByTestId(`user-${email}`).getByRole("button", { name: "Deactivate Noor Newcomer" }).click();
   await expect(page.getByTestId(`user-${email}`)).toContainText("deactivated");
 

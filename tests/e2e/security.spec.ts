@@ -111,3 +111,22 @@ test("a chunked body with no length is cut off at the limit on the public check 
   expect([404, 413]).toContain(written.status);
   expect(written.bytes).toBeLessThan(150 * 1024 * 1024);
 });
+
+test("a forged X-Forwarded-For is not the address the app records (row 4)", async ({ browser }) => {
+  const forged = await browser.newContext({ extraHTTPHeaders: { "x-forwarded-for": "203.0.113.9" } });
+  const page = await forged.newPage();
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill("nobody.forged@brackwater.example");
+  await page.getByLabel("Password").fill("not a password at all");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("alert").filter({ hasText: "Not signed in" })).toBeVisible();
+  await forged.close();
+  const client = new pg.Client({ connectionString: process.env.E2E_DATABASE_URL });
+  await client.connect();
+  try {
+    const row = await client.query("select address from audit_event where actor_label = 'nobody.forged@brackwater.example' order by at desc limit 1");
+    expect(row.rows[0].address).toBe("127.0.0.1");
+  } finally {
+    await client.end();
+  }
+});

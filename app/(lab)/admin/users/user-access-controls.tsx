@@ -27,7 +27,7 @@ export function UserAccessControls({ userId, name, sessions, isSelf }: { userId:
           className="w-40 rounded border border-rule bg-white px-1 py-1 text-sm"
           aria-describedby={`access-${userId}`}
         />
-        <Button type="submit" variant="secondary" disabled={pwPending} aria-label={`Set a new password for ${name}`}>
+        <Button type="submit" variant="secondary" disabled={pwPending} aria-label={`Set the typed password as ${name}'s password`}>
           Set password
         </Button>
       </form>
