@@ -81,7 +81,7 @@ export default async function SignInSecurityPage() {
                   <td className="py-2 pr-3 tabular-nums">{formatDateTime(r.window_start)}</td>
                   <td className="py-2 pr-3 [overflow-wrap:anywhere]">{r.origin}</td>
                   <td className="py-2 pr-3 [overflow-wrap:anywhere]">{r.last_path}</td>
-                  <td className="py-2 tabular-nums">{r.count} times</td>
+                  <td className="py-2 tabular-nums">{r.count} {r.count === 1 ? "time" : "times"}</td>
                 </tr>
               ))}
             </tbody>
