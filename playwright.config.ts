@@ -33,7 +33,7 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: `npx next start -H 127.0.0.1 -p ${port}`,
+    command: `node scripts/serve.mjs -H 127.0.0.1 -p ${port}`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

@@ -5,6 +5,12 @@ const UNIQUE_VIOLATION = "23505";
 const FOREIGN_KEY_VIOLATION = "23503";
 const CHECK_VIOLATION = "23514";
 const RAISED_EXCEPTION = "P0001";
+// Text and dates the database cannot hold; the proxy refuses most of them first (lib/security).
+const UNTRANSLATABLE_CHARACTER = "22P05";
+const CHARACTER_NOT_IN_REPERTOIRE = "22021";
+const DATETIME_FIELD_OVERFLOW = "22008";
+const INVALID_DATETIME_FORMAT = "22007";
+const STATEMENT_TOO_COMPLEX = "54001";
 
 const UNIQUE_MESSAGES: Record<string, string> = {
   app_user_email_key: "A user with this e-mail address already exists.",
@@ -36,8 +42,22 @@ const CHECK_MESSAGES: Record<string, string> = {
   certificate_revocation_complete: "A revocation needs a reason, who revoked and when.",
 };
 
+// The database is down or restarting (class 08 and 57P01–57P03 of appendix A; connection refusals from
+// Node; pg's message when a server closes a connection in use).
+const UNAVAILABLE_CODES = new Set(["08000", "08001", "08003", "08004", "08006", "57P01", "57P02", "57P03", "ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE"]);
+const UNAVAILABLE_MESSAGE = "The lab's database is not reachable just now (it may be restarting). Wait a minute and try again; nothing was changed.";
+
+export function isDatabaseUnavailable(error: unknown): boolean {
+  if (typeof error !== "object" || error === null) return false;
+  const { code, message } = error as { code?: unknown; message?: unknown };
+  if (typeof code === "string" && UNAVAILABLE_CODES.has(code)) return true;
+  if (error instanceof AggregateError) return error.errors.some(isDatabaseUnavailable);
+  return typeof message === "string" && /^Connection terminated( unexpectedly| due to connection timeout)?$/.test(message);
+}
+
 /** Turns a constraint error from pg into a DomainError with a plain message, or returns null. */
 export function translateConstraintError(error: unknown): DomainError | null {
+  if (isDatabaseUnavailable(error)) return new DomainError("unavailable", UNAVAILABLE_MESSAGE);
   if (typeof error !== "object" || error === null || !("code" in error)) return null;
   const { code, constraint, message } = error as { code?: string; constraint?: string; message?: string };
   switch (code) {
@@ -47,6 +67,14 @@ export function translateConstraintError(error: unknown): DomainError | null {
       return new DomainError("conflict", "This record is still referenced by another record, or refers to one that does not exist.");
     case CHECK_VIOLATION:
       return new DomainError("invalid", CHECK_MESSAGES[constraint ?? ""] ?? `A value breaks a rule of the database (${constraint ?? "check"}).`);
+    case UNTRANSLATABLE_CHARACTER:
+    case CHARACTER_NOT_IN_REPERTOIRE:
+      return new DomainError("invalid", "A text contains a character that cannot be stored (a NUL character or a broken one). Remove it and try again; nothing was saved.");
+    case DATETIME_FIELD_OVERFLOW:
+    case INVALID_DATETIME_FORMAT:
+      return new DomainError("invalid", "A date or time is outside the calendar the lab's records use (for example the year 0000). Correct it and try again; nothing was saved.");
+    case STATEMENT_TOO_COMPLEX:
+      return new DomainError("invalid", "The text sent is nested too deeply to be stored. Nothing was saved.");
     case RAISED_EXCEPTION:
       return new DomainError("conflict", message ?? "The database refused this change.");
     default:

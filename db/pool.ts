@@ -13,7 +13,15 @@ export function getDatabaseUrl(): string {
 }
 
 export function getPool(): pg.Pool {
-  globalForPool.cellwrightPool ??= new pg.Pool({ connectionString: getDatabaseUrl(), max: 10 });
+  if (!globalForPool.cellwrightPool) {
+    const pool = new pg.Pool({ connectionString: getDatabaseUrl(), max: 10 });
+    // An idle connection dropped by the server (a restart, a failover) is reported here; without a listener
+    // pg re-throws it as an uncaught exception. The pool opens a new connection on the next query.
+    pool.on("error", (error) => {
+      console.warn(`database connection lost while idle (${(error as { code?: string }).code ?? error.message}); the next request reconnects`);
+    });
+    globalForPool.cellwrightPool = pool;
+  }
   return globalForPool.cellwrightPool;
 }
 

@@ -36,6 +36,9 @@ export interface UserSessionTable {
   id: string;
   user_id: string;
   expires_at: Timestamp;
+  created_at: DefaultedTimestamp;
+  address: ColumnType<string | null, string | null | undefined, string | null>;
+  client: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface SignInAttemptTable {
@@ -346,4 +349,24 @@ export interface Database {
   certificate: CertificateTable;
   mail_message: MailMessageTable;
   lot_sample_draw: LotSampleDrawTable;
+  run_participant: RunParticipantTable;
+  refused_request_tally: RefusedRequestTallyTable;
+}
+
+/** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
+export interface RunParticipantTable {
+  run_id: string;
+  user_id: string;
+  activity: "started" | "recorded" | "uploaded" | "submitted";
+  first_at: DefaultedTimestamp;
+}
+
+/** Refused cross-site requests counted per 10-minute window and origin (migration 0013). */
+export interface RefusedRequestTallyTable {
+  window_start: Date;
+  kind: "foreign-origin";
+  origin: string;
+  last_path: string;
+  count: Generated<number>;
+  last_at: DefaultedTimestamp;
 }

@@ -10,7 +10,9 @@ export type DomainErrorCode =
   | "invalid"
   | "rate-limited"
   | "foreign-origin"
-  | "integrity";
+  | "integrity"
+  | "too-large"
+  | "unavailable";
 
 const STATUS: Record<DomainErrorCode, number> = {
   unauthenticated: 401,
@@ -22,16 +24,21 @@ const STATUS: Record<DomainErrorCode, number> = {
   "foreign-origin": 403,
   // A stored file that no longer matches its recorded hash, or is missing: refused, never served.
   integrity: 409,
+  "too-large": 413,
+  unavailable: 503,
 };
 
 export class DomainError extends Error {
   readonly code: DomainErrorCode;
   readonly status: number;
-  constructor(code: DomainErrorCode, message: string) {
+  /** The form field or JSON path the error is about, when there is one. */
+  readonly field?: string;
+  constructor(code: DomainErrorCode, message: string, options: { field?: string } = {}) {
     super(message);
     this.name = "DomainError";
     this.code = code;
     this.status = STATUS[code];
+    if (options.field) this.field = options.field;
   }
 }
 

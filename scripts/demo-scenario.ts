@@ -11,11 +11,11 @@ export const DEMO_LAB = {
 };
 
 export const DEMO_USERS: { email: string; displayName: string; role: Role; password: string }[] = [
-  { email: "admin@brackwater.example", displayName: "Ines Varga", role: "admin", password: "demo-admin-pass" },
-  { email: "engineer@brackwater.example", displayName: "Dana Okafor", role: "engineer", password: "demo-engineer-pass" },
-  { email: "engineer2@brackwater.example", displayName: "Tomas Lindqvist", role: "engineer", password: "demo-engineer-pass" },
-  { email: "operator@brackwater.example", displayName: "Priya Raman", role: "operator", password: "demo-operator-pass" },
-  { email: "auditor@brackwater.example", displayName: "Felix Aubert", role: "auditor", password: "demo-auditor-pass" },
+  { email: "admin@brackwater.example", displayName: "Ines Varga", role: "admin", password: "brass key ledger cabinet" },
+  { email: "engineer@brackwater.example", displayName: "Dana Okafor", role: "engineer", password: "clamp meter quiet harbour" },
+  { email: "engineer2@brackwater.example", displayName: "Tomas Lindqvist", role: "engineer", password: "rested cell warm chamber" },
+  { email: "operator@brackwater.example", displayName: "Priya Raman", role: "operator", password: "tick every step slowly" },
+  { email: "auditor@brackwater.example", displayName: "Felix Aubert", role: "auditor", password: "read the signed record" },
 ];
 
 /**

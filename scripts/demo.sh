@@ -27,7 +27,7 @@ fi
 log "building the app"; npx next build >.data/next-build.log 2>&1 || { tail -40 .data/next-build.log; exit 1; }
 
 log "starting the app"
-setsid npx next start -H 127.0.0.1 -p "$PORT" >.data/app.log 2>&1 &
+setsid node scripts/serve.mjs -H 127.0.0.1 -p "$PORT" >.data/app.log 2>&1 &
 echo $! >.data/app.pid
 trap 'kill -- -"$(cat .data/app.pid)" 2>/dev/null; exit 0' INT TERM
 for _ in $(seq 1 60); do

@@ -1,4 +1,4 @@
-import { hash } from "@node-rs/argon2";
+import { hash, verify } from "@node-rs/argon2";
 import { generateIdFromEntropySize } from "lucia";
 import { Kysely, PostgresDialect } from "kysely";
 import pg from "pg";
@@ -14,6 +14,14 @@ import { seedLibrary } from "./seed-library";
  * (through the same services the app uses, so the audit trail tells the story). Idempotent: existing users keep their passwords and roles, so running the
  * demo twice never undoes what someone changed in it.
  */
+/** The demo passwords before the password policy of docs/security.md (shorter than 12 or naming the role). */
+const LEGACY_DEMO_PASSWORDS: Partial<Record<string, string>> = {
+  admin: "demo-admin-pass",
+  engineer: "demo-engineer-pass",
+  operator: "demo-operator-pass",
+  auditor: "demo-auditor-pass",
+};
+
 export async function seedDemo(databaseUrl: string): Promise<{ created: string[] }> {
   const db = new Kysely<Database>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: databaseUrl, max: 2 }) }),
@@ -27,8 +35,15 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
         .onConflict((oc) => oc.column("id").doNothing())
         .execute();
       for (const u of DEMO_USERS) {
-        const exists = await tx.selectFrom("app_user").select("id").where("email", "=", u.email).executeTakeFirst();
-        if (exists) continue;
+        const exists = await tx.selectFrom("app_user").select(["id", "password_hash"]).where("email", "=", u.email).executeTakeFirst();
+        if (exists) {
+          // A demo made before the password policy still has its old, too-weak demo password: move it to the printed one.
+          const old = LEGACY_DEMO_PASSWORDS[u.role];
+          if (old && (await verify(exists.password_hash, old).catch(() => false))) {
+            await tx.updateTable("app_user").set({ password_hash: await hash(u.password) }).where("id", "=", exists.id).execute();
+          }
+          continue;
+        }
         const id = generateIdFromEntropySize(10);
         await tx
           .insertInto("app_user")

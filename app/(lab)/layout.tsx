@@ -30,9 +30,9 @@ export default async function LabLayout({ children }: { children: ReactNode }) {
           </div>
           <div className="flex items-center gap-3 text-sm">
             <span>
-              <span className="font-medium" data-testid="signed-in-name">
+              <Link href="/account" className="font-medium hover:underline" data-testid="signed-in-name" title="Your account: password and sessions">
                 {user.displayName}
-              </span>{" "}
+              </Link>{" "}
               <span className="text-ink-soft">· {ROLE_LABELS[user.role]}</span>
             </span>
             <form action={signOutAction}>

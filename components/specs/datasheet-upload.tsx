@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
+import { DATASHEET_MAX_BYTES, datasheetTooLargeMessage } from "@/lib/specs/datasheet-limits";
 
 /** Sends a datasheet PDF to the server, which checks it by content, stores it and records its SHA-256. */
 export function DatasheetUpload({ specId }: { specId: string }) {
@@ -14,6 +15,10 @@ export function DatasheetUpload({ specId }: { specId: string }) {
     const file = data.get("datasheet");
     if (!(file instanceof File) || file.size === 0) {
       setState({ kind: "failed", message: "Choose a PDF file first." });
+      return;
+    }
+    if (file.size > DATASHEET_MAX_BYTES) {
+      setState({ kind: "failed", message: datasheetTooLargeMessage(file.size) });
       return;
     }
     setState({ kind: "sending" });

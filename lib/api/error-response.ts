@@ -17,7 +17,10 @@ export function toErrorResponse(error: unknown, log: (e: unknown) => void = cons
     return json(422, { error: { code: "invalid", message: "Some fields are not valid.", fields } });
   }
   const domain = isDomainError(error) ? error : translateConstraintError(error);
-  if (domain) return json(domain.status, { error: { code: domain.code, message: domain.message } });
+  if (domain) {
+    const fields = domain.field ? [{ path: domain.field, message: domain.message }] : undefined;
+    return json(domain.status, { error: { code: domain.code, message: domain.message, ...(fields && { fields }) } });
+  }
   log(error);
   return json(500, { error: { code: "internal", message: "Something went wrong on the server; it has been logged." } });
 }

@@ -1,7 +1,9 @@
 import "server-only";
+import { headers } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { DomainError } from "@/lib/errors";
 import { toErrorResponse } from "@/lib/api/error-response";
+import { readUnstorableHeader, UNSTORABLE_HEADER } from "@/lib/security/unstorable-text";
 import { can, type Permission } from "./permissions";
 import { getRequestPath } from "./request-info";
 import { getCurrentSession } from "./session";
@@ -31,6 +33,9 @@ export async function requireActionPermission(permission: Permission): Promise<S
   if (!can(session.user.role, permission)) {
     throw new DomainError("forbidden", "Your role does not allow this action.");
   }
+  // The proxy found text that cannot be stored in this action's form (proxy.ts): refuse before anything is written.
+  const unstorable = readUnstorableHeader((await headers()).get(UNSTORABLE_HEADER));
+  if (unstorable) throw new DomainError("invalid", unstorable.message, { field: unstorable.field });
   return session.user;
 }
 

@@ -3,19 +3,21 @@ import { NodePostgresAdapter } from "@lucia-auth/adapter-postgresql";
 import { Lucia, TimeSpan, generateIdFromEntropySize } from "lucia";
 import { getPool } from "@/db/pool";
 import type { Role } from "@/db/schema";
+import { SESSION_COOKIE, SESSION_LIFETIME_MS } from "./session-cookie";
 
 // All session-library code stays in lib/auth/: the library is no longer developed and may be swapped.
 
 /** A working day plus margin; an active user's session is extended while in use. */
-export const SESSION_LIFETIME = new TimeSpan(12, "h");
-export const SESSION_COOKIE = "cellwright_session";
+export const SESSION_LIFETIME = new TimeSpan(SESSION_LIFETIME_MS / 3_600_000, "h");
+export { SESSION_COOKIE };
 
 function createLucia() {
   return new Lucia(new NodePostgresAdapter(getPool(), { user: "app_user", session: "user_session" }), {
     sessionExpiresIn: SESSION_LIFETIME,
     sessionCookie: {
       name: SESSION_COOKIE,
-      expires: false,
+      // The cookie ends with the session (Max-Age = the session's lifetime); the proxy slides both.
+      expires: true,
       attributes: {
         // httpOnly is always set by the library; secure follows the deployment.
         secure: process.env.NODE_ENV === "production" && process.env.COOKIE_SECURE !== "false",

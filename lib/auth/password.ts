@@ -1,14 +1,12 @@
 import "server-only";
 import { hash, verify } from "@node-rs/argon2";
-import { z } from "zod";
+import { newPasswordSchema } from "./password-policy";
 
 // OWASP password storage cheat sheet, argon2id minimum: m = 19 MiB, t = 2, p = 1.
 const OPTIONS = { memoryCost: 19456, timeCost: 2, parallelism: 1, outputLen: 32 } as const;
 
-export const passwordSchema = z
-  .string()
-  .min(10, "Use at least 10 characters.")
-  .max(256, "Use at most 256 characters.");
+/** A new password: the rules of lib/auth/password-policy.ts (length, breached list; the e-mail rule where the account is known). */
+export const passwordSchema = newPasswordSchema;
 
 export function hashPassword(password: string): Promise<string> {
   return hash(password, OPTIONS);

@@ -84,4 +84,6 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/specs/[id]/summary": { GET: "run.read" },
   "/api/compare/series": { GET: "run.read" },
   "/api/compare/results.csv": { GET: "run.read" },
+  "/account": "workbench.enter",
+  "/admin/security": "user.manage",
 };

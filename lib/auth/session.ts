@@ -43,9 +43,9 @@ export const getCurrentSession = cache(async (): Promise<CurrentSession | null> 
 });
 
 /** Creates a session row inside the caller's transaction, so it commits with its audit event. */
-export async function createSession(db: Executor, userId: string): Promise<string> {
+export async function createSession(db: Executor, userId: string, seenFrom: { address?: string; client?: string } = {}): Promise<string> {
   const id = newSessionId();
-  await insertSession(db, { id, userId, expiresAt: new Date(Date.now() + SESSION_LIFETIME.milliseconds()) });
+  await insertSession(db, { id, userId, expiresAt: new Date(Date.now() + SESSION_LIFETIME.milliseconds()), ...seenFrom });
   return id;
 }
 

@@ -7,15 +7,18 @@ import { countActiveAdmins, getUser, insertUser, updateUser, type UserView } fro
 import { DomainError } from "@/lib/errors";
 import { newUserId } from "./lucia";
 import { hashPassword, passwordSchema } from "./password";
+import { refusePasswordWithEmail } from "./password-policy";
 import { ROLES } from "./permissions";
 import type { SignedInUser } from "./signed-in-user";
 
-export const createUserSchema = z.object({
-  email: z.email("Enter a valid e-mail address.").transform((e) => e.toLowerCase()),
-  displayName: z.string().trim().min(2, "Enter the person's name.").max(120),
-  role: z.enum(ROLES, "Choose a role."),
-  password: passwordSchema,
-});
+export const createUserSchema = z
+  .object({
+    email: z.email("Enter a valid e-mail address.").transform((e) => e.toLowerCase()),
+    displayName: z.string().trim().min(2, "Enter the person's name.").max(120, "Use at most 120 characters for the name."),
+    role: z.enum(ROLES, "Choose a role."),
+    password: passwordSchema,
+  })
+  .superRefine((v, ctx) => refusePasswordWithEmail(v, ctx));
 
 export const changeRoleSchema = z.object({ userId: z.string().min(1), role: z.enum(ROLES, "Choose a role.") });
 export const setActiveSchema = z.object({ userId: z.string().min(1), active: z.enum(["true", "false"]).transform((v) => v === "true") });

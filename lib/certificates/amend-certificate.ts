@@ -2,6 +2,7 @@ import "server-only";
 import { getDb } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
 import { getCertificateRecord, setCertificateRevoked, type CertificateRecord } from "@/db/certificates";
+import { describeRunParticipation } from "@/db/run-participants";
 import { getRun } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
@@ -122,11 +123,11 @@ export async function revokeCertificate(actor: SignedInUser, number: string, inp
   const certificate = await requireValidCertificate(getDb(), number);
   if (certificate.runId) {
     const run = await getRun(getDb(), certificate.runId);
-    if (run?.operator.id === actor.id) throw new DomainError("forbidden", `You operated run ${run.number}; someone else must revoke its certificate.`);
+    if (run && (await describeRunParticipation(getDb(), run.id, actor.id))) throw new DomainError("forbidden", `You took part in run ${run.number}; someone else must revoke its certificate.`);
   }
   if (certificate.lotId) {
     const operated = await findSampledRunsOperatedBy(getDb(), certificate.lotId, actor.id);
-    if (operated.length > 0) throw new DomainError("forbidden", `You operated run ${operated.join(", ")}, counted in the sample of this lot; someone else must revoke its certificate.`);
+    if (operated.length > 0) throw new DomainError("forbidden", `You took part in run ${operated.join(", ")}, counted in the sample of this lot; someone else must revoke its certificate.`);
   }
   await confirmSignerPassword(actor, input.password, `revocation of certificate ${number}`, { entityType: "certificate", entityId: certificate.id });
   await getDb()

@@ -6,6 +6,7 @@ import { listDischargeResults } from "@/db/discharge-results";
 import { getLab } from "@/db/lab";
 import { getLotSampling, type LotSampling } from "@/db/lot-sampling";
 import { getLot, lockLot } from "@/db/lots";
+import { listRunsTakenPartIn } from "@/db/run-participants";
 import { getRun, listStepRecords } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
@@ -38,7 +39,8 @@ export async function findSampledRunsOperatedBy(db: Executor, lotId: string, use
   const sampling = await getLotSampling(db, lotId);
   const runIds = sampling?.members.flatMap((m) => (m.runId ? [m.runId] : [])) ?? [];
   const runs = await Promise.all(runIds.map((id) => getRun(db, id)));
-  return runs.filter((r) => r?.operator.id === userId).map((r) => r!.number);
+  const tookPart = await listRunsTakenPartIn(db, runIds, userId);
+  return runs.filter((r) => r && tookPart.has(r.id)).map((r) => r!.number);
 }
 
 /**
@@ -68,11 +70,12 @@ async function checkLotMayBeCertified(db: Executor, actor: SignedInUser, lotId: 
   }
   const runIds = sampling.members.flatMap((m) => (m.runId ? [m.runId] : []));
   const runs = await Promise.all(runIds.map((id) => getRun(db, id)));
-  const operated = runs.filter((r) => r?.operator.id === actor.id).map((r) => r!.number);
+  const tookPart = await listRunsTakenPartIn(db, runIds, actor.id);
+  const operated = runs.filter((r) => r && tookPart.has(r.id)).map((r) => r!.number);
   if (operated.length > 0) {
     throw new DomainError(
       "forbidden",
-      `You operated ${operated.length === 1 ? "run" : "runs"} ${operated.join(", ")}, counted in the sample of lot ${lot.identifier}; its certificate must be signed by an engineer who operated none of the sampled runs.`,
+      `You took part in ${operated.length === 1 ? "run" : "runs"} ${operated.join(", ")}, counted in the sample of lot ${lot.identifier}; its certificate must be signed by an engineer who operated none of the sampled runs.`,
     );
   }
   return { lot, sampling: { ...sampling, plan, draw, decision }, runs: runs.filter((r) => r !== null) };

@@ -12,6 +12,7 @@ import {
 import { getLab } from "@/db/lab";
 import { getLot } from "@/db/lots";
 import { getProcedureVersionById } from "@/db/procedures";
+import { describeRunParticipation } from "@/db/run-participants";
 import { getRun, listRunInstrumentIds, listStepRecords, type RunView } from "@/db/runs";
 import { getSpecimen } from "@/db/specimens";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
@@ -42,8 +43,9 @@ export type RunCertificateBasis = Omit<RunCertificateRecords, "number" | "issued
 async function checkRunMayBeCertified(db: Executor, actor: SignedInUser, runId: string, expected: "accepted" | "certified") {
   const run = await getRun(db, runId);
   if (!run) throw new DomainError("not-found", "No such run.");
-  if (run.operator.id === actor.id) {
-    throw new DomainError("forbidden", `You operated run ${run.number}; its certificate must be signed by an engineer who did not run it.`);
+  const tookPart = await describeRunParticipation(db, runId, actor.id);
+  if (tookPart) {
+    throw new DomainError("forbidden", `You took part in run ${run.number} (you ${tookPart}); its certificate must be signed by an engineer who took no part in it.`);
   }
   if (run.status !== expected) {
     if (expected === "accepted" && run.status === "certified") {

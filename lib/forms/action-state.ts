@@ -22,7 +22,11 @@ export function toActionState(error: unknown, log: (e: unknown) => void = consol
     return { ok: false, message: "Some fields need attention.", fieldErrors };
   }
   const domain = isDomainError(error) ? error : translateConstraintError(error);
-  if (domain) return { ok: false, message: domain.message };
+  if (domain) {
+    // A server action's form fields arrive as "1_name": the form knows them as "name".
+    const field = domain.field?.replace(/^\d+_/, "");
+    return { ok: false, message: domain.message, ...(field && { fieldErrors: { [field]: [domain.message] } }) };
+  }
   log(error);
   return { ok: false, message: "Something went wrong on the server; it has been logged. Try again." };
 }

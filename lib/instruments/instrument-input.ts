@@ -9,10 +9,10 @@ export const instrumentInputSchema = z
   .object({
     kind: z.enum(INSTRUMENT_KINDS, { error: "Choose the kind of instrument." }),
     identifier: recordIdentifierSchema("identifier"),
-    serial: z.string({ error: "required" }).trim().min(1, { error: "Give the maker's serial number." }).max(100),
+    serial: z.string({ error: "required" }).trim().min(1, { error: "Give the maker's serial number." }).max(100, { error: "The serial number has at most 100 characters." }),
     firmware: optionalTextSchema(60),
     accuracy: accuracySpecificationSchema,
-    calibrationCertificate: z.string({ error: "required" }).trim().min(1, { error: "Give the calibration certificate number." }).max(100),
+    calibrationCertificate: z.string({ error: "required" }).trim().min(1, { error: "Give the calibration certificate number." }).max(100, { error: "The calibration certificate number has at most 100 characters." }),
     calibratedOn: calendarDateSchema,
     dueOn: calendarDateSchema,
   })

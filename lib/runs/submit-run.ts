@@ -1,6 +1,7 @@
 import "server-only";
 import { getDb } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
+import { noteRunSubmitter } from "@/db/run-participants";
 import { getRun, listStepRecords, setRunStatus } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
@@ -38,6 +39,7 @@ export async function submitRun(actor: SignedInUser, runId: string, opts: { conf
       );
     }
     await setRunStatus(tx, runId, "submitted", "submitted_at");
+    await noteRunSubmitter(tx, runId, actor.id);
     await recordAuditEvent(tx, {
       actorId: actor.id,
       actorLabel: `${actor.displayName} <${actor.email}>`,

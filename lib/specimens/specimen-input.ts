@@ -18,7 +18,7 @@ export const specimenInputSchema = z.object({
     .nullish()
     .transform((v) => v ?? null),
   receivedOn: calendarDateSchema,
-  conditionOnReceipt: z.string({ error: "required" }).trim().min(1, { error: "Describe the condition on receipt." }).max(500),
+  conditionOnReceipt: z.string({ error: "required" }).trim().min(1, { error: "Describe the condition on receipt." }).max(500, { error: "Describe the condition in at most 500 characters." }),
   notes: optionalTextSchema(2000),
 });
 export type SpecimenInput = z.input<typeof specimenInputSchema>;

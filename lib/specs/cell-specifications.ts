@@ -70,7 +70,7 @@ export async function attachDatasheet(
   specId: string,
   file: { name: string; bytes: Uint8Array },
 ): Promise<{ fileId: string; sha256: string; sizeBytes: number }> {
-  const check = checkDatasheetFile(file);
+  const check = await checkDatasheetFile(file);
   if (!check.ok) throw new DomainError("invalid", check.message);
   const spec = await getCellSpecification(getDb(), specId);
   if (!spec) throw new DomainError("not-found", "No such cell specification.");

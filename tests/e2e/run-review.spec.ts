@@ -63,7 +63,7 @@ test("an engineer returns R-00002 with comments, its operator reads them and may
     await expect(note).toContainText(comments);
 
     await page.getByRole("link", { name: "Review", exact: true }).click();
-    await expect(page.getByTestId("review-refused")).toContainText("You operated this run, so you cannot review it");
+    await expect(page.getByTestId("review-refused")).toContainText("You took part in this run, so you cannot review it");
     await expect(page.getByRole("button", { name: /Sign as reviewed/ })).toHaveCount(0);
 
     await page.goto(`/runs/${run.id}`);

@@ -55,3 +55,28 @@ test("a sign-in link cannot send the user to another site", async ({ page }) => 
   await expect(page.getByTestId("signed-in-name")).toBeVisible();
   expect(new URL(page.url()).host).toBe(new URL(test.info().project.use.baseURL!).host);
 });
+
+// Issue 11 row 1: `/sign-in?next=%2F%5Cevil.example` ended at http://evil.example/ (browsers read `/\host` as `//host`).
+test("a sign-in link with a backslash path cannot send the user to another site either", async ({ page, baseURL }) => {
+  const auditor = DEMO_USERS.find((u) => u.role === "auditor")!;
+  await page.goto("/sign-in?next=%2F%5Cevil.example");
+  await page.getByLabel("E-mail").fill(auditor.email);
+  await page.getByLabel("Password").fill(auditor.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByTestId("signed-in-name")).toBeVisible();
+  expect(new URL(page.url()).host).toBe(new URL(baseURL!).host);
+});
+
+// Issue 11 row 10: the cookie lived 400 days while the session ends after 12 hours.
+test("the session cookie expires with the session, not 400 days later", async ({ page, context }) => {
+  const operator = DEMO_USERS.find((u) => u.role === "operator")!;
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(operator.email);
+  await page.getByLabel("Password").fill(operator.password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByTestId("signed-in-name")).toBeVisible();
+  const cookie = (await context.cookies()).find((c) => c.name === "cellwright_session")!;
+  const hoursLeft = (cookie.expires * 1000 - Date.now()) / 3_600_000;
+  expect(hoursLeft).toBeGreaterThan(11);
+  expect(hoursLeft).toBeLessThanOrEqual(12.01);
+});

@@ -1,4 +1,5 @@
 import { expect, test } from "@playwright/test";
+import { tinyPdf } from "../support/tiny-pdf";
 import { signInAs } from "./fixtures";
 
 test("an engineer registers a cell, sees its IEC 61960 designation, and attaches its datasheet; a bad file is refused", async ({ page, context, baseURL }) => {
@@ -40,7 +41,7 @@ test("an engineer registers a cell, sees its IEC 61960 designation, and attaches
   await expect(page.getByRole("alert").filter({ hasText: "is not a PDF" })).toBeVisible();
   await expect(page.getByText("No datasheet on file.")).toBeVisible();
 
-  await upload.setInputFiles({ name: "quillon-datasheet.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\n%%EOF\n") });
+  await upload.setInputFiles({ name: "quillon-datasheet.pdf", mimeType: "application/pdf", buffer: Buffer.from(await tinyPdf("Quillon datasheet")) });
   await page.getByRole("button", { name: "Upload datasheet" }).click();
   await expect(page.getByRole("link", { name: "quillon-datasheet.pdf" })).toBeVisible();
   const download = page.waitForEvent("download");

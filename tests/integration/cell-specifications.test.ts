@@ -6,6 +6,7 @@ import { attachDatasheet, createCellSpecification, editCellSpecification } from 
 import { cellSpecificationInputSchema } from "@/lib/specs/cell-specifications-input";
 import { getObjectBytes, listObjectKeys, sha256Hex } from "@/lib/storage";
 import { makeUser } from "./fixtures";
+import { tinyPdf } from "../support/tiny-pdf";
 
 const base = cellSpecificationInputSchema.parse({
   maker: "Testmoor Cells",
@@ -28,7 +29,7 @@ let n = 0;
 /** Each test registers its own model, since the tests of one file share a database. */
 const fresh = () => ({ ...base, model: `TM-21N50-${++n}` });
 
-const pdf = (body: string) => new TextEncoder().encode(`%PDF-1.4\n${body}\n%%EOF\n`);
+const pdf = (body: string) => tinyPdf(body);
 
 describe("cell specifications", () => {
   it("stores the computed IEC 61960 designation and records edits in the audit trail", async () => {
@@ -53,7 +54,7 @@ describe("cell specifications", () => {
   it("stores a datasheet whole with its SHA-256, and refuses a file that is not a PDF", async () => {
     const engineer = await makeUser("engineer", "Eve Engineer");
     const id = await createCellSpecification(engineer, fresh());
-    const bytes = pdf("datasheet body");
+    const bytes = await pdf("datasheet body");
     const stored = await attachDatasheet(engineer, id, { name: "tm-21n50.pdf", bytes });
     expect(stored.sha256).toBe(sha256Hex(bytes));
     const spec = await getCellSpecification(getDb(), id);
@@ -61,8 +62,13 @@ describe("cell specifications", () => {
     const file = await getDb().selectFrom("stored_file").select("storage_key").where("id", "=", stored.fileId).executeTakeFirstOrThrow();
     expect(sha256Hex(await getObjectBytes(file.storage_key))).toBe(stored.sha256);
 
-    await expect(attachDatasheet(engineer, id, { name: "photo.png", bytes: new Uint8Array([0x89, 0x50, 0x4e, 0x47]) })).rejects.toThrow(/is not a PDF/);
-    await expect(attachDatasheet(engineer, id, { name: "big.pdf", bytes: new Uint8Array(11 * 1024 * 1024) })).rejects.toThrow(/at most 10 MB/);
+    await expect(attachDatasheet(engineer, id, { name: "photo.png", bytes: new Uint8Array([0x89, 0x50, 0x4e, 0x47]) })).rejects.toThrow(/is not a PDF that can be opened/);
+    await expect(attachDatasheet(engineer, id, { name: "big.pdf", bytes: new Uint8Array(11 * 1024 * 1024) })).rejects.toThrow(/is 11.0 MB; a datasheet may be at most 10 MB/);
+    // Issue 11 row 12: an HTML page with "%PDF-" near its start was stored and served as a PDF.
+    const html = new TextEncoder().encode("%PDF-1.4\n<html><body><script>alert(document.cookie)</script></body></html>\n%%EOF\n");
+    await expect(attachDatasheet(engineer, id, { name: "page.pdf", bytes: html })).rejects.toThrow(/is not a PDF that can be opened/);
+    const hidden = new TextEncoder().encode("<html><!-- %PDF-1.7 --><script>alert(1)</script></html>");
+    await expect(attachDatasheet(engineer, id, { name: "page2.pdf", bytes: hidden })).rejects.toThrow(/is not a PDF that can be opened/);
     // The earlier datasheet is still the one on file.
     expect((await getCellSpecification(getDb(), id))?.datasheet?.sha256).toBe(stored.sha256);
   });
@@ -73,7 +79,7 @@ describe("cell specifications", () => {
     const id = await createCellSpecification(engineer, fresh());
     const filesBefore = await getDb().selectFrom("stored_file").select("id").execute();
     // uploaded_by references app_user: an unknown uploader makes the insert fail after the file is stored.
-    await expect(attachDatasheet(ghost, id, { name: "x.pdf", bytes: pdf("orphan") })).rejects.toThrow();
+    await expect(attachDatasheet(ghost, id, { name: "x.pdf", bytes: await pdf("orphan") })).rejects.toThrow();
     const files = await getDb().selectFrom("stored_file").select("id").execute();
     expect(files).toEqual(filesBefore);
     expect(await listObjectKeys(`datasheets/${id}/`)).toEqual([]);

@@ -253,7 +253,7 @@ describe("run certificates", () => {
     await accept(run.runId);
     // An operator has no signing role; the operator of this very run is refused even as an engineer.
     await expect(issueRunCertificate(l.operator, run.runId, { password: PASSWORD })).rejects.toThrow(/Only an engineer/);
-    await expect(issueRunCertificate({ ...l.operator, role: "engineer" }, run.runId, { password: PASSWORD })).rejects.toThrow(/You operated run/);
+    await expect(issueRunCertificate({ ...l.operator, role: "engineer" }, run.runId, { password: PASSWORD })).rejects.toThrow(/You took part in run/);
     await expect(issueRunCertificate(l.issuer, run.runId, { password: "not my password" })).rejects.toThrow(/password is not right/);
     const refused = await listAuditEvents(getDb(), { action: "signature.refused" });
     expect(refused[0]).toMatchObject({ actorLabel: expect.stringContaining("Ida Issuer"), detail: { what: `certificate of run ${run.number}`, reason: "wrong password" } });
@@ -325,7 +325,7 @@ describe("run certificates", () => {
     expect((await listAuditEvents(getDb(), { entityType: "certificate", entityId: old!.id })).map((e) => e.action)).toContain("certificate.supersede");
 
     await expect(revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "" })).rejects.toThrow(/Say why/);
-    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, second.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You operated run/);
+    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, second.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You took part in run/);
     await expect(revokeCertificate(l.issuer, second.number, { password: "wrong", reason: "Channel found out of tolerance" })).rejects.toThrow(/password is not right/);
     expect((await getCertificateByNumber(getDb(), second.number))?.status).toBe("valid");
     await revokeCertificate(l.issuer, second.number, { password: PASSWORD, reason: "Cycler channel found out of tolerance at its next calibration" });
@@ -446,4 +446,32 @@ describe("run certificates", () => {
       await owner.end();
     }
   }, 60_000);
+
+  // Issue 11 row 2: a 150 MiB chunked body with no Content-Length was read whole before it was refused.
+  it("stops reading a public check upload at its limit, whatever the body's length", async () => {
+    const l = await lab();
+    const run = await runToSubmitted("HUGE");
+    await accept(run.runId);
+    const { number } = await issueRunCertificate(l.issuer, run.runId, { password: PASSWORD });
+    const { POST } = await import("@/app/api/check/[number]/route");
+    const MiB = 1024 * 1024;
+    let pulled = 0;
+    let cancelled = false;
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (pulled >= 150 * MiB) return controller.close();
+        pulled += MiB;
+        controller.enqueue(new Uint8Array(MiB));
+      },
+      cancel() {
+        cancelled = true;
+      },
+    }, { highWaterMark: 0 });
+    const req = new Request(`http://localhost/api/check/${number}`, { method: "POST", body, headers: { "content-type": "application/pdf" }, duplex: "half" } as RequestInit);
+    const res = await POST(req, { params: Promise.resolve({ number }) });
+    expect(res.status).toBe(413);
+    expect((await res.json()).error.message).toMatch(/larger than 20 MB/);
+    expect(pulled).toBeLessThanOrEqual(22 * MiB);
+    expect(cancelled).toBe(true);
+  });
 });

@@ -248,7 +248,7 @@ describe("lot certificates", () => {
     const replacement = await getCertificateByNumber(getDb(), amended.number);
     expect(replacement).toMatchObject({ subject: "lot", lotId: lot.id, verdict: "lot accepted", replacesNumber: number });
     expect(replacement?.payload).toMatchObject({ customer: "Quayside Packs Limited", replaces: { number, reason: "Customer's legal name corrected" } });
-    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, amended.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You operated run .*counted in the sample/);
+    await expect(revokeCertificate({ ...l.operator, role: "engineer" }, amended.number, { password: PASSWORD, reason: "no" })).rejects.toThrow(/You took part in run .*counted in the sample/);
     await revokeCertificate(l.issuer, amended.number, { password: PASSWORD, reason: "Channel found out of tolerance" });
     expect((await getCertificateByNumber(getDb(), amended.number))?.status).toBe("revoked");
   });
@@ -272,7 +272,7 @@ describe("lot certificates", () => {
     expect(refused[0]).toMatchObject({ detail: { what: `certificate of lot ${decided.identifier}`, reason: "wrong password" } });
     // The operator of the sampled runs, even with a signing role, may not certify the lot.
     await expect(issueLotCertificate({ ...l.operator, role: "engineer" }, decided.id, { password: PASSWORD })).rejects.toThrow(
-      new RegExp(`You operated runs ${decided.runs.map((r) => r.number).join(", ")}, counted in the sample of lot ${decided.identifier}`),
+      new RegExp(`You took part in runs ${decided.runs.map((r) => r.number).join(", ")}, counted in the sample of lot ${decided.identifier}`),
     );
     expect(await countWrites()).toEqual(before);
   });

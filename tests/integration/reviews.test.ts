@@ -102,8 +102,8 @@ describe("review of submitted runs", () => {
     const before = await reviewTrace(run.id);
     // The operator later became an engineer: the role alone would let them review.
     const promoted: SignedInUser = { ...lab.operator, role: "engineer" };
-    await expect(returnRun(promoted, run.id, { comments: "looks fine to me" })).rejects.toThrow(/You operated run R-\d+, so you cannot review it/);
-    await expect(acceptRun(promoted, run.id, { password: PASSWORD, acknowledgements: [] })).rejects.toThrow(/You operated run R-\d+/);
+    await expect(returnRun(promoted, run.id, { comments: "looks fine to me" })).rejects.toThrow(/You took part in run R-\d+ \(you started it.*\), so you cannot review it/);
+    await expect(acceptRun(promoted, run.id, { password: PASSWORD, acknowledgements: [] })).rejects.toThrow(/You took part in run R-\d+/);
     await expect(returnRun(lab.operator, run.id, { comments: "x" })).rejects.toThrow(/Only an engineer reviews runs/);
 
     // Straight into the tables, past the service: the triggers refuse it.

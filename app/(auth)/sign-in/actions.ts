@@ -1,6 +1,8 @@
 "use server";
 
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
+import { safeNextPath } from "@/lib/auth/safe-next";
 import { getRequestAddress } from "@/lib/auth/request-info";
 import { setSessionCookie } from "@/lib/auth/session";
 import { signIn, signInSchema } from "@/lib/auth/sign-in";
@@ -12,16 +14,12 @@ export async function signInAction(_prev: ActionState, formData: FormData): Prom
   if (!parsed.success) return toActionState(parsed.error);
   let result;
   try {
-    result = await signIn({ ...parsed.data, address: await getRequestAddress() });
+    result = await signIn({ ...parsed.data, address: await getRequestAddress(), client: (await headers()).get("user-agent") ?? undefined });
   } catch (error) {
     return toActionState(error);
   }
   if (!result.ok) return { ok: false, message: result.message };
   await setSessionCookie(result.sessionId);
-  redirect(safeNext(formData.get("next")));
-}
-
-/** Only local paths: a sign-in link must not be able to send someone to another site. */
-function safeNext(value: FormDataEntryValue | null): string {
-  return typeof value === "string" && value.startsWith("/") && !value.startsWith("//") ? value : "/";
+  // Only local paths: a sign-in link must not be able to send someone to another site.
+  redirect(safeNextPath(formData.get("next")));
 }

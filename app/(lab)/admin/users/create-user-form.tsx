@@ -39,7 +39,7 @@ export function CreateUserForm() {
         name="password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. Hand it over in person."
+        hint="At least 12 characters; a few ordinary words make a good passphrase. Not their e-mail, not a well-known password. Hand it over in person."
         errors={state.fieldErrors?.password}
       />
       <div className="sm:col-span-2">

@@ -1,6 +1,7 @@
 import { getDb } from "@/db";
 import { getCertificateByNumber } from "@/db/certificates";
 import { toErrorResponse } from "@/lib/api/error-response";
+import { readLimitedBody, readLimitedForm } from "@/lib/api/limited-body";
 import { checkCertificatePdf } from "@/lib/certificates/check-pdf";
 import { certificateNumberSchema } from "@/lib/certificate-list/certificate-number";
 import { toPublicCertificate } from "@/lib/certificate-list/public-certificate";
@@ -36,11 +37,8 @@ export async function GET(_req: Request, ctx: Context): Promise<Response> {
 export async function POST(req: Request, ctx: Context): Promise<Response> {
   try {
     const certificate = await findCertificate(ctx);
-    const declared = Number(req.headers.get("content-length") ?? 0);
-    if (declared > MAX_PDF_BYTES) throw new DomainError("invalid", "That file is larger than 20 MB; a certificate PDF is much smaller.");
     const bytes = await readPdf(req);
     if (bytes.byteLength === 0) throw new DomainError("invalid", "Choose a PDF file to check.");
-    if (bytes.byteLength > MAX_PDF_BYTES) throw new DomainError("invalid", "That file is larger than 20 MB; a certificate PDF is much smaller.");
     const result = await checkCertificatePdf(certificate.number, bytes);
     return Response.json({ certificate: toPublicCertificate(certificate), check: result });
   } catch (error) {
@@ -48,14 +46,18 @@ export async function POST(req: Request, ctx: Context): Promise<Response> {
   }
 }
 
+const tooLarge = () => "That file is larger than 20 MB; a certificate PDF is much smaller.";
+
+/** Read as it arrives and never past the limit: this route is public, so nobody may make the server hold more. */
 async function readPdf(req: Request): Promise<Uint8Array> {
   const type = req.headers.get("content-type") ?? "";
   if (type.startsWith("multipart/form-data")) {
-    const form = await req.formData();
+    // A form carries its field headers and boundaries around the file.
+    const form = await readLimitedForm(req, MAX_PDF_BYTES + 64 * 1024, tooLarge);
     const file = form.get("pdf");
     if (!(file instanceof File)) throw new DomainError("invalid", "Choose a PDF file to check.");
     return new Uint8Array(await file.arrayBuffer());
   }
-  if (type.startsWith("application/pdf") || type.startsWith("application/octet-stream")) return new Uint8Array(await req.arrayBuffer());
+  if (type.startsWith("application/pdf") || type.startsWith("application/octet-stream")) return readLimitedBody(req, MAX_PDF_BYTES, tooLarge);
   throw new DomainError("invalid", "Send the PDF itself (content-type application/pdf) or a form with the file in field \"pdf\".");
 }

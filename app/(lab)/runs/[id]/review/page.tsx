@@ -6,6 +6,7 @@ import { getDb } from "@/db";
 import { listRunCertificateNumbers, listRunReviews } from "@/db/reviews";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation } from "@/db/run-series";
+import { describeRunParticipation } from "@/db/run-participants";
 import { getRun } from "@/db/runs";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
@@ -22,23 +23,24 @@ export default async function RunReviewPage({ params }: { params: Promise<{ id: 
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const db = getDb();
-  const [run, stored, log, reviews, certificates] = await Promise.all([
+  const [run, stored, log, reviews, certificates, tookPart] = await Promise.all([
     getRun(db, id.data),
     getLatestRunEvaluation(db, id.data),
     getCurrentRunLog(db, id.data),
     listRunReviews(db, id.data),
     listRunCertificateNumbers(db, id.data),
+    describeRunParticipation(db, id.data, user.id),
   ]);
   if (!run) notFound();
   const status = RUN_STATUS_WORDS[run.status].words;
 
-  if (run.operator.id === user.id) {
+  if (tookPart) {
     return (
       <div className="max-w-3xl" data-testid="review-refused">
-        <Notice title="You operated this run, so you cannot review it">
+        <Notice title="You took part in this run, so you cannot review it">
           <p>
-            A run is reviewed and signed by an engineer who did not carry it out, so that the check is independent of the person who did the work. Another
-            engineer reviews run {run.number}; the database refuses a review or signature by its operator whatever the screen shows.
+            You {tookPart}. A run is reviewed and signed by an engineer who took no part in it, so that the check is independent of the people who did the
+            work. Another engineer reviews run {run.number}; the database refuses a review or signature by anyone who took part, whatever the screen shows.
           </p>
           <p className="mt-2">
             The run is {status}.

@@ -2,9 +2,9 @@ import { z } from "zod";
 import { getDb } from "@/db";
 import { getRun } from "@/db/runs";
 import { columnMappingSchema } from "@/lib/analysis/log-import";
-import { recordForeignOrigin } from "@/lib/auth/foreign-origin";
+import { readLimitedChunks } from "@/lib/api/limited-body";
+import { refuseForeignUpload } from "@/lib/auth/foreign-origin";
 import { apiRoute } from "@/lib/auth/guards";
-import { isSameOrigin } from "@/lib/auth/origin";
 import { DomainError } from "@/lib/errors";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog, LOG_MAX_BYTES } from "@/lib/runs/ingest-log";
@@ -25,19 +25,6 @@ const querySchema = z.object({
   remember: z.enum(["0", "1"]).default("0"),
 });
 
-async function* readBody(body: ReadableStream<Uint8Array>): AsyncIterable<Uint8Array> {
-  const reader = body.getReader();
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) return;
-      yield value;
-    }
-  } finally {
-    reader.releaseLock();
-  }
-}
-
 /**
  * Upload of a cycler log as the raw request body (`?name=…&mapping=<JSON>&remember=1`), read as it
  * arrives. The answer is NDJSON (lib/runs/upload-progress): parse progress, then "stored" with the
@@ -48,9 +35,7 @@ const upload = apiRoute<{ id: string }>("run.operate", async (req, { user, param
   const url = new URL(req.url);
   const q = querySchema.parse({ name: url.searchParams.get("name") ?? undefined, mapping: url.searchParams.get("mapping") ?? undefined, remember: url.searchParams.get("remember") ?? undefined });
   const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > LOG_MAX_BYTES) {
-    throw new DomainError("invalid", `The file is ${(declared / 1048576).toFixed(0)} MiB; a data log may be at most ${LOG_MAX_BYTES / 1048576} MiB.`);
-  }
+  if (declared > LOG_MAX_BYTES) throw new DomainError("too-large", tooLargeLog(declared));
   const run = await getRun(getDb(), id);
   if (!run) throw new DomainError("not-found", "No such run.");
   if (!isRunOpen(run.status)) throw new DomainError("conflict", `Run ${run.number} is ${run.status.replace("_", " ")}; its log can no longer change.`);
@@ -63,7 +48,7 @@ const upload = apiRoute<{ id: string }>("run.operate", async (req, { user, param
       const send = (m: UploadMessage) => controller.enqueue(encoder.encode(encodeUploadMessage(m)));
       try {
         const progress = throttleProgress<{ bytes: number; rows: number }>((p) => send({ type: "progress", ...p }), 200, Date.now);
-        const result = await ingestLog(user, id, { name: q.name, chunks: readBody(body), mapping: q.mapping, onProgress: progress });
+        const result = await ingestLog(user, id, { name: q.name, chunks: readLimitedChunks(body, LOG_MAX_BYTES, () => tooLargeLog()), mapping: q.mapping, onProgress: progress });
         if (!result.ok) {
           send({ type: "refused", error: result.error });
           return;
@@ -90,13 +75,12 @@ const upload = apiRoute<{ id: string }>("run.operate", async (req, { user, param
   return new Response(stream, { headers: { "content-type": "application/x-ndjson; charset=utf-8", "cache-control": "no-store", "x-accel-buffering": "no" } });
 });
 
+function tooLargeLog(declared?: number): string {
+  const size = declared === undefined ? "larger than that" : `${(declared / 1048576).toFixed(0)} MiB`;
+  return `The file is ${size}; a data log may be at most ${LOG_MAX_BYTES / 1048576} MiB.`;
+}
+
 /** The proxy skips this route (its body would be buffered), so the proxy's origin check is made here first. */
 export async function POST(req: Request, ctx: { params: Promise<{ id: string }> }): Promise<Response> {
-  const origin = req.headers.get("origin");
-  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
-  if (!isSameOrigin(origin, host)) {
-    await recordForeignOrigin({ method: "POST", path: new URL(req.url).pathname, origin, host });
-    return Response.json({ error: { code: "foreign-origin", message: "This request came from another site and was refused." } }, { status: 403 });
-  }
-  return upload(req, ctx);
+  return (await refuseForeignUpload(req)) ?? upload(req, ctx);
 }

@@ -1,9 +1,12 @@
 import { z } from "zod";
 import { getDb } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
+import { readLimitedForm } from "@/lib/api/limited-body";
+import { refuseForeignUpload } from "@/lib/auth/foreign-origin";
 import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 import { attachDatasheet } from "@/lib/specs/cell-specifications";
+import { DATASHEET_MAX_BYTES, datasheetTooLargeMessage } from "@/lib/specs/datasheet-limits";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
@@ -17,21 +20,31 @@ export const GET = apiRoute<{ id: string }>("spec.read", withFileRefusalPage(asy
       "content-type": "application/pdf",
       "content-disposition": `attachment; filename="${file.fileName.replace(/[^\w.\- ]/g, "_")}"`,
       "x-content-sha256": file.sha256,
+      "x-content-type-options": "nosniff",
     },
   });
 }));
 
-/** Multipart upload of a datasheet PDF (field "datasheet"). Checked by content; stored with its SHA-256. */
-export const POST = apiRoute<{ id: string }>("spec.manage", async (req, { user, params }) => {
+/**
+ * Multipart upload of a datasheet PDF (field "datasheet"). Counted as it arrives and refused past the
+ * limit; parsed as a PDF before it is stored with its SHA-256. The proxy leaves this route out (it would
+ * cut the body at its own buffer size), so the origin check is made here first.
+ */
+const upload = apiRoute<{ id: string }>("spec.manage", async (req, { user, params }) => {
   const id = z.uuid("Not a specification id.").parse(params.id);
-  let form: FormData;
-  try {
-    form = await req.formData();
-  } catch {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  const tooLarge = () => datasheetTooLargeMessage(declared > DATASHEET_MAX_BYTES ? declared : undefined);
+  if (!(req.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
     throw new DomainError("invalid", "Send the datasheet as a multipart form with the field “datasheet”.");
   }
+  // A form carries its field headers and boundaries around the file.
+  const form = await readLimitedForm(req, DATASHEET_MAX_BYTES + 64 * 1024, tooLarge);
   const file = form.get("datasheet");
   if (!(file instanceof File)) throw new DomainError("invalid", "No file in the field “datasheet”.");
   const stored = await attachDatasheet(user, id, { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) });
   return Response.json(stored, { status: 201 });
 });
+
+export async function POST(req: Request, ctx: { params: Promise<{ id: string }> }): Promise<Response> {
+  return (await refuseForeignUpload(req)) ?? upload(req, ctx);
+}
