@@ -239,7 +239,7 @@ export interface RunEvaluationTable {
   evaluated_at: DefaultedTimestamp;
 }
 
-export type SignatureMeaning = "reviewed" | "approved";
+export type SignatureMeaning = "reviewed" | "approved" | "released";
 
 export interface ElectronicSignatureTable {
   id: Generated<string>;
@@ -247,7 +247,7 @@ export interface ElectronicSignatureTable {
   printed_name: string;
   meaning: SignatureMeaning;
   signed_at: DefaultedTimestamp;
-  entity_type: "run" | "certificate";
+  entity_type: "run" | "certificate" | "procedure-version";
   entity_id: string;
   record_sha256: string;
 }
@@ -286,7 +286,7 @@ export interface CertificateTable {
   revocation_reason: string | null;
 }
 
-export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due";
+export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release";
 
 export interface MailMessageTable {
   id: Generated<string>;

@@ -23,6 +23,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/procedures/[id]/compare": "procedure.read",
   "/procedures/[id]/versions/[n]": "procedure.read",
   "/procedures/[id]/versions/[n]/edit": "procedure.author",
+  "/procedures/[id]/versions/[n]/release": "procedure.release",
   "/specs": "spec.read",
   "/specs/new": "spec.manage",
   "/specs/[id]": "spec.read",

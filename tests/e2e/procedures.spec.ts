@@ -45,8 +45,21 @@ test("an engineer drafts from a template, a second engineer releases it, an oper
   await signInAsUser(second, baseURL!, "engineer2@brackwater.example");
   const secondPage = await second.newPage();
   await secondPage.goto(procedureUrl);
-  await secondPage.getByRole("button", { name: "Release version 1" }).click();
+  await secondPage.getByRole("link", { name: "Release version 1" }).click();
+  // Release is a signature: what is approved (first version, no earlier one to compare), then the password.
+  await expect(secondPage.getByRole("heading", { name: "First version" })).toBeVisible();
+  await expect(secondPage.getByTestId("release-meaning")).toHaveText(/approved for use/);
+  const password = secondPage.getByLabel("Your password, to sign");
+  await password.fill("not-the-password");
+  await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(secondPage.getByRole("alert").filter({ hasText: "That password is not right" })).toBeVisible();
+  await expect(password, "a refused password is cleared").toHaveValue("");
+  await password.fill("demo-engineer-pass");
+  await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(secondPage.getByRole("status").filter({ hasText: "Released with your signature" })).toBeVisible();
+  await secondPage.goto(procedureUrl);
   await expect(secondPage.getByTestId("version-1")).toContainText("Released by Tomas Lindqvist");
+  await expect(secondPage.getByTestId("version-1").getByTestId("signature-manifestation")).toContainText("approved for use");
 
   const operator = await browser.newContext();
   await signInAs(operator, baseURL!, "operator");
