@@ -26,7 +26,8 @@ export function describeCautionCode(code: string, steps: readonly Pick<Step, 'id
   const [kind = '', stepId = '', ...fieldParts] = code.split('/');
   const field = fieldParts.join('/');
   const index = steps.findIndex((step) => step.id === stepId);
-  const step = index < 0 ? 'A step no longer in this version' : `Step ${index + 1} “${steps[index]!.label}”`;
+  const step =
+    index >= 0 ? `Step ${index + 1} “${steps[index]!.label}”` : steps.length > 0 ? `A step no longer in this version (${stepId})` : `The step “${stepId}”`;
   const fieldWords = FIELD_WORDS[field] ?? field.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/\./g, ' ').toLowerCase();
   const what = KIND_WORDS[kind] ?? 'outside the cell’s rating';
   return `${step}, ${fieldWords || 'set-point'}: ${what}`;

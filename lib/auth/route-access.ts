@@ -45,6 +45,7 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/me": { GET: "signed-in" },
   "/api/health": { GET: "public" },
   "/api/procedures": { GET: "procedure.read", POST: "procedure.author" },
+  "/api/audit/trail.csv": { GET: "audit.read" },
   "/api/procedures/preview": { POST: "procedure.author" },
   "/api/procedures/[id]/versions/[n]": { GET: "procedure.read" },
   "/api/procedures/[id]/versions/[n]/resolve": { POST: "procedure.read" },

@@ -53,7 +53,7 @@ test("an operator uploads a cycler log, sees it evaluated and plotted; a bad log
   await page.getByRole("button", { name: /^Upload channel-01\.csv/ }).click();
   await expect(page.getByTestId("upload-progress")).toContainText("Sent");
   const stored = page.getByRole("status").filter({ hasText: "Log stored" });
-  await expect(stored).toContainText("procedure followed yes; specimen conforms", { timeout: 30_000 });
+  await expect(stored).toContainText("Evaluated: The procedure was followed; the specimen conforms.", { timeout: 30_000 });
 
   await page.getByRole("link", { name: "Findings and results" }).click();
   await expect(page.getByTestId("verdict")).toContainText("Procedure followedyes");

@@ -14,9 +14,15 @@ describe("describeCautionCode", () => {
     expect(words).not.toMatch(/discharge-current|\/|above-rating/);
   });
 
+  it("names the step by its id where no step list is at hand (the audit trail)", () => {
+    expect(describeCautionCode("discharge-current-above-rating/discharge-max/current", [])).toBe(
+      "The step “discharge-max”, current: set above the cell's maximum continuous discharge current",
+    );
+  });
+
   it("says so when the step is gone, and words nested fields", () => {
     expect(describeCautionCode("charge-current-above-rating/old/termination.current", steps)).toBe(
-      "A step no longer in this version, termination current: set above the cell's charge-current rating",
+      "A step no longer in this version (old), termination current: set above the cell's charge-current rating",
     );
     expect(describeCautionCode("charge-below-zero-celsius/charge/ambient", steps)).toMatch(/^Step 1 “Standard charge”, ambient temperature: charging allowed below 0 °C$/);
   });

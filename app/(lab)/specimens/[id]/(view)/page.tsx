@@ -2,8 +2,10 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { SpecimenRuns } from "@/components/specimens/specimen-runs";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
+import { listRunsInStates } from "@/db/queues";
 import { getSpecimen } from "@/db/specimens";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
@@ -16,6 +18,7 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
   const specimen = id.success ? await getSpecimen(getDb(), id.data) : null;
   if (!specimen) notFound();
   const { specification: spec, lot } = specimen;
+  const runs = await listRunsInStates(getDb(), { specimenId: specimen.id });
   return (
     <>
       <PageHeader
@@ -65,6 +68,7 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
           Rate capability: its reviewed discharges at each current
         </Link>
       </p>
+      <SpecimenRuns runs={runs} />
     </>
   );
 }
