@@ -3,12 +3,13 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { VersionComparison } from "@/components/procedures/version-comparison";
 import { StatusBadge } from "@/components/procedures/status-badge";
+import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getProcedureVersion, listProcedureVersions } from "@/db/procedures";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { versionParamsSchema } from "@/lib/procedures/version-params";
-import { SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
+import { listReleaseSignatures, SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 import { describeCautionCode } from "@/protocols";
 import { releaseAction } from "../../../actions";
 import { ReleaseVersionForm } from "./release-version-form";
@@ -30,6 +31,7 @@ export default async function ReleaseVersionPage({ params }: { params: Promise<{
   if (!v) notFound();
   const previous = (await listProcedureVersions(getDb(), v.procedureId)).filter((o) => o.number < v.number).sort((a, b) => b.number - a.number)[0];
   const wroteIt = v.author.id === user.id || v.submittedBy?.id === user.id;
+  const signature = (await listReleaseSignatures(getDb(), [v.id])).get(v.id);
   return (
     <>
       <PageHeader
@@ -78,10 +80,18 @@ export default async function ReleaseVersionPage({ params }: { params: Promise<{
           Sign the release
         </h2>
         {v.status !== "in_review" ? (
-          <p className="text-sm" role="note">
-            Version {v.number} is not in review, so there is nothing to release.
-            {v.releasedBy && ` It was released by ${v.releasedBy.name} on ${fmt(v.releasedBy.at)} UTC.`}
-          </p>
+          <div className="flex flex-col gap-2 text-sm" role="status">
+            {signature ? (
+              <p>
+                <SignatureManifestation signature={signature} />
+              </p>
+            ) : (
+              <p>Version {v.number} is not in review, so there is nothing to release.</p>
+            )}
+            <Link href={`/procedures/${v.procedureId}`} className="text-copper-deep underline">
+              All versions of {v.code}
+            </Link>
+          </div>
         ) : wroteIt ? (
           <p className="text-sm" role="note">
             A second engineer must release this version: you wrote or submitted it.
