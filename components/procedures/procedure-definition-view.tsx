@@ -73,7 +73,7 @@ export function ProcedureDefinitionView({
         ) : (
           <ul className="list-disc pl-5 text-sm">
             {acceptance.map((c) => (
-              <li key={c.id}>{describeCriterion(c)}</li>
+              <li key={c.id}>{describeCriterion(c, definition.steps)}</li>
             ))}
           </ul>
         )}

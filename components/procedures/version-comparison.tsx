@@ -59,8 +59,8 @@ export function VersionComparison({ before, after }: { before: { number: number;
                   <br />
                   <strong>{CHANGE_WORDS[c.change]}</strong>
                 </td>
-                <td className="p-2 align-top">{c.before ? describeCriterion(c.before) : "—"}</td>
-                <td className="p-2 align-top">{c.after ? describeCriterion(c.after) : "—"}</td>
+                <td className="p-2 align-top">{c.before ? describeCriterion(c.before, before.definition.steps) : "—"}</td>
+                <td className="p-2 align-top">{c.after ? describeCriterion(c.after, after.definition.steps) : "—"}</td>
               </tr>
             ))}
           </tbody>

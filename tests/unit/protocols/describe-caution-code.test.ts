@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { describeCautionCode } from "@/protocols";
+import { describeCautionCode, describeCriterion } from "@/protocols";
 
 const steps = [
   { id: "charge", label: "Standard charge" },
@@ -25,5 +25,12 @@ describe("describeCautionCode", () => {
       "A step no longer in this version (old), termination current: set above the cell's charge-current rating",
     );
     expect(describeCautionCode("charge-below-zero-celsius/charge/ambient", steps)).toMatch(/^Step 1 “Standard charge”, ambient temperature: charging allowed below 0 °C$/);
+  });
+});
+
+describe("describeCriterion with the step list", () => {
+  it("names the step by number and title", () => {
+    const words = describeCriterion({ kind: "capacity", id: "rated", stepId: "discharge", atLeastPercent: 100, of: "rated" }, steps);
+    expect(words).toBe("Capacity of step 3 “Capacity discharge at 3 It” ≥ 100 % of the rated capacity");
   });
 });
