@@ -34,8 +34,8 @@ async function procedureWaitingForRelease(code: string): Promise<void> {
     v2.steps.find((s) => s.id === "discharge")!.current = { multipleOfIt: 3 };
     const proc = (await c.query<{ id: string }>("insert into procedure (code, created_by) values ($1, $2) returning id", [code, author])).rows[0]!.id;
     await c.query(
-      `insert into procedure_version (procedure_id, number, status, title, definition, author_id, submitted_by, submitted_at, released_by, released_at)
-       values ($1, 1, 'released', $2, $3, $4, $4, now() - interval '2 days', $5, now() - interval '2 days')`,
+      `insert into procedure_version (procedure_id, number, status, title, definition, author_id, submitted_by, submitted_at, released_by, released_at, updated_at)
+       values ($1, 1, 'released', $2, $3, $4, $4, now() - interval '2 days', $5, now() - interval '2 days', now() - interval '3 days')`,
       [proc, src.title, JSON.stringify(v1), author, releaser],
     );
     await c.query(

@@ -4,6 +4,8 @@ import { signInAs, signInAsUser } from "./fixtures";
 // One journey across three people: an engineer writes from the rated-capacity template and previews it
 // against a demo cell, a second engineer releases it, and an operator reads it without any controls.
 test("an engineer drafts from a template, a second engineer releases it, an operator reads it", async ({ browser, baseURL }) => {
+  // Three people in turn and two password checks at signing (argon2 each): more than the default 30 s on a loaded machine.
+  test.setTimeout(90_000);
   const code = `BW-RC20-${Date.now() % 100000}`;
 
   const author = await browser.newContext();
