@@ -90,7 +90,7 @@ function checkRatedCurrent(context: StepContext, current: RatedCurrent): Finding
     },
     outcome: acknowledged ? "meets" : "deviates",
     beyondRating: true,
-    note: acknowledged ? "Outside the cell's rating with its caution acknowledged; the result is marked so." : "Acknowledge its caution before running outside the rating.",
+    note: acknowledged ? "Outside the cell's rating with acknowledgement of its caution; the result is marked so." : "Acknowledge its caution before running outside the rating.",
   });
 }
 
