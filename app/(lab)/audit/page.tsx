@@ -128,7 +128,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
                   {describeAuditAction(e.action)}
                   {e.entityType && <span className="block text-xs text-ink-soft">{describeAuditRecord(e.entityType, e.entityLabel)}</span>}
                 </td>
-                <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:break-word]">
+                <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:anywhere]">
                   <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
                 </td>
               </tr>
