@@ -60,7 +60,12 @@ test("procedure → run → review → signed certificate → public check, with
   await signInAsUser(releaserContext, baseURL!, "engineer2@brackwater.example");
   const reviewer = await releaserContext.newPage();
   await reviewer.goto(procedureUrl);
-  await reviewer.getByRole("button", { name: "Release version 1" }).click();
+  // Releasing is a signature: the release page, then the password again.
+  await reviewer.getByRole("link", { name: "Release version 1" }).click();
+  await reviewer.getByLabel("Your password, to sign").fill("demo-engineer-pass");
+  await reviewer.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(reviewer.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
+  await reviewer.goto(procedureUrl);
   await expect(reviewer.getByTestId("version-1")).toContainText("Released by");
 
   // A loose specimen of the invented 4 850 mAh cell for this run alone.
