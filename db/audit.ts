@@ -55,8 +55,22 @@ export interface AuditEventView {
 
 export async function listAuditEvents(
   db: Executor,
-  filter: { action?: string; entityType?: string; entityId?: string; limit?: number; beforeId?: string },
+  filter: {
+    action?: string;
+    entityType?: string;
+    entityId?: string;
+    limit?: number;
+    beforeId?: string;
+    /** Who acted (app_user id). */
+    actorId?: string;
+    /** Part of the record's readable name ("R-00012", "TPL-RC20"), any case. */
+    recordName?: string;
+    /** From this instant (inclusive) to that one (exclusive). */
+    from?: Date;
+    to?: Date;
+  },
 ): Promise<AuditEventView[]> {
+  const entityLabel = sql<string | null>`coalesce(subject.display_name, spec.maker || ' ' || spec.model, proc.code || ' version ' || pv.number, run.number, ins.identifier, lot.identifier, sp.identifier, cert.number)`;
   let q = db
     .selectFrom("audit_event")
     .leftJoin("app_user as subject", (j) =>
@@ -73,6 +87,7 @@ export async function listAuditEvents(
     .leftJoin("instrument as ins", (j) => j.on(sql`ins.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "instrument"))
     .leftJoin("lot as lot", (j) => j.on(sql`lot.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "lot"))
     .leftJoin("specimen as sp", (j) => j.on(sql`sp.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "specimen"))
+    .leftJoin("certificate as cert", (j) => j.on(sql`cert.id::text`, "=", sql.ref("audit_event.entity_id")).on("audit_event.entity_type", "=", "certificate"))
     .select([
       "audit_event.id",
       "audit_event.at",
@@ -84,7 +99,7 @@ export async function listAuditEvents(
       "audit_event.after",
       "audit_event.detail",
       "audit_event.address",
-      sql<string | null>`coalesce(subject.display_name, spec.maker || ' ' || spec.model, proc.code || ' version ' || pv.number, run.number, ins.identifier, lot.identifier, sp.identifier)`.as("entity_label"),
+      entityLabel.as("entity_label"),
     ])
     .orderBy("audit_event.id", "desc")
     .limit(filter.limit ?? 100);
@@ -92,6 +107,10 @@ export async function listAuditEvents(
   if (filter.entityType) q = q.where("audit_event.entity_type", "=", filter.entityType);
   if (filter.entityId) q = q.where("audit_event.entity_id", "=", filter.entityId);
   if (filter.beforeId) q = q.where("audit_event.id", "<", filter.beforeId);
+  if (filter.actorId) q = q.where("audit_event.actor_id", "=", filter.actorId);
+  if (filter.recordName) q = q.where(sql<boolean>`${entityLabel} ilike ${`%${filter.recordName.replace(/[\\%_]/g, (c) => `\\${c}`)}%`}`);
+  if (filter.from) q = q.where("audit_event.at", ">=", filter.from);
+  if (filter.to) q = q.where("audit_event.at", "<", filter.to);
   const rows = await q.execute();
   return rows.map((r) => ({
     id: String(r.id),
@@ -106,4 +125,16 @@ export async function listAuditEvents(
     detail: r.detail,
     address: r.address,
   }));
+}
+
+/** Everyone who appears in the trail as having acted, by name: the "person" filter's choices. */
+export async function listAuditActors(db: Executor): Promise<{ id: string; label: string }[]> {
+  const rows = await db
+    .selectFrom("audit_event")
+    .innerJoin("app_user as u", "u.id", "audit_event.actor_id")
+    .select(["u.id", "u.display_name", "u.email"])
+    .distinct()
+    .orderBy("u.display_name")
+    .execute();
+  return rows.map((r) => ({ id: r.id, label: `${r.display_name} <${r.email}>` }));
 }

@@ -234,7 +234,8 @@ export async function setProcedureVersionStatus(
         : change.status === "released"
           ? { status: change.status, released_by: change.by, released_at: now }
           : { status: change.status, withdrawn_by: change.by, withdrawn_at: now, withdrawal_reason: change.reason };
-  await db.updateTable("procedure_version").set({ ...set, updated_at: now }).where("id", "=", id).execute();
+  // updated_at is the author's "last saved": a change of status leaves it as it was.
+  await db.updateTable("procedure_version").set(set).where("id", "=", id).execute();
 }
 
 export async function nextVersionNumber(db: Executor, procedureId: string): Promise<number> {

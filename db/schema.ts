@@ -249,7 +249,7 @@ export interface RunEvaluationTable {
   evaluated_at: DefaultedTimestamp;
 }
 
-export type SignatureMeaning = "reviewed" | "approved";
+export type SignatureMeaning = "reviewed" | "approved" | "released";
 
 export interface ElectronicSignatureTable {
   id: Generated<string>;
@@ -257,7 +257,7 @@ export interface ElectronicSignatureTable {
   printed_name: string;
   meaning: SignatureMeaning;
   signed_at: DefaultedTimestamp;
-  entity_type: "run" | "certificate";
+  entity_type: "run" | "certificate" | "procedure-version";
   entity_id: string;
   record_sha256: string;
 }
@@ -296,7 +296,7 @@ export interface CertificateTable {
   revocation_reason: string | null;
 }
 
-export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due";
+export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release";
 
 export interface MailMessageTable {
   id: Generated<string>;

@@ -1,3 +1,5 @@
+import { describeCautionCode } from "@/protocols";
+
 /** Audit actions in plain words for the trail's readers. Unknown actions show their code. */
 export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "auth.sign-in": "signed in",
@@ -50,38 +52,103 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "storage.repair": "a stored file was repaired to the bytes recorded at upload",
 };
 
+/** An action in words; one not in the list is still said in words ("run: something new"), never as its code. */
 export function describeAuditAction(action: string): string {
-  return AUDIT_ACTION_LABELS[action] ?? action;
+  const known = AUDIT_ACTION_LABELS[action];
+  if (known) return known;
+  const [area = "", ...rest] = action.split(".");
+  return `${wordsOf(area)}: ${wordsOf(rest.join(" "))}`;
 }
 
+/** The kinds of record the trail names, in words. */
+export const AUDIT_RECORD_TYPES: Record<string, string> = {
+  user: "user",
+  "cell-specification": "cell specification",
+  "procedure-version": "procedure",
+  run: "run",
+  instrument: "instrument",
+  lot: "lot",
+  specimen: "specimen",
+  certificate: "certificate",
+  "mail-message": "e-mail",
+};
+
+/** "procedure TPL-RC20 version 2", "run R-00012"; a record whose name is unknown is named by its kind only. */
+export function describeAuditRecord(entityType: string | null, entityLabel: string | null): string {
+  if (!entityType) return "—";
+  const kind = AUDIT_RECORD_TYPES[entityType] ?? wordsOf(entityType);
+  return entityLabel ? `${kind} ${entityLabel}` : `a ${kind} (name not known)`;
+}
+
+/** Field names of the trail's before/after/detail in words; others are split from camelCase. */
+const FIELD_WORDS: Record<string, string> = {
+  endedSessions: "sessions ended",
+  steps: "number of steps",
+  stepId: "step",
+  from: "from version",
+  sha256: "SHA-256",
+  displayName: "name",
+  valueC: "°C",
+  recordSha256: "SHA-256 of the signed record",
+  acknowledgedCautionCodes: "cautions acknowledged",
+  at: "at",
+};
+
 /**
- * What changed, as short lines a reader can scan: "active: yes → no". A creation lists the new
- * values; details (reasons, counts) follow.
+ * What changed, as short lines a reader can scan, each "field: was → now" ("active: yes → no"). A
+ * creation lists the new values; details (reasons, counts) follow. Values are words: never JSON or ids.
  */
 export function summariseAuditChange(before: unknown, after: unknown, detail: unknown): string[] {
   const lines: string[] = [];
   const b = isRecord(before) ? before : null;
   const a = isRecord(after) ? after : null;
   if (a && !b) {
-    for (const [k, v] of Object.entries(a)) lines.push(`${k}: ${show(v)}`);
+    for (const [k, v] of Object.entries(a)) lines.push(`${fieldWords(k)}: ${show(v)}`);
   } else if (a && b) {
     for (const k of new Set([...Object.keys(b), ...Object.keys(a)])) {
-      if (JSON.stringify(b[k]) !== JSON.stringify(a[k])) lines.push(`${k}: ${show(b[k])} → ${show(a[k])}`);
+      if (JSON.stringify(b[k]) !== JSON.stringify(a[k])) lines.push(`${fieldWords(k)}: ${show(b[k])} → ${show(a[k])}`);
     }
   }
   if (isRecord(detail)) {
-    for (const [k, v] of Object.entries(detail)) lines.push(`${k}: ${show(v)}`);
+    for (const [k, v] of Object.entries(detail)) lines.push(`${fieldWords(k)}: ${show(v)}`);
   }
-  return lines;
+  return lines.filter((line) => !line.endsWith(": "));
 }
 
 function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === "object" && v !== null && !Array.isArray(v);
 }
 
+const CAUTION_CODE = /^[a-z]+(?:-[a-z]+)+\/[^/\s]+\/[\w.]+$/;
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+function wordsOf(code: string): string {
+  return code
+    .replace(/([a-z])([A-Z])/g, "$1 $2")
+    .replace(/[_.-]+/g, " ")
+    .toLowerCase()
+    .trim();
+}
+
+function fieldWords(key: string): string {
+  return FIELD_WORDS[key] ?? wordsOf(key);
+}
+
 function show(v: unknown): string {
   if (v === true) return "yes";
   if (v === false) return "no";
   if (v === null || v === undefined) return "—";
-  return typeof v === "string" ? v : JSON.stringify(v);
+  if (typeof v === "number") return String(v);
+  if (typeof v === "string") {
+    if (UUID.test(v)) return "(a record)";
+    if (CAUTION_CODE.test(v)) return describeCautionCode(v, []);
+    // Stored state names (in_review, in_progress) read as words.
+    return /^[a-z]+(_[a-z]+)+$/.test(v) ? v.replace(/_/g, " ") : v;
+  }
+  if (Array.isArray(v)) return v.length === 0 ? "none" : v.map(show).join(", ");
+  if (isRecord(v)) {
+    const parts = Object.entries(v).map(([k, x]) => `${fieldWords(k)} ${show(x)}`);
+    return parts.length === 0 ? "—" : parts.join("; ");
+  }
+  return String(v);
 }

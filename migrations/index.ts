@@ -9,10 +9,11 @@ import * as m0007 from "./0007_app_role_grants";
 import * as m0008 from "./0008_certified_chain_frozen";
 import * as m0009 from "./0009_guards_resolve_public_tables";
 import * as m0010 from "./0010_audit_chain";
-import * as m0017 from "./0017_run_abandon";
 import * as m0012 from "./0012_run_participants";
 import * as m0013 from "./0013_refused_request_tally";
 import * as m0014 from "./0014_session_details";
+import * as m0017 from "./0017_run_abandon";
+import * as m0019 from "./0019_release_signature";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -29,8 +30,9 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0008_certified_chain_frozen": m0008,
   "0009_guards_resolve_public_tables": m0009,
   "0010_audit_chain": m0010,
-  "0017_run_abandon": m0017,
   "0012_run_participants": m0012,
   "0013_refused_request_tally": m0013,
   "0014_session_details": m0014,
+  "0017_run_abandon": m0017,
+  "0019_release_signature": m0019,
 };

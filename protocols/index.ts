@@ -6,6 +6,7 @@ export * from './cell-specification';
 export * from './compare-procedures';
 export * from './compare-references';
 export * from './decision-rule';
+export * from './describe-caution-code';
 export * from './describe-criterion';
 export * from './describe-step';
 export * from './designation';

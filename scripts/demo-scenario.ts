@@ -166,6 +166,16 @@ export const DEMO_INSTRUMENTS: {
     calibrationCertificate: "MCL-26-1021",
     dueInDays: 95,
   },
+  // The run form asks for the thermometer (or chamber) the ambient is read on: a bench probe beside the cycler.
+  {
+    kind: "thermometer",
+    identifier: "TH-01",
+    serial: "PT-100-31877",
+    firmware: null,
+    accuracy: { temperature: { halfWidth: 0.2 } },
+    calibrationCertificate: "MCL-26-1203",
+    dueInDays: 160,
+  },
 ];
 
 /** Instruments are calibrated once a year in the demo lab. */

@@ -35,6 +35,7 @@ function ChangeForm({ number, action, kind }: { number: string; action: Action; 
         id={`${kind}-password`}
         type="password"
         autoComplete="current-password"
+        data-clear-when-refused
         errors={state.fieldErrors?.password}
         hint={amend ? "Signing means: approved — you authorise the replacement for issue." : "Signing means: you withdraw the certificate from use; it stays on record as revoked."}
       />

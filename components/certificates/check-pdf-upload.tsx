@@ -1,6 +1,6 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { useEffect, useRef, useState, type FormEvent, type ReactNode } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 
@@ -12,9 +12,47 @@ interface CheckAnswer {
 
 type State = { kind: "idle" } | { kind: "checking" } | { kind: "error"; message: string } | { kind: "done"; fileName: string; check: CheckAnswer };
 
-/** Sends a PDF to the public check and says in words what the server found. */
-export function CheckPdfUpload({ number }: { number: string }) {
+/**
+ * The public check of one certificate: its status banner at the top, then its details, then the upload.
+ * Once a PDF is checked, the verdict for that file takes the banner's place at the top, so the page
+ * never says "valid" above "not the certificate as issued".
+ */
+export function CertificateCheck({
+  number,
+  status,
+  banner,
+  details,
+  uploadIntro,
+}: {
+  number: string;
+  status: "valid" | "superseded" | "revoked";
+  banner: ReactNode;
+  details: ReactNode;
+  uploadIntro: ReactNode;
+}) {
   const [state, setState] = useState<State>({ kind: "idle" });
+  const verdict = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (state.kind === "done") {
+      verdict.current?.scrollIntoView({ block: "start" });
+      verdict.current?.focus();
+    }
+  }, [state]);
+  return (
+    <>
+      <div ref={verdict} tabIndex={-1} className="focus:outline-none" data-testid="check-top">
+        {state.kind === "done" ? <CheckResult fileName={state.fileName} check={state.check} number={number} status={status} /> : banner}
+      </div>
+      {details}
+      <section aria-labelledby="upload-heading" className="rounded border border-rule bg-white p-4">
+        {uploadIntro}
+        <CheckPdfUpload number={number} state={state} setState={setState} />
+      </section>
+    </>
+  );
+}
+
+function CheckPdfUpload({ number, state, setState }: { number: string; state: State; setState: (s: State) => void }) {
   const onSubmit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const input = event.currentTarget.elements.namedItem("pdf") as HTMLInputElement;
@@ -52,14 +90,23 @@ export function CheckPdfUpload({ number }: { number: string }) {
             {state.message}
           </Notice>
         )}
-        {state.kind === "done" && <CheckResult fileName={state.fileName} check={state.check} />}
+        {state.kind === "done" && (
+          <p className="text-sm" role="status">
+            Checked {state.fileName}: the verdict is at the top of the page.
+          </p>
+        )}
       </div>
     </form>
   );
 }
 
-function CheckResult({ fileName, check }: { fileName: string; check: CheckAnswer }) {
+function CheckResult({ fileName, check, number, status }: { fileName: string; check: CheckAnswer; number: string; status: "valid" | "superseded" | "revoked" }) {
   const genuine = check.byteIdentical && check.signature.valid && check.signature.signedByLab;
+  const title = !genuine
+    ? `Not the certificate as issued: do not rely on ${fileName}`
+    : status === "valid"
+      ? `Genuine and valid: ${fileName} is certificate ${number} as issued`
+      : `${fileName} is certificate ${number} as issued, but the certificate is ${status}: do not rely on it`;
   const sig = check.signature;
   const signatureWords = !sig.present
     ? "has no embedded digital signature."
@@ -69,12 +116,13 @@ function CheckResult({ fileName, check }: { fileName: string; check: CheckAnswer
         ? `verifies, but it was made with a key that is not this laboratory's (${sig.signer ?? "unknown signer"}).`
         : `does not verify: ${sig.reason}`;
   return (
-    <Notice tone={genuine ? "done" : "problem"} title={genuine ? "Genuine: this is the certificate as issued" : "Not the certificate as issued"} role="status">
+    <Notice tone={genuine && status === "valid" ? "done" : "problem"} title={title} role="status">
       <ul className="list-disc pl-5" data-testid="check-result">
         <li>
           {fileName} is {check.byteIdentical ? "byte-identical to" : "not identical to"} the issued PDF.
         </li>
         <li>Its digital signature {signatureWords}</li>
+        {status !== "valid" && <li>Certificate {number} itself is {status}: see its details below.</li>}
       </ul>
     </Notice>
   );

@@ -1,12 +1,14 @@
 "use client";
 
 import { Button } from "@/components/ui/button";
+import { describeCautionCode } from "@/protocols";
 import { toggleAcknowledgement } from "./draft-values";
 import { useDraftValue, useUpdateDraft } from "./use-draft-field";
 
 /** The caution codes acknowledged on this draft; each can be withdrawn. */
 export function AcknowledgementsList() {
   const codes = useDraftValue<string[] | undefined>("acknowledgedCautions") ?? [];
+  const steps = (useDraftValue<{ id?: string; label?: string }[] | undefined>("definition.steps") ?? []).map((s) => ({ id: s?.id ?? "", label: s?.label ?? "" }));
   const update = useUpdateDraft();
   return (
     <div className="flex flex-col gap-1 text-sm" aria-labelledby="acknowledged-heading" role="group">
@@ -23,8 +25,8 @@ export function AcknowledgementsList() {
           {codes.map((code) => (
             <li key={code} className="flex flex-wrap items-center gap-2">
               <span aria-hidden="true">⚠</span>
-              <code className="text-xs">{code}</code>
-              <Button type="button" variant="quiet" aria-label={`Withdraw the acknowledgement of ${code}`} onClick={() => update("acknowledgedCautions", toggleAcknowledgement(codes, code, false))}>
+              <span>{describeCautionCode(code, steps)}</span>
+              <Button type="button" variant="quiet" aria-label={`Withdraw the acknowledgement: ${describeCautionCode(code, steps)}`} onClick={() => update("acknowledgedCautions", toggleAcknowledgement(codes, code, false))}>
                 Withdraw
               </Button>
             </li>

@@ -53,7 +53,7 @@ export function ErrorSummary({ answer, ref }: { answer: ActionState | null; ref:
                 >
                   {describeFieldPath(problem.path, labels)}
                 </a>
-                : {problem.message} <code className="text-xs text-ink-soft">{problem.path}</code>
+                : {problem.message}
               </li>
             ))}
           </ul>

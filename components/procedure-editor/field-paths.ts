@@ -121,6 +121,11 @@ function describePart(part: string): string {
   return FIELD_WORDS[part] ?? part.replace(/([a-z])([A-Z])/g, "$1 $2").toLowerCase();
 }
 
+/** Words for a path inside one step, criterion or the header: "current.multipleOfIt" → "current › multiple of It". */
+export function describeInnerPath(path: string): string {
+  return path.split(".").map(describePart).join(" › ");
+}
+
 const capitalize = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /**

@@ -1,7 +1,7 @@
 import { describeFieldPath } from "@/components/procedure-editor/field-paths";
 import type { FieldProblem } from "@/protocols";
 
-/** Problems of the step list or of the cell specification, each with its field path. */
+/** Problems of the step list or of the cell specification, each with its field in words. */
 export function ProblemList({
   title,
   problems,
@@ -25,9 +25,9 @@ export function ProblemList({
       <ul className="mt-1 flex flex-col gap-1">
         {problems.map((problem) => (
           <li key={`${problem.path}:${problem.message}`}>
-            <span className="font-medium">{pathPrefix ? describeFieldPath(problem.path ? `${pathPrefix}.${problem.path}` : pathPrefix) : problem.path || "the whole record"}</span>
+            <span className="font-medium">{pathPrefix ? describeFieldPath(problem.path ? `${pathPrefix}.${problem.path}` : pathPrefix) : describeFieldPath(problem.path || "form")}</span>
             {": "}
-            {problem.message} <code className="text-xs text-ink-soft">{problem.path || "(top level)"}</code>
+            {problem.message}
           </li>
         ))}
       </ul>

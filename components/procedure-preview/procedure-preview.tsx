@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import { readDecisionRule, type ProcedureResolution } from "@/protocols";
+import { describeCautionCode, readDecisionRule, type ProcedureResolution } from "@/protocols";
 import { ProblemList } from "./problem-list";
 import { ResolutionCautions, ResolutionErrors } from "./resolution-issues";
 import { ResolvedAcceptance } from "./resolved-acceptance";
@@ -108,7 +108,8 @@ function ResolvedView({
       {resolution.unmatchedAcknowledgements.length > 0 && (
         <p className="text-xs text-ink-soft">
           {resolution.unmatchedAcknowledgements.length === 1 ? "One acknowledgement" : `${resolution.unmatchedAcknowledgements.length} acknowledgements`}{" "}
-          on record match no caution for this cell: {resolution.unmatchedAcknowledgements.join(", ")}.
+          on record match no caution for this cell:{" "}
+          {resolution.unmatchedAcknowledgements.map((code) => describeCautionCode(code, resolution.steps)).join("; ")}.
         </p>
       )}
     </div>

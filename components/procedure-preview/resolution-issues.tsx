@@ -12,7 +12,7 @@ export function ResolutionErrors({ errors }: { errors: readonly ResolutionError[
       <ul className="mt-1 flex flex-col gap-1">
         {errors.map((error) => (
           <li key={error.code}>
-            Cannot run on this cell: {error.message} <code className="text-xs text-ink-soft">{error.path}</code>
+            Cannot run on this cell: {error.message}
           </li>
         ))}
       </ul>
@@ -47,8 +47,7 @@ export function ResolutionCautions({
           return (
             <li key={caution.code} className="flex flex-col gap-1">
               <p id={messageId}>
-                <span className="font-medium">Caution:</span> {caution.message}{" "}
-                <code className="text-xs text-ink-soft">{caution.path}</code>
+                <span className="font-medium">Caution:</span> {caution.message}
               </p>
               {onAcknowledgeChange ? (
                 <label className="inline-flex items-center gap-2 font-medium">

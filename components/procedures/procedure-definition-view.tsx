@@ -1,6 +1,6 @@
 import { RichTextView } from "@/components/rich-text/rich-text-view";
 import type { RichTextDoc } from "@/lib/rich-text";
-import { describeCriterion, describeStep, explainDecisionRule, formatQuantity, nameDecisionRule, readDecisionRule, type Procedure } from "@/protocols";
+import { describeCautionCode, describeCriterion, describeStep, explainDecisionRule, formatQuantity, nameDecisionRule, readDecisionRule, type Procedure } from "@/protocols";
 
 /** A procedure version read like a paper method sheet: header, steps in order, criteria, cautions. */
 export function ProcedureDefinitionView({
@@ -73,7 +73,7 @@ export function ProcedureDefinitionView({
         ) : (
           <ul className="list-disc pl-5 text-sm">
             {acceptance.map((c) => (
-              <li key={c.id}>{describeCriterion(c)}</li>
+              <li key={c.id}>{describeCriterion(c, definition.steps)}</li>
             ))}
           </ul>
         )}
@@ -101,9 +101,14 @@ export function ProcedureDefinitionView({
         </h2>
         <RichTextView doc={cautions} empty="No cautions written: the lab's general safety rules apply." />
         {acknowledgedCautions.length > 0 && (
-          <p className="mt-2 text-sm">
-            Acknowledged on this version (beyond the cell rating on purpose): {acknowledgedCautions.join("; ")}
-          </p>
+          <div className="mt-2 text-sm">
+            <p>Acknowledged on this version (beyond the cell rating on purpose):</p>
+            <ul className="list-inside list-disc" data-testid="acknowledged-cautions">
+              {acknowledgedCautions.map((code) => (
+                <li key={code}>{describeCautionCode(code, definition.steps)}</li>
+              ))}
+            </ul>
+          </div>
         )}
         <p className="mt-2 text-xs text-ink-soft">The lab&apos;s own safety rules, local codes and the text of the standard prevail over this sheet.</p>
       </section>

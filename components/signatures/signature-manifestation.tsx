@@ -2,7 +2,7 @@ import type { SignatureMeaning } from "@/db/schema";
 import { formatDateTime } from "@/lib/format-date-time";
 import { SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 
-const SIGNED_AS: Record<SignatureMeaning, string> = { reviewed: "Reviewed", approved: "Approved" };
+const SIGNED_AS: Record<SignatureMeaning, string> = { reviewed: "Reviewed", approved: "Approved", released: "Released" };
 
 /**
  * A signature as every human-readable form of a signed record shows it (21 CFR 11.50): the signer's

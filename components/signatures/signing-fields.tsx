@@ -39,6 +39,7 @@ export function SigningFields({
         type="password"
         required
         autoComplete="current-password"
+        data-clear-when-refused
         aria-invalid={passwordErrors ? true : undefined}
         aria-describedby={`${id}-error`}
         className="max-w-xs rounded border border-rule bg-white px-2 py-1.5 aria-[invalid=true]:border-deviates"

@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionState, useTransition, type FormEvent } from "react";
+import { useActionState, useEffect, useRef, useTransition, type FormEvent } from "react";
 import { initialActionState, type ActionState } from "@/lib/forms/action-state";
 
 /**
@@ -10,8 +10,17 @@ import { initialActionState, type ActionState } from "@/lib/forms/action-state";
 export function useFormAction(action: (prev: ActionState, form: FormData) => Promise<ActionState>) {
   const [state, dispatch, actionPending] = useActionState(action, initialActionState);
   const [transitionPending, startTransition] = useTransition();
+  const form = useRef<HTMLFormElement | null>(null);
+  // A refused signature never leaves the password it was refused with in the field.
+  useEffect(() => {
+    if (state === initialActionState || state.ok) return;
+    form.current?.querySelectorAll<HTMLInputElement>("input[data-clear-when-refused]").forEach((input) => {
+      input.value = "";
+    });
+  }, [state]);
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
+    form.current = event.currentTarget;
     const data = new FormData(event.currentTarget);
     startTransition(() => dispatch(data));
   };

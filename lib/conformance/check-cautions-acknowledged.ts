@@ -21,7 +21,7 @@ export function checkCautionsAcknowledged(context: StepContext, cautions: readon
         field: caution.kind,
         title: "Safety caution acknowledged",
         severity: "caution",
-        expected: { text: `caution ${caution.code} acknowledged before the step: ${caution.message}` },
+        expected: { text: `the caution acknowledged before the step: ${caution.message}` },
         observed: { text: acknowledged ? "acknowledged" : "not acknowledged" },
         outcome: acknowledged ? "meets" : "deviates",
         clause: `safety caution of the resolved procedure; ${commonPractice}`,

@@ -65,7 +65,7 @@ function checkRatedCurrent(context: StepContext, current: RatedCurrent): Finding
       limit === null
         ? { text: "the cell specification states no charge current limit", unit: "A" as const }
         : {
-            text: `at most the cell's ${limit.words} ${formatValue(limit.value, "A")}, or outside it only with the caution ${code} acknowledged`,
+            text: `at most the cell's ${limit.words} ${formatValue(limit.value, "A")}, or outside it only with its caution acknowledged`,
             max: limit.value,
             unit: "A" as const,
           },
@@ -93,7 +93,7 @@ function checkRatedCurrent(context: StepContext, current: RatedCurrent): Finding
     },
     outcome: acknowledged ? "meets" : "deviates",
     beyondRating: true,
-    note: acknowledged ? `Outside the cell's rating with acknowledgement (${code}); the result is marked so.` : `Acknowledge ${code} before running outside the rating.`,
+    note: acknowledged ? "Outside the cell's rating with acknowledgement of its caution; the result is marked so." : "Acknowledge its caution before running outside the rating.",
   });
 }
 

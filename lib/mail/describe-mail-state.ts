@@ -42,4 +42,5 @@ export const MAIL_KIND_LABELS: Record<MailKind, string> = {
   "run-returned": "run returned",
   "certificate-issued": "certificate issued",
   "calibration-due": "calibration due",
+  "procedure-awaiting-release": "procedure waiting for release",
 };

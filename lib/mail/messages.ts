@@ -18,6 +18,16 @@ export function composeRunSubmitted(input: { runNumber: string; runId: string; s
   };
 }
 
+export function composeProcedureAwaitingRelease(input: { procedureId: string; code: string; number: number; title: string; submitterName: string }): ComposedMail {
+  return {
+    subject: `Procedure ${input.code} version ${input.number} waits for release`,
+    body:
+      `${input.submitterName} submitted procedure ${input.code} version ${input.number} “${input.title}” for review.\n\n` +
+      `Read it, compare it with the version before, and release it with your signature or return it to its author (you may not release a version you wrote or submitted): ${publicUrl(`/procedures/${input.procedureId}`)}` +
+      FOOTER,
+  };
+}
+
 export function composeRunReturned(input: { runNumber: string; runId: string; reviewerName: string; comments: string }): ComposedMail {
   return {
     subject: `Run ${input.runNumber} returned to you`,

@@ -13,7 +13,12 @@ import {
   type ProcedureVersionView,
 } from "@/db/procedures";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
+import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
 import { DomainError } from "@/lib/errors";
+import { kickMailDispatch } from "@/lib/mail/dispatch";
+import { enqueueMail } from "@/lib/mail/enqueue-mail";
+import { composeProcedureAwaitingRelease } from "@/lib/mail/messages";
+import { confirmSignerPassword, insertSignature, type SignatureManifestation } from "@/lib/signatures/sign-record";
 import type { ProcedureDraftInput } from "./procedure-input";
 
 // Versions move draft → in review → released → withdrawn. A released version never changes (the
@@ -72,7 +77,14 @@ export async function submitForReview(actor: SignedInUser, versionId: string): P
     if (v.status !== "draft") throw new DomainError("conflict", `Version ${v.number} is ${describeStatus(v.status)}; only a draft can be submitted.`);
     await setProcedureVersionStatus(tx, versionId, { status: "in_review", by: actor.id });
     await audit(tx, actor, "procedure.submit", v, { before: { status: v.status }, after: { status: "in_review" } });
+    // The engineers who may release it are told, in the same transaction; never its author or submitter.
+    const engineers = (
+      await tx.selectFrom("app_user").select("email").where("role", "=", "engineer").where("active", "=", true).where("id", "not in", [v.author.id, actor.id]).orderBy("email").execute()
+    ).map((r) => r.email);
+    const notice = composeProcedureAwaitingRelease({ procedureId: v.procedureId, code: v.code, number: v.number, title: v.title, submitterName: actor.displayName });
+    await enqueueMail(tx, { kind: "procedure-awaiting-release", recipients: engineers, ...notice, entityType: "procedure-version", entityId: versionId });
   });
+  kickMailDispatch();
 }
 
 export async function returnToDraft(actor: SignedInUser, versionId: string, comment: string): Promise<void> {
@@ -84,14 +96,51 @@ export async function returnToDraft(actor: SignedInUser, versionId: string, comm
   });
 }
 
-/** A second engineer releases: never the author, never whoever submitted it (also a database check). */
-export async function releaseVersion(actor: SignedInUser, versionId: string): Promise<void> {
-  await getDb().transaction().execute(async (tx) => {
+/** What a release signature is linked to: the SHA-256 of the version's content, as released. */
+export function hashReleasedContent(v: Pick<ProcedureVersionView, "id" | "code" | "number" | "definition" | "instructions" | "cautions" | "acknowledgedCautions">): string {
+  return hashCanonicalJson({
+    versionId: v.id,
+    code: v.code,
+    number: v.number,
+    definition: v.definition,
+    instructions: v.instructions,
+    cautions: v.cautions,
+    acknowledgedCautions: v.acknowledgedCautions,
+  });
+}
+
+function assertReleasable(actor: SignedInUser, v: ProcedureVersionView): void {
+  if (v.status !== "in_review") throw new DomainError("conflict", `Version ${v.number} is ${describeStatus(v.status)}; only a version in review can be released.`);
+  if (v.author.id === actor.id || v.submittedBy?.id === actor.id) {
+    throw new DomainError("forbidden", "A second engineer must release this version: you wrote or submitted it.");
+  }
+}
+
+/**
+ * A second engineer releases, with an electronic signature meaning "approved for use" (password asked
+ * again, 21 CFR 11.200): never the author, never whoever submitted it (also database checks). Plain
+ * refusals come before the password; a wrong password is audited on the version and nothing changes.
+ */
+export async function signAndReleaseVersion(actor: SignedInUser, versionId: string, password: string): Promise<SignatureManifestation> {
+  const v = await getProcedureVersionById(getDb(), versionId);
+  if (!v) throw new DomainError("not-found", "No such procedure version.");
+  assertReleasable(actor, v);
+  await confirmSignerPassword(actor, password, `release of ${v.code} version ${v.number} (meaning: approved for use)`, {
+    entityType: "procedure-version",
+    entityId: versionId,
+  });
+  return releaseVersion(actor, versionId);
+}
+
+/**
+ * Releases a version and writes its release signature, in one transaction. The workbench reaches it
+ * only through signAndReleaseVersion (password first); the demo seed and test fixtures call it directly.
+ * The author's "last saved" time stays as it was: releasing changes the status, not the content.
+ */
+export async function releaseVersion(actor: SignedInUser, versionId: string): Promise<SignatureManifestation> {
+  return getDb().transaction().execute(async (tx) => {
     const v = await lockVersion(tx, versionId);
-    if (v.status !== "in_review") throw new DomainError("conflict", `Version ${v.number} is ${describeStatus(v.status)}; only a version in review can be released.`);
-    if (v.author.id === actor.id || v.submittedBy?.id === actor.id) {
-      throw new DomainError("forbidden", "A second engineer must release this version: you wrote or submitted it.");
-    }
+    assertReleasable(actor, v);
     // The version released before this one is superseded: it stays readable but no longer runs.
     for (const older of await listProcedureVersions(tx, v.procedureId)) {
       if (older.status === "released") {
@@ -99,8 +148,10 @@ export async function releaseVersion(actor: SignedInUser, versionId: string): Pr
         await audit(tx, actor, "procedure.withdraw", older, { before: { status: "released" }, after: { status: "withdrawn" }, detail: { reason: `superseded by version ${v.number}` } });
       }
     }
+    const signature = await insertSignature(tx, { signer: actor, meaning: "released", entityType: "procedure-version", entityId: versionId, recordSha256: hashReleasedContent(v) });
     await setProcedureVersionStatus(tx, versionId, { status: "released", by: actor.id });
-    await audit(tx, actor, "procedure.release", v, { before: { status: v.status }, after: { status: "released" } });
+    await audit(tx, actor, "procedure.release", v, { before: { status: v.status }, after: { status: "released" }, detail: { signature: "approved for use" } });
+    return signature;
   });
 }
 

@@ -18,6 +18,7 @@ export interface SignatureManifestation {
 export const SIGNATURE_MEANING_WORDS: Record<SignatureMeaning, string> = {
   reviewed: "reviewed: checked the records, findings and results against the procedure",
   approved: "approved: authorised the certificate for issue",
+  released: "approved for use: released this procedure version for operators to run",
 };
 
 /**
@@ -29,7 +30,7 @@ export async function confirmSignerPassword(
   signer: SignedInUser,
   password: string,
   what: string,
-  record?: { entityType: "run" | "lot" | "certificate"; entityId: string },
+  record?: { entityType: "run" | "lot" | "certificate" | "procedure-version"; entityId: string },
 ): Promise<void> {
   const credentials = await getUserCredentials(getDb(), signer.email);
   const ok = credentials !== null && credentials.active && credentials.id === signer.id && (await verifyPassword(credentials.passwordHash, password));
@@ -51,7 +52,7 @@ export async function confirmSignerPassword(
  */
 export async function insertSignature(
   tx: Executor,
-  input: { signer: SignedInUser; meaning: SignatureMeaning; entityType: "run" | "certificate"; entityId: string; recordSha256: string },
+  input: { signer: SignedInUser; meaning: SignatureMeaning; entityType: "run" | "certificate" | "procedure-version"; entityId: string; recordSha256: string },
 ): Promise<SignatureManifestation> {
   const row = await tx
     .insertInto("electronic_signature")
@@ -75,4 +76,17 @@ export async function getSignature(db: Executor, id: string): Promise<SignatureM
     .where("id", "=", id)
     .executeTakeFirst();
   return row ? { id: row.id, printedName: row.printed_name, meaning: row.meaning, signedAt: row.signed_at } : null;
+}
+
+/** The release signature of each procedure version that carries one, by version id. */
+export async function listReleaseSignatures(db: Executor, versionIds: readonly string[]): Promise<Map<string, SignatureManifestation>> {
+  if (versionIds.length === 0) return new Map();
+  const rows = await db
+    .selectFrom("electronic_signature")
+    .select(["id", "printed_name", "meaning", "signed_at", "entity_id"])
+    .where("entity_type", "=", "procedure-version")
+    .where("meaning", "=", "released")
+    .where("entity_id", "in", [...versionIds])
+    .execute();
+  return new Map(rows.map((r) => [r.entity_id, { id: r.id, printedName: r.printed_name, meaning: r.meaning, signedAt: r.signed_at }]));
 }

@@ -60,7 +60,12 @@ test("procedure → run → review → signed certificate → public check, with
   await signInAsUser(releaserContext, baseURL!, "engineer2@brackwater.example");
   const reviewer = await releaserContext.newPage();
   await reviewer.goto(procedureUrl);
-  await reviewer.getByRole("button", { name: "Release version 1" }).click();
+  // Releasing is a signature: the release page, then the password again.
+  await reviewer.getByRole("link", { name: "Release version 1" }).click();
+  await reviewer.getByLabel("Your password, to sign").fill("demo-engineer-pass");
+  await reviewer.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(reviewer.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
+  await reviewer.goto(procedureUrl);
   await expect(reviewer.getByTestId("version-1")).toContainText("Released by");
 
   // A loose specimen of the invented 4 850 mAh cell for this run alone.
@@ -157,7 +162,7 @@ test("procedure → run → review → signed certificate → public check, with
   await expect(anyone.getByRole("heading", { name: new RegExp(`Certificate ${certificateNumber} is .*valid`) })).toBeVisible();
   await anyone.getByLabel("Certificate PDF").setInputFiles({ name: `${certificateNumber}.pdf`, mimeType: "application/pdf", buffer: pdf });
   await anyone.getByRole("button", { name: "Check this PDF" }).click();
-  await expect(anyone.getByRole("status").filter({ hasText: "Genuine: this is the certificate as issued" })).toBeVisible();
+  await expect(anyone.getByTestId("check-top").getByRole("status").filter({ hasText: `Genuine and valid: ${certificateNumber}.pdf is certificate ${certificateNumber} as issued` })).toBeVisible();
   await expect(anyone.getByTestId("check-result")).toContainText("byte-identical to the issued PDF");
 
   // One changed byte inside the signed range: not identical, and the signature no longer verifies.
@@ -166,7 +171,10 @@ test("procedure → run → review → signed certificate → public check, with
   tampered[at] = "X".charCodeAt(0);
   await anyone.getByLabel("Certificate PDF").setInputFiles({ name: "changed.pdf", mimeType: "application/pdf", buffer: tampered });
   await anyone.getByRole("button", { name: "Check this PDF" }).click();
-  await expect(anyone.getByRole("status").filter({ hasText: "Not the certificate as issued" })).toBeVisible();
+  // The verdict for the file takes the top banner's place: no green "Valid" above a refusal.
+  await expect(anyone.getByTestId("check-top").getByRole("status").filter({ hasText: "Not the certificate as issued: do not rely on changed.pdf" })).toBeVisible();
+  await expect(anyone.getByTestId("check-top")).not.toContainText("Genuine");
+  await expect(anyone.getByTestId("check-top").getByText("Valid", { exact: true })).toHaveCount(0);
   await expect(anyone.getByTestId("check-result")).toContainText("does not verify");
 
   // The notices reached the catcher: run submitted to the engineers, certificate issued to the auditors.

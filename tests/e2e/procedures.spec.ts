@@ -4,7 +4,7 @@ import { signInAs, signInAsUser } from "./fixtures";
 // One journey across three people: an engineer writes from the rated-capacity template and previews it
 // against a demo cell, a second engineer releases it, and an operator reads it without any controls.
 test("an engineer drafts from a template, a second engineer releases it, an operator reads it", async ({ browser, baseURL }) => {
-  // Three people and a dozen pages: past the 30 s default on a loaded 2-core machine.
+  // Three people in turn and two password checks at signing (argon2 each): more than the default 30 s on a loaded machine.
   test.setTimeout(90_000);
   const code = `BW-RC20-${Date.now() % 100000}`;
 
@@ -47,8 +47,21 @@ test("an engineer drafts from a template, a second engineer releases it, an oper
   await signInAsUser(second, baseURL!, "engineer2@brackwater.example");
   const secondPage = await second.newPage();
   await secondPage.goto(procedureUrl);
-  await secondPage.getByRole("button", { name: "Release version 1" }).click();
+  await secondPage.getByRole("link", { name: "Release version 1" }).click();
+  // Release is a signature: what is approved (first version, no earlier one to compare), then the password.
+  await expect(secondPage.getByRole("heading", { name: "First version" })).toBeVisible();
+  await expect(secondPage.getByTestId("release-meaning")).toHaveText(/approved for use/);
+  const password = secondPage.getByLabel("Your password, to sign");
+  await password.fill("not-the-password");
+  await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(secondPage.getByRole("alert").filter({ hasText: "That password is not right" })).toBeVisible();
+  await expect(password, "a refused password is cleared").toHaveValue("");
+  await password.fill("demo-engineer-pass");
+  await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
+  await expect(secondPage.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
+  await secondPage.goto(procedureUrl);
   await expect(secondPage.getByTestId("version-1")).toContainText("Released by Tomas Lindqvist");
+  await expect(secondPage.getByTestId("version-1").getByTestId("signature-manifestation")).toContainText("approved for use");
 
   const operator = await browser.newContext();
   await signInAs(operator, baseURL!, "operator");

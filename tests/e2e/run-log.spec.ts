@@ -53,7 +53,7 @@ test("an operator uploads a cycler log, sees it evaluated and plotted; a bad log
   await page.getByRole("button", { name: /^Upload channel-01\.csv/ }).click();
   await expect(page.getByTestId("upload-progress")).toContainText("Sent");
   const stored = page.getByRole("status").filter({ hasText: "Log stored" });
-  await expect(stored).toContainText("procedure followed yes; specimen conforms", { timeout: 30_000 });
+  await expect(stored).toContainText("Evaluated: The procedure was followed; the specimen conforms.", { timeout: 30_000 });
   // After "Log stored" the form does not invite a second upload: replacing is a deliberate choice.
   await expect(page.getByLabel("CSV file from the cycler (up to 200 MiB)")).toHaveCount(0);
   await expect(page.getByRole("button", { name: "Replace the stored log…" })).toBeVisible();

@@ -1,45 +1,58 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { z } from "zod";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
-import { listAuditEvents } from "@/db/audit";
+import { listAuditActors, listAuditEvents } from "@/db/audit";
 import { requirePagePermission } from "@/lib/auth/guards";
-import { AUDIT_ACTION_LABELS, describeAuditAction, summariseAuditChange } from "@/lib/audit-labels";
+import { AUDIT_ACTION_LABELS, AUDIT_RECORD_TYPES, describeAuditAction, describeAuditRecord, summariseAuditChange } from "@/lib/audit-labels";
+import { auditTrailSearchSchema, toAuditFilter, toAuditSearchParams } from "@/lib/audit-trail-filter";
 
 export const metadata: Metadata = { title: "Audit trail" };
 
 const PAGE_SIZE = 50;
-const searchSchema = z.object({
-  action: z.string().max(60).optional().catch(undefined),
-  before: z.string().regex(/^\d+$/).optional().catch(undefined),
-});
+
+const AREAS: [string, string][] = [
+  ["auth.", "sign-in and sign-out"],
+  ["user.", "user changes"],
+  ["security.", "refused requests"],
+  ["signature.", "refused signatures"],
+  ["procedure.", "procedures"],
+  ["spec.", "cell specifications"],
+  ["instrument.", "instruments"],
+  ["lot.", "lots"],
+  ["specimen.", "specimens"],
+  ["run.", "runs"],
+  ["certificate.", "certificates"],
+];
+
+const control = "rounded border border-rule bg-white px-2 py-1.5";
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePagePermission("audit.read");
-  const { action, before } = searchSchema.parse(await searchParams);
-  const events = await listAuditEvents(getDb(), { action: action || undefined, beforeId: before, limit: PAGE_SIZE });
+  const search = auditTrailSearchSchema.parse(await searchParams);
+  const [events, actors] = await Promise.all([listAuditEvents(getDb(), { ...toAuditFilter(search), limit: PAGE_SIZE }), listAuditActors(getDb())]);
   const last = events.at(-1);
   return (
     <>
       <PageHeader
         title="Audit trail"
         lead="Every sign-in, change and refusal, newest first. The database accepts new entries only: nothing here can be edited or removed."
+        actions={
+          <a href={`/api/audit/trail.csv?${toAuditSearchParams(search)}`} className="text-sm text-copper-deep underline" download>
+            Download these entries as CSV
+          </a>
+        }
       />
-      <form className="mb-4 flex flex-wrap items-end gap-2" role="search">
+      <form className="mb-4 grid gap-3 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit trail">
         <label className="flex flex-col text-sm">
           What happened
-          <select name="action" defaultValue={action ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
+          <select name="action" defaultValue={search.action ?? ""} className={control}>
             <option value="">everything</option>
-            <option value="auth.">sign-in and sign-out</option>
-            <option value="user.">user changes</option>
-            <option value="security.">refused requests</option>
-            <option value="procedure.">procedures</option>
-            <option value="spec.">cell specifications</option>
-            <option value="instrument.">instruments</option>
-            <option value="lot.">lots</option>
-            <option value="specimen.">specimens</option>
-            <option value="run.">runs</option>
+            {AREAS.map(([code, words]) => (
+              <option key={code} value={code}>
+                {words}
+              </option>
+            ))}
             {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
               <option key={code} value={code}>
                 only: {label}
@@ -47,41 +60,77 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             ))}
           </select>
         </label>
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
+        <label className="flex flex-col text-sm">
+          Who
+          <select name="person" defaultValue={search.person ?? ""} className={control}>
+            <option value="">anyone</option>
+            {actors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col text-sm">
+          Kind of record
+          <select name="kind" defaultValue={search.kind ?? ""} className={control}>
+            <option value="">any</option>
+            {Object.entries(AUDIT_RECORD_TYPES).map(([code, words]) => (
+              <option key={code} value={code}>
+                {words}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col text-sm">
+          Record name contains
+          <input name="record" defaultValue={search.record ?? ""} placeholder="e.g. R-00012, TPL-RC20, KV48" className={control} />
+        </label>
+        <label className="flex flex-col text-sm">
+          From (UTC day)
+          <input type="date" name="from" defaultValue={search.from ?? ""} className={control} />
+        </label>
+        <label className="flex flex-col text-sm">
+          To (UTC day, included)
+          <input type="date" name="to" defaultValue={search.to ?? ""} className={control} />
+        </label>
+        <div className="flex items-end gap-3">
+          <button type="submit" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper">
+            Show
+          </button>
+          <Link href="/audit" className="text-sm text-copper-deep underline">
+            Clear filters
+          </Link>
+        </div>
       </form>
       <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm">
+        <table className="w-full border-collapse text-sm" data-testid="audit-trail">
           <thead>
             <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">When (UTC)</th>
-              <th className="py-2 pr-3">Who</th>
-              <th className="py-2 pr-3">What</th>
-              <th className="py-2 pr-3">Record</th>
-              <th className="py-2 pr-3">Details</th>
-              <th className="py-2">From</th>
+              <th scope="col" className="py-2 pr-3">When (UTC)</th>
+              <th scope="col" className="py-2 pr-3">Who</th>
+              <th scope="col" className="py-2 pr-3">What happened</th>
+              <th scope="col" className="py-2">What changed (was → now)</th>
             </tr>
           </thead>
           <tbody>
             {events.map((e) => (
               <tr key={e.id} className="border-b border-rule align-top">
-                <td className="figures whitespace-nowrap py-2 pr-3">{e.at.toISOString().replace("T", " ").slice(0, 19)}</td>
-                <td className="py-2 pr-3">{e.actorLabel}</td>
-                <td className="py-2 pr-3">{describeAuditAction(e.action)}</td>
-                <td className="py-2 pr-3">
-                  {e.entityType ? (
-                    <>
-                      {e.entityType} {e.entityLabel ?? <span className="font-mono text-xs">{e.entityId}</span>}
-                    </>
-                  ) : (
-                    "—"
-                  )}
+                <td className="figures py-2 pr-3">
+                  <span className="whitespace-nowrap">{e.at.toISOString().slice(0, 10)}</span>{" "}
+                  <span className="whitespace-nowrap">{e.at.toISOString().slice(11, 19)}</span>
                 </td>
-                <td className="py-2 pr-3 text-xs [overflow-wrap:anywhere]">
+                <td className="min-w-[9rem] py-2 pr-3 [overflow-wrap:break-word]">
+                  {e.actorLabel}
+                  {e.address && <span className="block text-xs text-ink-soft">from {e.address}</span>}
+                </td>
+                <td className="min-w-[10rem] py-2 pr-3">
+                  {describeAuditAction(e.action)}
+                  {e.entityType && <span className="block text-xs text-ink-soft">{describeAuditRecord(e.entityType, e.entityLabel)}</span>}
+                </td>
+                <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:anywhere]">
                   <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
                 </td>
-                <td className="py-2">{e.address ?? "—"}</td>
               </tr>
             ))}
           </tbody>
@@ -90,7 +139,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       </div>
       {events.length === PAGE_SIZE && last && (
         <p className="mt-4">
-          <Link href={`/audit?${new URLSearchParams({ ...(action ? { action } : {}), before: last.id })}`} className="text-copper-deep underline">
+          <Link href={`/audit?${toAuditSearchParams(search, { before: last.id })}`} className="text-copper-deep underline">
             Older entries
           </Link>
         </p>

@@ -1,5 +1,6 @@
 "use client";
 
+import { describeVerdictInline } from "@/components/runs/results/verdict-words";
 import { useRouter } from "next/navigation";
 import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -171,7 +172,7 @@ function UploadOutcome({ outcome }: { outcome: UploadMessage }) {
         <Notice tone="done" role="status" title="Log stored">
           {outcome.rows.toLocaleString("en-GB")} rows, SHA-256 <code className="break-all">{outcome.sha256}</code> (shown under “Current data log” above).{" "}
           {outcome.verdict
-            ? `Evaluated: procedure followed ${outcome.verdict.procedureFollowed}; specimen ${outcome.verdict.specimenConforms}.`
+            ? `Evaluated: ${describeVerdictInline(outcome.verdict)}`
             : outcome.evaluationProblem}
           {outcome.warnings.map((w) => (
             <span key={w} className="block">

@@ -16,7 +16,7 @@ describe("checkRating", () => {
     const record = recordOf({ stepId: "discharge", programmed: { current: 0.6 } });
     const [finding] = checkRating(contextOf({ step: steps.discharge, record, cellRating: lowRate }));
     expect(finding).toMatchObject({ outcome: "deviates", severity: "caution", beyondRating: true, observed: { value: 0.6 } });
-    expect(finding?.note).toContain("discharge-current-above-rating/discharge/current");
+    expect(finding?.note).toBe("Acknowledge its caution before running outside the rating.");
   });
 
   it("meets but stays marked beyond the rating once the caution is acknowledged, on the record or on the version", () => {

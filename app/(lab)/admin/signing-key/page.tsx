@@ -54,7 +54,11 @@ export default async function SigningKeyPage() {
           {formatDate(key.validFrom)} to {formatDate(key.validTo)}
         </dd>
         <dt className="py-1.5 text-ink-soft">Where it comes from</dt>
-        <dd className="py-1.5">{key.source === "configured" ? `configured: ${key.location}` : `created by this installation, kept in ${key.location}`}</dd>
+        <dd className="py-1.5">
+          {key.source === "configured"
+            ? "configured by the lab: the key file named in the server's settings"
+            : "created by this installation on first start, kept in its data folder beside the database (back that folder up)"}
+        </dd>
       </dl>
     </>
   );

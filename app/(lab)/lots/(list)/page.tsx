@@ -37,9 +37,9 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
               <th className="py-2 pr-3">Lot</th>
               <th className="py-2 pr-3">Cell</th>
               <th className="py-2 pr-3">Supplier</th>
-              <th className="py-2 pr-3 text-right">Received</th>
+              <th className="py-2 pr-3 text-right">Cells received</th>
               <th className="py-2 pr-3 text-right">Specimens registered</th>
-              <th className="py-2">Received on</th>
+              <th className="py-2">Date received</th>
             </tr>
           </thead>
           <tbody>

@@ -8,7 +8,7 @@ import { getProcedureVersionById } from "@/db/procedures";
 import { requireActionPermission } from "@/lib/auth/guards";
 import { toActionState, type ActionState } from "@/lib/forms/action-state";
 import { reasonSchema } from "@/lib/procedures/procedure-input";
-import { releaseVersion, returnToDraft, startNewDraft, submitForReview, withdrawVersion } from "@/lib/procedures/lifecycle";
+import { signAndReleaseVersion, returnToDraft, startNewDraft, submitForReview, withdrawVersion } from "@/lib/procedures/lifecycle";
 
 const versionIdSchema = z.object({ versionId: z.uuid() });
 
@@ -44,10 +44,10 @@ export async function returnToDraftAction(_prev: ActionState, form: FormData): P
 export async function releaseAction(_prev: ActionState, form: FormData): Promise<ActionState> {
   try {
     const user = await requireActionPermission("procedure.release");
-    const { versionId } = versionIdSchema.parse(Object.fromEntries(form));
-    await releaseVersion(user, versionId);
+    const { versionId, password } = versionIdSchema.extend({ password: z.string().min(1, { error: "enter your password to sign" }).max(1000) }).parse(Object.fromEntries(form));
+    await signAndReleaseVersion(user, versionId, password);
     revalidatePath(await procedurePathOf(versionId), "layout");
-    return { ok: true, message: "Released. Operators can now run this version; it can no longer change." };
+    return { ok: true, message: "Released with your signature (approved for use). Operators can now run this version; it can no longer change." };
   } catch (error) {
     return toActionState(error);
   }

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { StatusBadge } from "@/components/procedures/status-badge";
+import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { VersionActionForm } from "@/components/procedures/version-actions";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
@@ -11,7 +12,9 @@ import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { canSeeVersion } from "@/lib/procedures/read-access";
-import { releaseAction, returnToDraftAction, startNewDraftAction, submitForReviewAction, withdrawAction } from "../actions";
+import { listReleaseSignatures } from "@/lib/signatures/sign-record";
+import { describeStatus } from "@/lib/procedures/lifecycle";
+import { returnToDraftAction, startNewDraftAction, submitForReviewAction, withdrawAction } from "../actions";
 
 export const metadata: Metadata = { title: "Procedure" };
 
@@ -24,6 +27,7 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
   const versions = (await listProcedureVersions(getDb(), id.data)).filter((v) => canSeeVersion(user, v.status));
   const newest = versions[0];
   if (!newest) notFound();
+  const releaseSignatures = await listReleaseSignatures(getDb(), versions.map((v) => v.id));
   const hasOpen = versions.some((v) => v.status === "draft" || v.status === "in_review");
   return (
     <>
@@ -47,6 +51,11 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
               <span className="text-sm text-ink-soft">{v.title}</span>
             </div>
             <VersionHistory v={v} />
+            {releaseSignatures.get(v.id) && (
+              <p className="mt-1 text-sm">
+                <SignatureManifestation signature={releaseSignatures.get(v.id)!} />
+              </p>
+            )}
             {can(user.role, "procedure.author") && <LifecycleControls user={user} v={v} hasOpen={hasOpen} />}
           </li>
         ))}
@@ -97,7 +106,12 @@ function LifecycleControls({ user, v, hasOpen }: { user: SignedInUser; v: Proced
           {wroteIt ? (
             <p className="text-sm text-ink-soft">Waiting for a second engineer: you cannot release a version you wrote or submitted.</p>
           ) : (
-            <VersionActionForm action={releaseAction} versionId={v.id} label={`Release version ${v.number}`} variant="primary" />
+            <Link
+              href={`/procedures/${v.procedureId}/versions/${v.number}/release`}
+              className="self-start rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper"
+            >
+              Release version {v.number}…
+            </Link>
           )}
           <VersionActionForm action={returnToDraftAction} versionId={v.id} label="Return to draft" reasonLabel="Comment for the author" />
         </>
@@ -119,7 +133,7 @@ function VersionSelect({ name, label, versions, defaultValue }: { name: string; 
       <select name={name} defaultValue={defaultValue} className="rounded border border-rule bg-white px-2 py-1.5">
         {versions.map((v) => (
           <option key={v.id} value={v.number}>
-            version {v.number} ({v.status.replace("_", " ")})
+            version {v.number} ({describeStatus(v.status)})
           </option>
         ))}
       </select>
