@@ -13,7 +13,7 @@ const TABLE_RIGHTS: Record<string, string> = {
   lab: "select, insert, update",
   app_user: "select, insert, update",
   user_session: "select, insert, update, delete",
-  sign_in_attempt: "select, insert",
+  sign_in_attempt: "select, insert, delete",
   audit_event: "select, insert",
   stored_file: "select, insert",
   cell_specification: "select, insert, update",

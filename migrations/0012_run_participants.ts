@@ -17,7 +17,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   // Taking part is a fact: once written it is never changed or removed.
   await sql`
-    create function run_participant_guard() returns trigger language plpgsql as $$
+    create function run_participant_guard() returns trigger language plpgsql set search_path = public, pg_temp as $$
     begin
       raise exception 'who took part in a run is never changed or deleted' using errcode = 'P0001';
     end $$`.execute(db);
@@ -25,13 +25,13 @@ export async function up(db: Kysely<any>): Promise<void> {
     for each row execute function run_participant_guard()`.execute(db);
 
   await sql`
-    create function note_run_participant(p_run uuid, p_user text, p_activity text) returns void language sql as $$
+    create function note_run_participant(p_run uuid, p_user text, p_activity text) returns void language sql set search_path = public, pg_temp as $$
       insert into run_participant (run_id, user_id, activity) values (p_run, p_user, p_activity) on conflict do nothing
     $$`.execute(db);
 
   // Written by the database from the records themselves, so no code path can forget it.
   await sql`
-    create function run_participant_from_record() returns trigger language plpgsql as $$
+    create function run_participant_from_record() returns trigger language plpgsql set search_path = public, pg_temp as $$
     begin
       if tg_table_name = 'run' then
         perform note_run_participant(new.id, new.operator_id, 'started');
@@ -51,7 +51,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   // Nobody who took part reviews, signs for or issues the certificate of the run.
   await sql`
-    create function run_participant_may_not_decide() returns trigger language plpgsql as $$
+    create function run_participant_may_not_decide() returns trigger language plpgsql set search_path = public, pg_temp as $$
     declare v_run uuid; v_user text;
     begin
       if tg_table_name = 'run_review' then

@@ -14,7 +14,7 @@ export async function up(db: Kysely<any>): Promise<void> {
   // A release signature belongs to a version in review, and never to its author or whoever submitted it.
   // Its own trigger, beside the append-only guard of 0005, so the two never have to be edited together.
   await sql`
-    create function procedure_release_signature_guard() returns trigger language plpgsql as $$
+    create function procedure_release_signature_guard() returns trigger language plpgsql set search_path = public, pg_temp as $$
     declare v record;
     begin
       if new.entity_type <> 'procedure-version' and new.meaning <> 'released' then

@@ -158,6 +158,12 @@ describe("the app's database role", () => {
       select p.proname as name from pg_proc p
        where p.pronamespace = 'public'::regnamespace and 'search_path=public, pg_temp' = any(p.proconfig)`.execute(getDb());
     expect(pinned.rows.map((r) => r.name)).toEqual(expect.arrayContaining(guards));
+    // And every function any later migration adds: each names where it looks tables up.
+    const unpinned = await sql<{ name: string }>`
+      select p.proname as name from pg_proc p
+       where p.pronamespace = 'public'::regnamespace
+         and not exists (select 1 from unnest(coalesce(p.proconfig, '{}')) c where c like 'search_path=%')`.execute(getDb());
+    expect(unpinned.rows.map((r) => r.name)).toEqual([]);
   });
 
   it("holds no TRUNCATE, TRIGGER or REFERENCES right on any table, and none at all on the migration records", async () => {

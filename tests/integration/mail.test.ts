@@ -21,6 +21,7 @@ import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { withOwnerClient } from "../support/test-database";
 import { chunksOf, makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 
 interface CaughtMail {
@@ -175,7 +176,8 @@ async function planTickedRun() {
   const specId = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: "TM-MAIL", data: inventedCell });
   const { versionId } = await releaseRatedCapacityProcedure(engineer, second, "T-MAIL");
   // The notice that the version waited for release is not what these tests count: take it out of the outbox.
-  await getDb().deleteFrom("mail_message").where("kind", "=", "procedure-awaiting-release").execute();
+  // The app's role never deletes mail; the owner does it for the test.
+  await withOwnerClient((c) => c.query("delete from mail_message where kind = 'procedure-awaiting-release'"));
   const channel = (
     await getDb()
       .insertInto("instrument")

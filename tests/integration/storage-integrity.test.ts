@@ -5,6 +5,7 @@ import { join } from "node:path";
 import { GetObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { Kysely, Migrator, PostgresDialect, sql } from "kysely";
 import pg from "pg";
+import { PDFDocument } from "pdf-lib";
 import { afterAll, describe, expect, it } from "vitest";
 import { getDb, type Database } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
@@ -43,13 +44,21 @@ const s3 = (secretAccessKey = process.env.S3_SECRET_ACCESS_KEY!) =>
   new S3Client({ endpoint: process.env.S3_ENDPOINT, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID!, secretAccessKey } });
 const bucket = process.env.S3_BUCKET ?? "cellwright";
 
-/** A PDF-looking file larger than three 64 KiB chunks, random inside so no two are alike. */
-const bigPdf = () => Buffer.concat([Buffer.from("%PDF-1.7\n"), randomBytes(200 * 1024), Buffer.from("\n%%EOF\n")]);
+/**
+ * A real PDF (the datasheet upload opens it with pdf-lib) larger than three 64 KiB chunks: one page and
+ * 200 KiB of random bytes as an attached file, so no two are alike and compression cannot shrink it.
+ */
+async function bigPdf(): Promise<Buffer> {
+  const doc = await PDFDocument.create();
+  doc.addPage([595, 842]);
+  await doc.attach(randomBytes(200 * 1024), "noise.bin", { mimeType: "application/octet-stream" });
+  return Buffer.from(await doc.save());
+}
 
 async function specWithDatasheet(tag: string) {
   const engineer = await makeUser("engineer", `Eve ${tag}`);
   const id = await createCellSpecification(engineer, { maker: "Testmoor Cells", model: `TM-${tag}`, data: inventedCell });
-  const bytes = bigPdf();
+  const bytes = await bigPdf();
   const stored = await attachDatasheet(engineer, id, { name: `${tag}.pdf`, bytes });
   const file = await getDb().selectFrom("stored_file").select(["id", "storage_key"]).where("id", "=", stored.fileId).executeTakeFirstOrThrow();
   return { engineer, id, bytes, fileId: file.id, key: file.storage_key };
