@@ -23,7 +23,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addUniqueConstraint("electronic_signature_once", ["entity_type", "entity_id", "meaning"])
     .execute();
 
-  // The operator of a run never signs for it (DESIGN.md §2), whatever the code above does.
+  // The operator of a run never signs for it (docs/design.md §2), whatever the code above does.
   await sql`
     create function electronic_signature_guard() returns trigger language plpgsql as $$
     declare run_operator text;

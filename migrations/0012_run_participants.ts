@@ -1,6 +1,6 @@
 import { type Kysely, sql } from "kysely";
 
-// Separation of duties (DESIGN.md §2, ISO/IEC 17025 7.8.1.1 review by someone other than the tester):
+// Separation of duties (docs/design.md §2, ISO/IEC 17025 7.8.1.1 review by someone other than the tester):
 // everyone who took part in a run (started it, recorded a step, uploaded a log, submitted it) is
 // written down here by the database itself, and nobody listed may review it, sign for it or issue
 // its certificate. Not only the starter: a second operator who recorded steps is a tester too.

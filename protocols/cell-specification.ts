@@ -147,7 +147,7 @@ export function checkCellSpecification(cell: CellSpecificationFields, ctx: Issue
   checkDimensionsAndDesignation(cell, ctx);
 }
 
-/** Datasheet values of one cell type (DESIGN.md §3), with their consistency rules. */
+/** Datasheet values of one cell type (docs/design.md §3), with their consistency rules. */
 export const cellSpecificationSchema = cellSpecificationFieldsSchema.superRefine(checkCellSpecification);
 
 export type CellSpecification = z.infer<typeof cellSpecificationSchema>;

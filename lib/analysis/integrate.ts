@@ -18,7 +18,7 @@ export interface Integral {
 
 /**
  * Capacity and energy over the inclusive sample range [from, to], trapezoid rule (definition,
- * DESIGN.md §6): Q = Σ Δt·(|I₀| + |I₁|)/2, E = Σ Δt·(V₀|I₀| + V₁|I₁|)/2.
+ * docs/design.md §6): Q = Σ Δt·(|I₀| + |I₁|)/2, E = Σ Δt·(V₀|I₀| + V₁|I₁|)/2.
  * Terms are summed plainly within blocks and the block sums are added with Neumaier compensation,
  * so 2 million small terms lose no digits and splitting a range at a shared sample gives the same
  * total to rounding, at the speed of a plain loop.

@@ -2,7 +2,7 @@
  * A cycler data log held as columns of typed arrays, in SI units with one sign convention.
  *
  * Typed arrays, not an object per sample: on a 2-million-row log objects cost several times the
- * memory and many times the time to build (see ../shared/STACK.md figures in docs/decisions).
+ * memory and many times the time to build (see docs/stack.md figures in docs/decisions).
  */
 export interface LogColumns {
   /** Elapsed time from the first sample, seconds, strictly increasing. */

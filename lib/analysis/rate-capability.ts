@@ -58,7 +58,7 @@ export interface RateCapabilityTable {
   basis: string[];
 }
 
-/** The ±1 % current tolerance of IEC 61960-3 clause 4 (REFERENCES.md §3): a measured current only counts as above the rating beyond it. */
+/** The ±1 % current tolerance of IEC 61960-3 clause 4 (docs/references.md §3): a measured current only counts as above the rating beyond it. */
 const currentReadingTolerance = 0.01;
 
 function checkInput({ results, rating }: RateCapabilityInput): string | null {

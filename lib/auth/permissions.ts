@@ -30,7 +30,7 @@ export const PERMISSIONS = [
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
-/** DESIGN.md §2: who may do what. Data, not code paths, so one table answers "can X do Y". */
+/** docs/design.md §2: who may do what. Data, not code paths, so one table answers "can X do Y". */
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   admin: [
     "workbench.enter",

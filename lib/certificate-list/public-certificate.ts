@@ -2,7 +2,7 @@ import type { CertificateView } from "@/db/certificates";
 
 /**
  * What the public check page may say about a certificate: only what the certificate itself states,
- * plus its current state (DESIGN.md §2). No customer, no internal ids, no people other than the signer.
+ * plus its current state (docs/design.md §2). No customer, no internal ids, no people other than the signer.
  */
 export function toPublicCertificate(c: CertificateView) {
   return {

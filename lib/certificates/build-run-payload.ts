@@ -162,7 +162,7 @@ function summariseAmbient(evaluation: StoredEvaluation, records: readonly StepRe
 
 /**
  * The set-point current(s) of a measured step, in A and as a multiple of It = Cn / 1 h (IEC 61434,
- * REFERENCES.md §1): the programmed value the operator recorded, else the procedure's resolved one.
+ * docs/references.md §1): the programmed value the operator recorded, else the procedure's resolved one.
  */
 export function describeSetPointCurrents(
   step: { stepId: string; cycle: number },

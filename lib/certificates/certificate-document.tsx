@@ -23,7 +23,7 @@ import { DrawSection, LotDecisionSection, LotItemSection, LotMethodSection, LotS
 import type { QrModules } from "./qr-modules";
 import type { DischargeCurve } from "./vq-plot";
 
-// This module is the one place that imports @react-pdf/renderer (0.3–0.5 s, STACK.md); it is loaded
+// This module is the one place that imports @react-pdf/renderer (0.3–0.5 s, docs/stack.md); it is loaded
 // lazily by render-certificate.ts, once per process, and registers the fonts when it loads.
 const FONT_DIR = join(process.cwd(), "node_modules", "@fontsource", "merriweather", "files");
 /** A face as a data URL of the unpacked font (woff-to-sfnt.ts), read from the package once per process. */

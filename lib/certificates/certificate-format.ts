@@ -1,5 +1,5 @@
 /**
- * Numbers as the certificate prints them (DESIGN.md §9): a fixed number of decimals per quantity,
+ * Numbers as the certificate prints them (docs/design.md §9): a fixed number of decimals per quantity,
  * groups of three digits split by a no-break space, a true minus sign, and the unit after a
  * no-break space so a value never breaks from its unit: "3 061 mAh", "11.02 Wh", "3.60 V".
  */

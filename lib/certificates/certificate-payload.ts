@@ -5,7 +5,7 @@ import type { StoredDecisionRule } from "@/protocols";
 /**
  * What a certificate states, as plain JSON. Its canonical form (canonical-json.ts) is hashed and the
  * hash stored with the certificate; the PDF is drawn from it. The items of ISO/IEC 17025:2017
- * 7.8.2.1 a–p and 7.8.3.1 each have a field (REFERENCES.md §8). Times are ISO 8601 in UTC; calendar
+ * 7.8.2.1 a–p and 7.8.3.1 each have a field (docs/references.md §8). Times are ISO 8601 in UTC; calendar
  * dates YYYY-MM-DD; values in SI units as the field names say. Never rename a field: stored payloads
  * keep their shape, and their hashes must recompute.
  */

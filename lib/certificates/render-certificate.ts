@@ -7,7 +7,7 @@ type DocumentModule = typeof import("./certificate-document");
 
 const globalForPdf = globalThis as unknown as { cellwrightCertificateDocument?: Promise<DocumentModule> };
 
-/** The react-pdf document module, imported once per process (its import costs 0.3–0.5 s, STACK.md). */
+/** The react-pdf document module, imported once per process (its import costs 0.3–0.5 s, docs/stack.md). */
 function loadDocumentModule(): Promise<DocumentModule> {
   globalForPdf.cellwrightCertificateDocument ??= import("./certificate-document").catch((error: unknown) => {
     globalForPdf.cellwrightCertificateDocument = undefined;

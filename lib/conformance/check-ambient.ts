@@ -6,7 +6,7 @@ import { createFinding, noRecordReason, type StepContext } from "./step-context"
 
 /**
  * Every ambient reading of the step lies within the step's range: the procedure's ambient (for
- * IEC 61960-3 7.2 and 7.3.1, 20 °C ± 5 °C, REFERENCES.md §2; 20–25 °C is common practice, §12), the
+ * IEC 61960-3 7.2 and 7.3.1, 20 °C ± 5 °C, docs/references.md §2; 20–25 °C is common practice, §12), the
  * step's own, or for a soak the soak temperature. Readings are compared with the range as they
  * stand (simple acceptance): the ±2 °C of IEC 61960-3 clause 4 is the accuracy the thermometer must
  * hold, not a widening of the range. Readings struck as errors, and values no ambient can take

@@ -8,7 +8,7 @@ const otherKinds: readonly CautionKind[] = ["charge-below-zero-celsius", "soak-b
 
 /**
  * Every other safety caution the resolution raised for this step (no charging below 0 °C, soaking
- * below 0 °C: DESIGN.md §7, common practice) was acknowledged, on the procedure version or by the
+ * below 0 °C: docs/design.md §7, common practice) was acknowledged, on the procedure version or by the
  * operator on the step record, before the step ran.
  */
 export function checkCautionsAcknowledged(context: StepContext, cautions: readonly ResolutionCaution[]): Finding[] {

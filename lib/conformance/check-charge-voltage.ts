@@ -10,7 +10,7 @@ function formatMillivolts(volts: number): string {
 
 /**
  * During a charge the logged voltage never rises above the cell's rated charge voltage (never
- * exceed the charge voltage: common practice, DESIGN.md §7, REFERENCES.md §12), nor above the
+ * exceed the charge voltage: common practice, docs/design.md §7, docs/references.md §12), nor above the
  * step's own charge voltage when that is lower. The ±1 % voltage tolerance of IEC 61960-3 clause 4
  * is a tolerance of the measurement, not a licence to charge 42 mV above a 4.2 V rating: the only
  * margin is a reading allowance in volts for the noise of a logged constant-voltage hold (a lab

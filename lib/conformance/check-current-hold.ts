@@ -125,7 +125,7 @@ function checkPulseLevels(context: StepContext, checks: { base: HoldCheck; pulse
 
 /**
  * The logged current held the resolved set-point within the current tolerance (IEC 61960-3
- * clause 4: ±1 %, REFERENCES.md §3) over the constant-current part: a charge's CC part, a whole
+ * clause 4: ±1 %, docs/references.md §3) over the constant-current part: a charge's CC part, a whole
  * discharge, each level of a pulse. The current may stray for a few seconds in total (switching
  * transients); how long is a setting in seconds, not a value from the standard.
  */

@@ -16,8 +16,8 @@ export function observeDuration(context: StepContext): { seconds: number; source
 
 /**
  * The step lasted between its shortest and longest time, each widened by the time tolerance
- * (IEC 61960-3 clause 4: ±0.1 %, REFERENCES.md §3, unless the procedure sets its own). The limits
- * are the procedure's: e.g. a rest of 1 h to 4 h after charge for IEC 61960-3 7.3.1 (REFERENCES.md
+ * (IEC 61960-3 clause 4: ±0.1 %, docs/references.md §3, unless the procedure sets its own). The limits
+ * are the procedure's: e.g. a rest of 1 h to 4 h after charge for IEC 61960-3 7.3.1 (docs/references.md
  * §2, held in the template as a recalled value).
  */
 function checkSpan(context: StepContext, limits: { min?: ResolvedValue; max?: ResolvedValue }): Finding {

@@ -15,7 +15,7 @@ export function hasStoppedBeforeEndVoltage(step: ResolvedStep, results: StepResu
 
 /**
  * A discharge ends at its end voltage (IEC 61960-3 7.3.1: to the end-of-discharge voltage,
- * REFERENCES.md §2) within the voltage tolerance (clause 4, ±1 %): the last logged voltage is not
+ * docs/references.md §2) within the voltage tolerance (clause 4, ±1 %): the last logged voltage is not
  * above it (stopped early), and no logged voltage is below it (discharged too far).
  */
 function checkEndVoltage(context: StepContext, step: ResolvedDischargeStep): Finding {
@@ -56,7 +56,7 @@ function checkEndVoltage(context: StepContext, step: ResolvedDischargeStep): Fin
 
 /**
  * A CC-CV charge ends when the current falls to the termination current (the manufacturer's
- * declared method, common practice: REFERENCES.md §2, §12): the last current of the CV part is not
+ * declared method, common practice: docs/references.md §2, §12): the last current of the CV part is not
  * above it plus the current tolerance (clause 4, ±1 %). A charge ended by time lasts its time
  * within the time tolerance.
  */

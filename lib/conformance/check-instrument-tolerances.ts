@@ -9,7 +9,7 @@ const pct = (x: number) => `${formatNumber(x, { maxDecimals: 3 })} %`;
 /**
  * Each instrument's stated accuracy meets the measurement tolerances the procedure holds (IEC
  * 61960-3 clause 4 by default: voltage ±1 %, current ±1 %, temperature ±2 °C, time ±0.1 %, all
- * sources of error included; REFERENCES.md §3, recalled for 61960-3, published via IEC 61951-2:2022
+ * sources of error included; docs/references.md §3, recalled for 61960-3, published via IEC 61951-2:2022
  * clause 4; held as parameters in protocols/measurement-tolerances.ts). A cycler channel is checked
  * at every set-point current and voltage of the run's charge and discharge steps; a thermometer or
  * climate chamber against the temperature tolerance. A run whose instruments do not meet them is flagged.

@@ -35,7 +35,7 @@ export function explainTooSlowForPulse(step: ResolvedPulseStep, columns: LogColu
 /**
  * The two levels of a DC resistance pulse lasted as programmed, and U1 and U2 were read at the end
  * of each level (IEC 61960-3 7.7: U1 at the end of the 10 s base level, U2 at the end of the 1 s pulse,
- * REFERENCES.md §4, recalled; the durations are the step's own set-points). The logged duration of a
+ * docs/references.md §4, recalled; the durations are the step's own set-points). The logged duration of a
  * level is from its first sample to its last plus one sample interval; the readings are taken at the
  * level's last sample (lib/analysis/internal-resistance.ts), so the instant of each reading is that
  * duration after the level began. Allowed: the time tolerance or one sample interval, whichever is larger.

@@ -101,7 +101,7 @@ function checkRatedCurrent(context: StepContext, current: RatedCurrent): Finding
  * Each current stays within the cell's rating: the maximum continuous discharge current for a
  * discharge or pulse, the maximum (else standard) charge current for a charge. Above it the step
  * may run only once its caution is acknowledged, and the result is then marked as beyond the
- * rating (common practice, REFERENCES.md §12; DESIGN.md §7). The programmed value is judged; the
+ * rating (common practice, docs/references.md §12; docs/design.md §7). The programmed value is judged; the
  * resolved one stands in when none was recorded.
  */
 export function checkRating(context: StepContext): Finding[] {

@@ -10,7 +10,7 @@ function nameStep(placed: PlacedStep): string {
 
 /**
  * A rest with a longest time (e.g. not more than 4 h after charge before the discharge, IEC 61960-3
- * 7.3.1, REFERENCES.md §2, held in the template as a recalled value) limits the whole window from the
+ * 7.3.1, docs/references.md §2, held in the template as a recalled value) limits the whole window from the
  * end of the step before it to the start of the step after it: pauses before and after the rest
  * count inside that window, explained or not. The window's end is the next step's start, or the
  * rest's own end when no step follows. Widened by the time tolerance like the rest itself.

@@ -145,7 +145,7 @@ function checkSetPoint(context: StepContext, setPoint: SetPoint): Finding {
 
 /**
  * Each programmed set-point equals the resolved one within its tolerance (IEC 61960-3 clause 4:
- * current and voltage ±1 %, time ±0.1 %, REFERENCES.md §3, unless the procedure sets its own); a
+ * current and voltage ±1 %, time ±0.1 %, docs/references.md §3, unless the procedure sets its own); a
  * programmed rest or soak time lies within the step's limits.
  */
 export function checkSetPoints(context: StepContext): Finding[] {

@@ -15,7 +15,7 @@ export interface RunVerdict {
   procedureFollowed: "yes" | "no" | "not decided";
   /** Does the specimen meet the requirement? Judged from the acceptance criteria alone. */
   specimenConforms: ConformityOutcome;
-  /** Some step ran outside the cell's rating; the results are marked so (REFERENCES.md §12). */
+  /** Some step ran outside the cell's rating; the results are marked so (docs/references.md §12). */
   beyondRating: boolean;
   reasons: string[];
 }

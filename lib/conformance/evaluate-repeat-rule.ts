@@ -85,7 +85,7 @@ function judge({ rule, cyclesRun, considered }: { rule: RepeatRule; cyclesRun: n
 
 /**
  * The repeat rule: the block runs up to maxCycles times and stops at the first cycle whose result
- * meets the named criterion (IEC 61960-3 7.3.1: up to five cycles, REFERENCES.md §2, held in the
+ * meets the named criterion (IEC 61960-3 7.3.1: up to five cycles, docs/references.md §2, held in the
  * template as a recalled value). The specimen meets the requirement when a cycle met it, fails when
  * every allowed cycle ran and none did, and is not decided when the block stopped too soon.
  */

@@ -1,4 +1,4 @@
-/** The three outcomes of one check (DESIGN.md §3). */
+/** The three outcomes of one check (docs/design.md §3). */
 export type FindingOutcome = "meets" | "deviates" | "not assessable";
 
 /** Stable codes of the checks; stored with the finding, so never rename one. */
@@ -49,7 +49,7 @@ export interface Finding {
   outcome: FindingOutcome;
   /** Where the requirement comes from: a standard's clause, the procedure, or "common practice". */
   clause: string;
-  /** Set on safety checks (DESIGN.md §7). */
+  /** Set on safety checks (docs/design.md §7). */
   severity?: "caution";
   /** The step ran outside the cell's rating (acknowledged or not); the result is marked so. */
   beyondRating?: boolean;

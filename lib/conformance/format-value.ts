@@ -61,5 +61,5 @@ export function citeProcedure(citation: string | null, subject: string): string 
   return citation === null ? `the procedure (${subject})` : `${citation} (${subject}, as set in the procedure)`;
 }
 
-/** Requirements of the trade with no single published source (REFERENCES.md §12). */
+/** Requirements of the trade with no single published source (docs/references.md §12). */
 export const commonPractice = "common practice";

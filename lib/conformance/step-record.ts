@@ -76,7 +76,7 @@ export const measuredValuesSchema = z.strictObject({
   acResistanceOhm: positive("the AC resistance").optional(),
 });
 
-/** What the operator recorded for one step of one cycle of a run (DESIGN.md §3, step record). */
+/** What the operator recorded for one step of one cycle of a run (docs/design.md §3, step record). */
 export const stepRecordSchema = z.strictObject({
   stepId: identifierSchema,
   /** Cycle of a repeated block, 1-based; 1 for a step outside the block. */

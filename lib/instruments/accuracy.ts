@@ -60,7 +60,7 @@ export const ACCURACY_UNITS: Record<AccuracyQuantity, string> = {
 
 /**
  * What each kind must state, and what else it may state. A cycler channel's current, voltage and
- * time enter the capacity and energy budgets (DESIGN.md §6); the rest measure one quantity each.
+ * time enter the capacity and energy budgets (docs/design.md §6); the rest measure one quantity each.
  */
 export const ACCURACY_BY_KIND: Record<InstrumentKind, { required: readonly AccuracyQuantity[]; optional: readonly AccuracyQuantity[] }> = {
   "cycler-channel": { required: ["current", "voltage", "time"], optional: ["temperature"] },

@@ -9,7 +9,7 @@ import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 
 /**
  * What every review decision needs: an engineer, a run that is waiting for review, and a reviewer who
- * took no part in it: started, recorded, uploaded or submitted (DESIGN.md §2; the database refuses that too). `forUpdate` locks the run, so two
+ * took no part in it: started, recorded, uploaded or submitted (docs/design.md §2; the database refuses that too). `forUpdate` locks the run, so two
  * reviewers deciding at once are taken one after the other.
  */
 export async function loadRunForReview(tx: Executor, actor: SignedInUser, runId: string, opts: { forUpdate?: boolean } = {}): Promise<RunView> {

@@ -1,6 +1,6 @@
 import type { RunStatus } from "@/db/schema";
 
-/** Run states in the lab's words (DESIGN.md §3), with a mark that only supports the words. */
+/** Run states in the lab's words (docs/design.md §3), with a mark that only supports the words. */
 export const RUN_STATUS_WORDS: Record<RunStatus, { words: string; mark: string }> = {
   planned: { words: "planned", mark: "○" },
   in_progress: { words: "in progress", mark: "◐" },

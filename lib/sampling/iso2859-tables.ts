@@ -5,7 +5,7 @@
  *
  * Where these values come from, honestly:
  * - They were written from memory of the public tables, not copied from the standard's text.
- * - Checked against REFERENCES.md §10 (published values): the level II column of Table 1 for all
+ * - Checked against docs/references.md §10 (published values): the level II column of Table 1 for all
  *   15 lot-size ranges, the sample sizes of code letters A to Q, and the Table 2-A cells H 1.0,
  *   H 0.65 (arrow down), J 0.65, G 0.65 (arrow up), F 0.65, E 1.0 and L 1.0.
  * - Recalled from memory: the other six columns of Table 1, the sample size of R (2 000) and every

@@ -1,4 +1,4 @@
-/** The words that mark a template value recalled from memory (REFERENCES.md mark [memory]). */
+/** The words that mark a template value recalled from memory (docs/references.md mark [memory]). */
 export const recalledMark = 'recalled, verify against the standard';
 
 /** A note on a value recalled, not checked against the standard's text. */

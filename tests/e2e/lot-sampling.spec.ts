@@ -27,7 +27,7 @@ test("an engineer registers a lot, sets its plan, draws the sample and registers
   await planForm.getByLabel("Inspection level").selectOption({ label: "General II (the usual level)" });
   await planForm.getByLabel("AQL (% nonconforming)").selectOption("1.0");
   await planForm.getByRole("button", { name: "Set the plan" }).click();
-  // REFERENCES.md §10 [published]: lot 51–90 at AQL 1.0 → E, n = 13, Ac 0, Re 1.
+  // docs/references.md §10 [published]: lot 51–90 at AQL 1.0 → E, n = 13, Ac 0, Re 1.
   await expect(page.getByTestId("code-letter")).toHaveText("E");
   await expect(page.getByTestId("sample-size")).toHaveText("13 cells");
   await expect(page.getByTestId("acceptance-number")).toHaveText("0");
@@ -79,7 +79,7 @@ test("the sampling plan API answers a plan, and 422 naming the field for an impo
   });
   const ok = await api.post("/api/sampling-plan", { data: { lotSize: 400, inspectionLevel: "II", aql: "0.65" } });
   expect(ok.status()).toBe(200);
-  // REFERENCES.md §10 [published]: lot 281–500 at AQL 0.65 → arrow down to J, n = 80, Ac 1, Re 2.
+  // docs/references.md §10 [published]: lot 281–500 at AQL 0.65 → arrow down to J, n = 80, Ac 1, Re 2.
   expect((await ok.json()).plan).toMatchObject({ initialCodeLetter: "H", codeLetter: "J", sampleSize: 80, acceptanceNumber: 1, rejectionNumber: 2 });
 
   const badAql = await api.post("/api/sampling-plan", { data: { lotSize: 400, inspectionLevel: "II", aql: 0.7 } });

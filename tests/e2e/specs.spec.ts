@@ -19,7 +19,7 @@ test("an engineer registers a cell, sees its IEC 61960 designation, and attaches
   await form.getByLabel("End-of-discharge voltage (V)", { exact: true }).fill("2.5");
   await form.getByLabel("Maximum diameter (cylindrical) (mm), optional", { exact: true }).fill("21.4");
   await form.getByLabel("Maximum height (mm)", { exact: true }).fill("70.3");
-  // IEC 61960 5.1 rounds the maximum dimensions up: Ø 21.4 × 70.3 → 22/71 (REFERENCES.md §11).
+  // IEC 61960 5.1 rounds the maximum dimensions up: Ø 21.4 × 70.3 → 22/71 (docs/references.md §11).
   await expect(form.getByTestId("designation")).toHaveText("INR22/71");
 
   // Bad input first: an end-of-discharge voltage above the nominal voltage is refused next to its field.
@@ -31,7 +31,7 @@ test("an engineer registers a cell, sees its IEC 61960 designation, and attaches
 
   await expect(page.getByRole("heading", { name: `Quillon Test Cells ${model}` })).toBeVisible();
   await expect(page.getByText(/Designation INR22\/71/)).toBeVisible();
-  // It = 5 000 mAh / 1 h = 5 A and 0.2 It = 1.0 A (IEC 61434; REFERENCES.md §1 table).
+  // It = 5 000 mAh / 1 h = 5 A and 0.2 It = 1.0 A (IEC 61434; docs/references.md §1 table).
   await expect(page.getByTestId("it")).toHaveText("5 A");
   await expect(page.getByTestId("it-0.2")).toHaveText("1 A");
 

@@ -70,7 +70,7 @@ async function setUpLab() {
         .returning("id")
         .executeTakeFirstOrThrow()
     ).id;
-  // REFERENCES.md §6 Example B accuracy, so the evaluation carries an uncertainty budget.
+  // docs/references.md §6 Example B accuracy, so the evaluation carries an uncertainty budget.
   const channel = await register("cycler-channel", "CH-C1", {
     current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
     voltage: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },

@@ -137,7 +137,7 @@ describe("lot sampling plans", () => {
     const l = await lab();
     const lot = await makeLot(60);
     const plan = await setLotSamplingPlan(l.engineer, lot.id, { inspectionLevel: "II", aql: "1.0", acceptanceProcedureId: l.rated.procedureId });
-    // REFERENCES.md §10 [published]: lot 51–90 at AQL 1.0 → E, n = 13, Ac 0, Re 1.
+    // docs/references.md §10 [published]: lot 51–90 at AQL 1.0 → E, n = 13, Ac 0, Re 1.
     expect(plan).toMatchObject({ lotSize: 60, codeLetter: "E", sampleSize: 13, acceptanceNumber: 0, rejectionNumber: 1, hundredPercent: false });
     const stored = await planColumns(lot.id);
     expect(stored).toMatchObject({ inspection_level: "II", aql: "1.0", severity: "normal", acceptance_procedure_id: l.rated.procedureId, plan_set_by: l.engineer.id });

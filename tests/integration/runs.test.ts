@@ -43,7 +43,7 @@ async function setUpLab(tag: string) {
       .returning("id")
       .executeTakeFirstOrThrow()
   ).id;
-  // REFERENCES.md §6 Example B: ±(0.05 % of reading + 0.05 % of the 5 A range), time base 100 ppm.
+  // docs/references.md §6 Example B: ±(0.05 % of reading + 0.05 % of the 5 A range), time base 100 ppm.
   const exampleB = await instrument(`CH-B-${tag}`, "2027-01-10", {
     current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
     voltage: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
@@ -183,7 +183,7 @@ describe("runs", () => {
     expect(row.procedure_version_id).toBe(v2);
   });
 
-  it("budgets the discharge capacity from the register's accuracy of the run's cycler channel (REFERENCES.md §6 Example B)", async () => {
+  it("budgets the discharge capacity from the register's accuracy of the run's cycler channel (docs/references.md §6 Example B)", async () => {
     const lab = await setUpLab("E");
     const run = await startRun(lab.operator, { procedureVersionId: lab.versionId, specimenId: lab.specimen, instrumentIds: [lab.exampleB] }, TODAY);
     const built = buildRatedCapacityRun({ sampleIntervalS: 10 });
@@ -210,7 +210,7 @@ describe("runs", () => {
     expect(budget.rows[2]!.quantity).toBe("end voltage");
     expect(budget.rows[0]!.relativeStandardUncertainty).toBeCloseTo(urI, 12);
     expect(budget.rows[1]!.relativeStandardUncertainty).toBeCloseTo(urT, 12);
-    // …which at 0.6 A is the published U = 0.539 % (REFERENCES.md §6 Example B) for current and time alone;
+    // …which at 0.6 A is the published U = 0.539 % (docs/references.md §6 Example B) for current and time alone;
     // the further terms add in quadrature.
     expect(Math.abs(2 * Math.hypot(urI, urT) * 100 - 0.539)).toBeLessThanOrEqual(0.0005);
     expect(budget.relativeExpandedUncertainty).toBeCloseTo(2 * Math.hypot(...budget.rows.map((row) => row.relativeContribution)), 12);

@@ -3,14 +3,14 @@ import { computeAcResistance, computeDcResistance, evaluateDcResistancePulse } f
 import type { LogColumns } from "@/lib/analysis/log-columns";
 
 describe("internal resistance", () => {
-  // Source: REFERENCES.md §4, IEC 61960-3 7.7 DC method [memory, high confidence]: Rdc = (U1 − U2)/(I2 − I1),
+  // Source: docs/references.md §4, IEC 61960-3 7.7 DC method [memory, high confidence]: Rdc = (U1 − U2)/(I2 − I1),
   // I1 = 0.2 It = 0.6 A, I2 = 1.0 It = 3.0 A for Cn = 3.0 Ah (discharge; negative in our sign convention).
   it("DC: U1 = 3.9000 V at 0.6 A, U2 = 3.8520 V at 3.0 A gives 20.0 mΩ", () => {
     const result = computeDcResistance({ u1V: 3.9, i1A: -0.6, u2V: 3.852, i2A: -3.0 });
     expect(result.ok && result.value).toBeCloseTo(0.02, 12);
   });
 
-  // Source: REFERENCES.md §4 DC check [memory, high confidence], read from a log slice: 10 s base, 1 s pulse at 0.1 s sampling.
+  // Source: docs/references.md §4 DC check [memory, high confidence], read from a log slice: 10 s base, 1 s pulse at 0.1 s sampling.
   it("DC: the same readings found at the end of each level in a log give 20.0 mΩ", () => {
     const timeS: number[] = [];
     const voltageV: number[] = [];
@@ -39,7 +39,7 @@ describe("internal resistance", () => {
     expect(result.value.resistanceOhm).toBeCloseTo(0.02, 12);
   });
 
-  // Source: REFERENCES.md §4, IEC 61960-3 7.7 AC method [memory]: Rac = Ua / Ia.
+  // Source: docs/references.md §4, IEC 61960-3 7.7 AC method [memory]: Rac = Ua / Ia.
   it("AC: 1.8 mV rms at 0.1 A rms gives 18.0 mΩ", () => {
     const result = computeAcResistance({ voltageRmsV: 0.0018, currentRmsA: 0.1 });
     expect(result.ok && result.value).toBeCloseTo(0.018, 12);

@@ -14,7 +14,7 @@ function createColumns(timeS: number[] | Float64Array, voltageV: number[] | Floa
 }
 
 describe("capacity and energy by the trapezoid rule", () => {
-  // Source: REFERENCES.md §5, first example — definitions Q = ∫|I| dt, E = ∫V·|I| dt, mean V = E/Q (exact arithmetic).
+  // Source: docs/references.md §5, first example — definitions Q = ∫|I| dt, E = ∫V·|I| dt, mean V = E/Q (exact arithmetic).
   it("0.6 A with V falling linearly 4.10 V → 2.75 V over 5.1 h, 1 s samples: 3.060 Ah, 10.4805 Wh, 3.425 V", () => {
     const seconds = 5.1 * 3600;
     const timeS = Float64Array.from({ length: seconds + 1 }, (_, i) => i);
@@ -29,7 +29,7 @@ describe("capacity and energy by the trapezoid rule", () => {
     expect(result.value.durationS).toBe(18_360);
   });
 
-  // Source: REFERENCES.md §5, first example again, through segmentation and step results (same definitions).
+  // Source: docs/references.md §5, first example again, through segmentation and step results (same definitions).
   it("the same log segmented gives one discharge step of 3 060 mAh", () => {
     const seconds = 5.1 * 3600;
     const timeS = Float64Array.from({ length: seconds + 1 }, (_, i) => i);
@@ -45,7 +45,7 @@ describe("capacity and energy by the trapezoid rule", () => {
     expect(step.value.constantCurrent?.meanA).toBeCloseTo(0.6, 12);
   });
 
-  // Source: REFERENCES.md §5, second example — trapezoid over hourly samples (definition, exact arithmetic).
+  // Source: docs/references.md §5, second example — trapezoid over hourly samples (definition, exact arithmetic).
   it("0.6 A sampled hourly at 4.10, 3.90, 3.75, 3.65, 3.50, 3.00 V: 3.000 Ah, 11.010 Wh, 3.670 V", () => {
     const columns = createColumns([0, 1, 2, 3, 4, 5].map((h) => h * 3600), [4.1, 3.9, 3.75, 3.65, 3.5, 3.0], -0.6);
     const result = integrate(columns, { from: 0, to: 5 });

@@ -12,7 +12,7 @@ import { buildRunCertificatePayload } from "@/lib/certificates/build-run-payload
 import { buildFixturePayload, buildFixtureRecords } from "../unit/certificates/fixture-payload";
 import { buildLotFixturePayload } from "../unit/certificates/fixture-lot-payload";
 
-// What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as REFERENCES.md §8
+// What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as docs/references.md §8
 // lists them [published]. The text is read back with Debian's pdftotext (poppler-utils), page by page.
 const dir = mkdtempSync(join(tmpdir(), "cellwright-certificate-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -127,7 +127,7 @@ describe("certificate contents (ISO/IEC 17025:2017 7.8.2.1, 7.8.3.1, 7.8.8)", as
 });
 
 // A lot certificate adds the sampling plan (7.8.2.1 k) and the lot decision. The plan of a lot of 60
-// at general inspection level II, AQL 1.0, is code letter E, n = 13, Ac 0, Re 1: REFERENCES.md §10
+// at general inspection level II, AQL 1.0, is code letter E, n = 13, Ac 0, Re 1: docs/references.md §10
 // [published: ISO 2859-1 Table 1 and Table 2-A].
 describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling plan; ISO 2859-1)", async () => {
   const accepted = await renderPages(buildLotFixturePayload(), [], "lot");
@@ -188,7 +188,7 @@ describe("lot certificate contents (ISO/IEC 17025:2017 7.8.2.1 with the sampling
 
 // Issue 12, 7: a certificate states only what happened. Dates of testing (ISO/IEC 17025:2017 7.8.2.1 i [published])
 // from the data log's own time span, with the step sheet's beside it where they differ; the set-point current of each
-// measured step in A and as a multiple of It (It = Cn / 1 h, IEC 61434 [published], REFERENCES.md §1); one timestamp
+// measured step in A and as a multiple of It (It = Cn / 1 h, IEC 61434 [published], docs/references.md §1); one timestamp
 // form, ISO 8601 with its zone.
 describe("certificate contents: what happened (issue 12, 7a, 7b, 7e)", async () => {
   const { records, curves } = buildFixtureRecords();

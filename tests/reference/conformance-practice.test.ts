@@ -10,7 +10,7 @@ const procedure: Procedure = {
     code: "TEST-PRACTICE",
     scope: "Checks of the conformance rules against the trade's common practice.",
     standard: "common practice",
-    clause: "REFERENCES.md §12",
+    clause: "docs/references.md §12",
     ambient: { minC: 20, maxC: 25 },
   },
   steps: [
@@ -43,14 +43,14 @@ const rest = (minutes: number, celsius = 22): StepRecordInput => ({
 });
 const discharge = (currentA: number): StepRecordInput => ({ stepId: "discharge", completed: true, programmed: { current: currentA, endVoltage: 2.5 } });
 
-describe("conformance against common practice (REFERENCES.md §1, §12)", () => {
+describe("conformance against common practice (docs/references.md §1, §12)", () => {
   it.each([
     [3000, 0.6],
     [2500, 0.5],
     [2000, 0.4],
     [5000, 1.0],
   ])("0.2 It of a %s mAh cell is %s A, and the programmed discharge is judged against it", (ratedCapacityMah, amperes) => {
-    // common practice: the capacity discharge runs at 0.2 It; It = Cn / 1 h from IEC 61434 [published] (REFERENCES.md §1 table).
+    // common practice: the capacity discharge runs at 0.2 It; It = Cn / 1 h from IEC 61434 [published] (docs/references.md §1 table).
     const cell = { ...inventedCell, ratedCapacityMah, minimumCapacityMah: ratedCapacityMah * 0.95 };
     const on = findingOf(findingsOf({ cell, records: [rest(60), discharge(amperes)] }), "discharge#1/set-point-matches/current");
     expect(on.expected.value).toBeCloseTo(amperes, 12);
@@ -60,7 +60,7 @@ describe("conformance against common practice (REFERENCES.md §1, §12)", () => 
   });
 
   it("a discharge above the datasheet's maximum continuous current gets a caution finding", () => {
-    // common practice (REFERENCES.md §12): above the maximum continuous current only with acknowledgement, and marked so.
+    // common practice (docs/references.md §12): above the maximum continuous current only with acknowledgement, and marked so.
     const cell = { ...inventedCell, maxContinuousDischargeCurrentA: 0.5 };
     const finding = findingOf(findingsOf({ cell, records: [rest(60), discharge(0.6)] }), "discharge#1/current-within-rating/current");
     expect(finding).toMatchObject({ severity: "caution", outcome: "deviates", beyondRating: true });
@@ -69,7 +69,7 @@ describe("conformance against common practice (REFERENCES.md §1, §12)", () => 
   });
 
   it("a rest shorter than 1 h deviates", () => {
-    // common practice (REFERENCES.md §12): rest at least 1 h after charge; the 1 h is the procedure's parameter.
+    // common practice (docs/references.md §12): rest at least 1 h after charge; the 1 h is the procedure's parameter.
     expect(findingOf(findingsOf({ records: [rest(59), discharge(0.6)] }), "rest#1/duration-within-limits").outcome).toBe("deviates");
     expect(findingOf(findingsOf({ records: [rest(60), discharge(0.6)] }), "rest#1/duration-within-limits").outcome).toBe("meets");
   });
@@ -81,7 +81,7 @@ describe("conformance against common practice (REFERENCES.md §1, §12)", () => 
     [25, "meets"],
     [25.5, "deviates"],
   ])("an ambient reading of %s °C against 20–25 °C %s", (celsius, outcome) => {
-    // common practice (REFERENCES.md §12): ambient 20–25 °C; the range is the procedure's parameter.
+    // common practice (docs/references.md §12): ambient 20–25 °C; the range is the procedure's parameter.
     expect(findingOf(findingsOf({ records: [rest(60, celsius), discharge(0.6)] }), "rest#1/ambient-in-range").outcome).toBe(outcome);
   });
 });

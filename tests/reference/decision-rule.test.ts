@@ -6,7 +6,7 @@ import { evaluateConformity, type DecisionRule } from "@/lib/conformance/decisio
 // copy of the guide, pages 9–10]: 4.2.1 binary statement for simple acceptance (w = 0, pass / fail),
 // 4.2.2 binary statement with guard band (AL = TL moved inward by w, pass / fail), 4.2.3 non-binary
 // statement with guard band (pass / conditional pass / conditional fail / fail). Here w = U (k = 2).
-// Worked table: REFERENCES.md §7, TL = 3.000 Ah (lower limit, 100 % of rated), U = 1.1605 % of the measured
+// Worked table: docs/references.md §7, TL = 3.000 Ah (lower limit, 100 % of rated), U = 1.1605 % of the measured
 // value (Example A of §6, JCGM 100 arithmetic). Our words: "conforms" for the guide's pass, "does not
 // conform" for its fail.
 const U_RELATIVE = 0.011605;
@@ -27,14 +27,14 @@ function outcomeOf(result: ReturnType<typeof decide>): string {
   return result.value.outcome;
 }
 
-describe("ILAC-G8:09/2019 4.2 decision rules for a lower limit (REFERENCES.md §7 worked table)", () => {
+describe("ILAC-G8:09/2019 4.2 decision rules for a lower limit (docs/references.md §7 worked table)", () => {
   it.each(table)("%s Ah: 4.2.1 simple %s; 4.2.2 binary w = U %s; 4.2.3 non-binary %s", (measured, simple, binary, nonBinary) => {
     expect(outcomeOf(decide(measured, "simple acceptance"))).toBe(simple);
     expect(outcomeOf(decide(measured, "binary guard band"))).toBe(binary);
     expect(outcomeOf(decide(measured, "non-binary guard band"))).toBe(nonBinary);
   });
 
-  // The same table with U taken from the Example A budget itself (REFERENCES.md §6: 1.1605 %, made at each measured Q).
+  // The same table with U taken from the Example A budget itself (docs/references.md §6: 1.1605 %, made at each measured Q).
   it.each(table)("%s Ah with U from the Example A budget: %s / %s / %s", (measured, simple, binary, nonBinary) => {
     const budget = evaluateCapacityUncertainty({
       capacityAh: measured,

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { computeDesignation, roundUpToWholeMm, writeDimension } from '@/protocols';
 
-// REFERENCES.md §11: IEC 61960 clause 5.1 designation [published]: I = lithium ion, N = nickel
+// docs/references.md §11: IEC 61960 clause 5.1 designation [published]: I = lithium ion, N = nickel
 // positive electrode, R = cylindrical, P = prismatic; maximum dimensions rounded up to whole mm.
-describe('IEC 61960 cell designation (REFERENCES.md §11) [published]', () => {
+describe('IEC 61960 cell designation (docs/references.md §11) [published]', () => {
   it('Ø 21.4 mm × 70.3 mm, nickel positive → INR22/71 — IEC 61960 clause 5.1 [published]', () => {
     expect(
       computeDesignation({
@@ -53,7 +53,7 @@ describe('IEC 61960 cell designation (REFERENCES.md §11) [published]', () => {
 // decision on cell designations under IEC 62133 [published; text seen in a public copy, the decision sheet's number not
 // confirmed: see docs/references.md]. Dimensions below 1 mm in tenths with a leading "t" — IEC 61960 clause 5.1
 // [published, via a public copy of the clause: ICPt73448 is a prismatic cobalt cell 0.7 mm thick].
-describe('further positive-electrode letters and the tN form (REFERENCES.md §11)', () => {
+describe('further positive-electrode letters and the tN form (docs/references.md §11)', () => {
   it.each([
     ['F', 'IFR19/66'],
     ['Fp', 'IFpR19/66'],

@@ -12,7 +12,7 @@ function amperes(multipleOfIt: number, ratedCapacityMah: number): number {
   return result.resolved.value;
 }
 
-// REFERENCES.md §1: IEC 61434:1996, It A = Cn Ah / 1 h [published]. Columns: 0.2 It, 0.5 It, 1 It,
+// docs/references.md §1: IEC 61434:1996, It A = Cn Ah / 1 h [published]. Columns: 0.2 It, 0.5 It, 1 It,
 // 1/3 It, C/20 (= 0.05 It). Values with four decimals in the table are rounded there.
 const itTable: Array<{ cnAh: number; currents: [number, number, number, number, number] }> = [
   { cnAh: 2.5, currents: [0.5, 1.25, 2.5, 0.8333, 0.125] },
@@ -22,7 +22,7 @@ const itTable: Array<{ cnAh: number; currents: [number, number, number, number, 
 ];
 const multiples = [0.2, 0.5, 1, 1 / 3, 1 / 20];
 
-describe('reference test current It (IEC 61434:1996, REFERENCES.md §1) [published]', () => {
+describe('reference test current It (IEC 61434:1996, docs/references.md §1) [published]', () => {
   for (const row of itTable) {
     it(`Cn = ${row.cnAh} Ah: It = ${row.cnAh} A — IEC 61434 [published]`, () => {
       expect(computeItAmperes(row.cnAh * 1000)).toBe(row.cnAh);
@@ -39,12 +39,12 @@ describe('reference test current It (IEC 61434:1996, REFERENCES.md §1) [publish
     });
   }
 
-  it('0.2 It of 3 000 mAh is 0.6 A, and the trace says so — DESIGN.md §6, IEC 61434 [published]', () => {
+  it('0.2 It of 3 000 mAh is 0.6 A, and the trace says so — docs/design.md §6, IEC 61434 [published]', () => {
     const result = resolveCurrent({ multipleOfIt: 0.2 }, cellRated(3000));
     expect(result.ok && result.resolved.explanation).toBe('0.2 × It = 0.6 A from rated 3 000 mAh');
   });
 
-  it('0.2 It A of a 5 000 mAh cell is 1.0 A — DESIGN.md §3, IEC 61434 [published]', () => {
+  it('0.2 It A of a 5 000 mAh cell is 1.0 A — docs/design.md §3, IEC 61434 [published]', () => {
     expect(amperes(0.2, 5000)).toBe(1);
   });
 

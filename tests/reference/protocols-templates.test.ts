@@ -42,7 +42,7 @@ function expectRecalledNote(procedure: Procedure, words: RegExp): void {
   expect(notes.some((note) => words.test(note) && note.includes(recalledMark))).toBe(true);
 }
 
-describe('rated capacity template vs IEC 61960-3:2017 7.2 and 7.3.1 (REFERENCES.md §2)', () => {
+describe('rated capacity template vs IEC 61960-3:2017 7.2 and 7.3.1 (docs/references.md §2)', () => {
   const procedure = templateOf('rated-capacity-20c');
   const resolution = resolutionOf(procedure);
 
@@ -108,7 +108,7 @@ describe('rated capacity template vs IEC 61960-3:2017 7.2 and 7.3.1 (REFERENCES.
   });
 });
 
-describe('rate capability template (REFERENCES.md §2, §12)', () => {
+describe('rate capability template (docs/references.md §2, §12)', () => {
   const procedure = templateOf('rate-capability');
   const resolution = resolutionOf(procedure);
 
@@ -119,7 +119,7 @@ describe('rate capability template (REFERENCES.md §2, §12)', () => {
     expect(currents).toEqual([0.6, 1.5, 3, 15]);
   });
 
-  it('a standard charge and a rest of at least 1 h before each discharge — [practice] (REFERENCES.md §12)', () => {
+  it('a standard charge and a rest of at least 1 h before each discharge — [practice] (docs/references.md §12)', () => {
     const kinds = procedure.steps.map((step) => step.kind);
     procedure.steps.forEach((step, index) => {
       if (step.kind !== 'discharge' || step.purpose !== 'measure') return;
@@ -130,7 +130,7 @@ describe('rate capability template (REFERENCES.md §2, §12)', () => {
   });
 });
 
-describe('DC resistance template vs IEC 61960-3 7.7 (REFERENCES.md §4)', () => {
+describe('DC resistance template vs IEC 61960-3 7.7 (docs/references.md §4)', () => {
   const procedure = templateOf('dc-resistance');
   const resolution = resolutionOf(procedure);
   const pulse = resolvedStepOf(resolution, 'pulse');
@@ -146,7 +146,7 @@ describe('DC resistance template vs IEC 61960-3 7.7 (REFERENCES.md §4)', () => 
     expectRecalledNote(procedure, /0\.2 It A for 10 s then 1 It A for 1 s/);
   });
 
-  it('with these currents, U1 = 3.9000 V and U2 = 3.8520 V give Rdc = 20.0 mΩ — REFERENCES.md §4 check [memory; arithmetic]', () => {
+  it('with these currents, U1 = 3.9000 V and U2 = 3.8520 V give Rdc = 20.0 mΩ — docs/references.md §4 check [memory; arithmetic]', () => {
     if (pulse.kind !== 'pulse' || !pulse.baseCurrent || !pulse.pulseCurrent) throw new Error('pulse must resolve');
     // Rdc = (U1 − U2) / (I2 − I1), IEC 61960-3 7.7.
     const resistanceOhm = (3.9 - 3.852) / (pulse.pulseCurrent.value - pulse.baseCurrent.value);
@@ -154,7 +154,7 @@ describe('DC resistance template vs IEC 61960-3 7.7 (REFERENCES.md §4)', () => 
   });
 });
 
-describe('AC resistance template vs IEC 61960-3 7.7 (REFERENCES.md §4)', () => {
+describe('AC resistance template vs IEC 61960-3 7.7 (docs/references.md §4)', () => {
   const procedure = templateOf('ac-resistance');
 
   it('measures at 1.0 kHz — [memory], noted as recalled', () => {
@@ -167,7 +167,7 @@ describe('AC resistance template vs IEC 61960-3 7.7 (REFERENCES.md §4)', () => 
   });
 });
 
-describe('other clauses of IEC 61960-3 (REFERENCES.md §2, last item) [memory]', () => {
+describe('other clauses of IEC 61960-3 (docs/references.md §2, last item) [memory]', () => {
   it('−20 °C discharge: capacity ≥ 30 % of rated — [memory], noted as recalled', () => {
     const procedure = templateOf('discharge-at-minus-20c');
     expect(procedure.acceptance).toEqual([
@@ -189,7 +189,7 @@ describe('other clauses of IEC 61960-3 (REFERENCES.md §2, last item) [memory]',
   });
 });
 
-describe('measurement tolerances (REFERENCES.md §3)', () => {
+describe('measurement tolerances (docs/references.md §3)', () => {
   it('voltage ±1 %, current ±1 %, temperature ±2 °C, time ±0.1 %, dimensions ±0.1 mm, capacity ±1 % — [published via IEC 61951-2:2022 clause 4; memory for 61960-3]', () => {
     expect(clauseFourTolerances).toEqual({
       voltagePercent: 1,

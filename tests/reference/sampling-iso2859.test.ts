@@ -7,7 +7,7 @@ function plan(lotSize: number, aql: number, inspectionLevel: InspectionLevel = "
   return result.plan;
 }
 
-// Source: REFERENCES.md §10 [published]: ISO 2859-1 Table 1 and Table 2-A, general inspection level II,
+// Source: docs/references.md §10 [published]: ISO 2859-1 Table 1 and Table 2-A, general inspection level II,
 // normal inspection (the same tables in ANSI/ASQ Z1.4 and MIL-STD-105E). Both ends of every range.
 const levelTwo: [from: number, to: number | null, codeLetter: CodeLetter, n: number][] = [
   [2, 8, "A", 2],
@@ -27,18 +27,18 @@ const levelTwo: [from: number, to: number | null, codeLetter: CodeLetter, n: num
   [500001, null, "Q", 1250],
 ];
 
-describe("Table 1 at general inspection level II (REFERENCES.md §10, published)", () => {
+describe("Table 1 at general inspection level II (docs/references.md §10, published)", () => {
   it.each(levelTwo)("lot %s to %s → code letter %s", (from, to, codeLetter) => {
     for (const lotSize of [from, to ?? 2_000_000]) expect(plan(lotSize, 1.0).initialCodeLetter).toBe(codeLetter);
   });
 
-  // Source: REFERENCES.md §10 [published]: the sample size n of each code letter (Table 2-A's first column).
+  // Source: docs/references.md §10 [published]: the sample size n of each code letter (Table 2-A's first column).
   it.each(levelTwo)("lot %s to %s: code letter %s has n = %s", (_from, _to, codeLetter, n) => {
     expect(table2aSampleSizes[codeLetter]).toBe(n);
   });
 });
 
-describe("Table 2-A plans (REFERENCES.md §10, published)", () => {
+describe("Table 2-A plans (docs/references.md §10, published)", () => {
   it("lot 281–500 at AQL 1.0 → H, n = 50, Ac 1, Re 2", () => {
     for (const lotSize of [281, 400, 500]) {
       expect(plan(lotSize, 1.0)).toMatchObject({ codeLetter: "H", arrow: "none", sampleSize: 50, acceptanceNumber: 1, rejectionNumber: 2 });
@@ -63,7 +63,7 @@ describe("Table 2-A plans (REFERENCES.md §10, published)", () => {
     expect(plan(5000, 1.0)).toMatchObject({ codeLetter: "L", arrow: "none", sampleSize: 200, acceptanceNumber: 5, rejectionNumber: 6 });
   });
 
-  // The rule is published (REFERENCES.md §10: "if the sample size reaches the lot size, inspect 100 %");
+  // The rule is published (docs/references.md §10: "if the sample size reaches the lot size, inspect 100 %");
   // the path B ↓ C ↓ D ↓ E ↓ F at AQL 0.65 is recalled from memory, F 0.65 (n = 20, Ac 0, Re 1) is published.
   it("a lot of 12 at AQL 0.65 reaches n = 20 ≥ 12 → inspect all 12", () => {
     const result = plan(12, 0.65);

@@ -4,7 +4,7 @@ import { describeDischargeEnd, evaluateCapacityUncertainty, extendCapacityBudget
 // Issue 12, 2: the capacity budget's further terms, each checked against a hand calculation from JCGM 100:2008
 // [published]: rectangular a → a/√3 (4.3.7), resolution δ → half-width δ/2 (F.2.2.1), experimental standard
 // deviation s(q_k) with n − 1 (4.2.2), sensitivity coefficients (5.1.3), combination in quadrature (5.1.2, 5.1.6),
-// k = 2 (6.2.1). Base budget: REFERENCES.md §6 Example A (I = 0.600 A, t = 5.10 h, Q = 3.060 Ah, clause-4 limits
+// k = 2 (6.2.1). Base budget: docs/references.md §6 Example A (I = 0.600 A, t = 5.10 h, Q = 3.060 Ah, clause-4 limits
 // ±1 % current, ±0.1 % time; IEC 61960-3 clause 4 as recalled, published via IEC 61951-2:2022 clause 4).
 function exampleA() {
   const made = evaluateCapacityUncertainty({
@@ -21,7 +21,7 @@ function exampleA() {
 }
 
 describe("capacity budget terms (JCGM 100:2008; issue 12, 2)", () => {
-  it("Example A alone: U = 1.1605 % (REFERENCES.md §6) [published arithmetic]", () => {
+  it("Example A alone: U = 1.1605 % (docs/references.md §6) [published arithmetic]", () => {
     expect(exampleA().relativeExpandedUncertainty * 100).toBeCloseTo(1.1605, 4);
   });
 

@@ -10,12 +10,12 @@ import {
 } from "@/lib/analysis/uncertainty";
 import { evaluateStepUncertainties, type RunInstrument } from "@/lib/conformance";
 
-/** Percent values given to a number of decimals in REFERENCES.md are checked to half a unit of the last digit. */
+/** Percent values given to a number of decimals in docs/references.md are checked to half a unit of the last digit. */
 function expectPercent(fraction: number, percent: number, decimals: number) {
   expect(Math.abs(fraction * 100 - percent)).toBeLessThanOrEqual(0.5 * 10 ** -decimals);
 }
 
-// Source: IEC 61960-3 clause 4 limits via IEC 61951-2:2022 clause 4 (REFERENCES.md §3) [published via 61951-2; memory for
+// Source: IEC 61960-3 clause 4 limits via IEC 61951-2:2022 clause 4 (docs/references.md §3) [published via 61951-2; memory for
 // 61960-3 itself]: current ±1 %, voltage ±1 %, time ±0.1 %. Given here as test inputs, never as constants of the code.
 const clause4: UncertaintySource[] = [
   { quantity: "current", source: "current measurement", tolerance: { form: "percent-of-reading", percent: 1 } },
@@ -31,7 +31,7 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
     expect(computeStandardUncertainty(0.03)).toBeCloseTo(0.03 / Math.sqrt(3), 15);
   });
 
-  // Source: REFERENCES.md §6 Example A; GUM 5.1.6 product rule, 4.3.7 rectangular, 6.2.1 / 6.3.3 k = 2 [published].
+  // Source: docs/references.md §6 Example A; GUM 5.1.6 product rule, 4.3.7 rectangular, 6.2.1 / 6.3.3 k = 2 [published].
   it("Example A: 0.600 A for 5.10 h with clause-4 limits gives U = 1.1605 % = ±0.0355 Ah", () => {
     const result = evaluateCapacityUncertainty({ capacityAh: 3.06, currentA: 0.6, durationS: 5.1 * 3600, sources: withoutVoltage });
     expect(result.ok).toBe(true);
@@ -47,7 +47,7 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
     expect(result.value.expandedUncertainty).toBeCloseTo(0.0355, 4);
   });
 
-  // Source: REFERENCES.md §6 Example B (instrument ±(0.05 % rdg + 0.05 % of 5 A range), time base 100 ppm); GUM as above.
+  // Source: docs/references.md §6 Example B (instrument ±(0.05 % rdg + 0.05 % of 5 A range), time base 100 ppm); GUM as above.
   it("Example B: a(I) = 0.0028 A, u_r(I) = 0.2694 %, u_r(Q) = 0.2695 %, U = 0.539 % = ±0.0165 Ah", () => {
     const current = { form: "percent-of-reading-and-range", percentOfReading: 0.05, percentOfRange: 0.05, range: 5 } as const;
     expect(computeHalfWidth(current, 0.6)).toBeCloseTo(0.0028, 15);
@@ -69,7 +69,7 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
     expect(result.value.expandedUncertainty).toBeCloseTo(0.0165, 4);
   });
 
-  // Source: REFERENCES.md §6 energy case: u_r(E) = √(0.577² + 0.577² + 0.0577²) = 0.8185 %, U = 1.637 % (GUM 5.1.6).
+  // Source: docs/references.md §6 energy case: u_r(E) = √(0.577² + 0.577² + 0.0577²) = 0.8185 %, U = 1.637 % (GUM 5.1.6).
   it("energy with clause-4 limits: u_r(E) = 0.8185 %, U = 1.637 %", () => {
     const result = evaluateEnergyUncertainty({ energyWh: 10.4805, meanVoltageV: 3.425, currentA: 0.6, durationS: 5.1 * 3600, sources: clause4 });
     expect(result.ok).toBe(true);
@@ -79,7 +79,7 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
     expectPercent(result.value.relativeExpandedUncertainty, 1.637, 3);
   });
 
-  // Source: REFERENCES.md §4 uncertainty note and GUM 5.2 (correlated inputs): for the 20.0 mΩ pulse (U1 = 3.9000 V,
+  // Source: docs/references.md §4 uncertainty note and GUM 5.2 (correlated inputs): for the 20.0 mΩ pulse (U1 = 3.9000 V,
   // U2 = 3.8520 V, I1 = 0.6 A, I2 = 3.0 A) with ±1 % limits, independent readings give an absurd ~±66 %; one channel's
   // gain taken as fully correlated leaves only the gain acting on the step, √(0.577² + 0.577²) = 0.8165 %.
   describe("DC resistance: correlated versus independent readings", () => {
@@ -110,8 +110,8 @@ describe("measurement uncertainty (JCGM 100:2008, GUM)", () => {
 
 // The same examples reached the way a run reaches them: the cycler channel's accuracy as the instrument register
 // states it (percent of reading and range, time base in ppm), turned into sources and budgets at the discharge
-// step's readings (Q = 3.060 Ah over t = 5.10 h, so Ī = Q / t = 0.600 A; E = 10.4805 Wh at a mean 3.425 V, REFERENCES.md §5).
-describe("budgets from the instrument register (REFERENCES.md §6 through a run's cycler channel)", () => {
+// step's readings (Q = 3.060 Ah over t = 5.10 h, so Ī = Q / t = 0.600 A; E = 10.4805 Wh at a mean 3.425 V, docs/references.md §5).
+describe("budgets from the instrument register (docs/references.md §6 through a run's cycler channel)", () => {
   const discharge = { capacityAh: 3.06, durationS: 5.1 * 3600, energyWh: 10.4805, meanVoltageV: 3.425 } as StepResults;
   const budgetsOf = (accuracy: RunInstrument["accuracy"]) => {
     const { budgets, notEvaluated } = evaluateStepUncertainties({
@@ -123,7 +123,7 @@ describe("budgets from the instrument register (REFERENCES.md §6 through a run'
     return { capacity: find("capacity"), energy: find("energy") };
   };
 
-  // Source: REFERENCES.md §6 Example B: ±(0.05 % rdg + 0.05 % of 5 A range), time base 100 ppm.
+  // Source: docs/references.md §6 Example B: ±(0.05 % rdg + 0.05 % of 5 A range), time base 100 ppm.
   it("Example B: U = 0.539 % = ±0.0165 Ah on 3.060 Ah", () => {
     const { capacity } = budgetsOf({
       current: { percentOfReading: 0.05, percentOfRange: 0.05, range: 5 },
@@ -137,7 +137,7 @@ describe("budgets from the instrument register (REFERENCES.md §6 through a run'
     expect(capacity.expandedUncertainty).toBeCloseTo(0.0165, 4);
   });
 
-  // Source: REFERENCES.md §3 clause-4 limits as a channel's accuracy (±1 % current and voltage, ±0.1 % = 1 000 ppm time);
+  // Source: docs/references.md §3 clause-4 limits as a channel's accuracy (±1 % current and voltage, ±0.1 % = 1 000 ppm time);
   // §6 Example A and the energy case.
   it("Example A and the energy case: U(Q) = 1.1605 % = ±0.0355 Ah, U(E) = 1.637 %", () => {
     const { capacity, energy } = budgetsOf({

@@ -10,7 +10,7 @@ import {
 } from "@/protocols";
 
 /**
- * An invented 21700-size NMC cell of 3 000 mAh with typical datasheet values (REFERENCES.md §12,
+ * An invented 21700-size NMC cell of 3 000 mAh with typical datasheet values (docs/references.md §12,
  * common practice): CC-CV to 4.20 V at 1.5 A, end at 60 mA, end-of-discharge 2.50 V, 15 A continuous.
  */
 export const inventedCell: CellSpecification = {

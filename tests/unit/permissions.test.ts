@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { can, isRole, PERMISSIONS, ROLE_PERMISSIONS, ROLES, type Permission, type Role } from "@/lib/auth/permissions";
 
-// DESIGN.md §2, written out as the expected grant for every role × permission pair.
+// docs/design.md §2, written out as the expected grant for every role × permission pair.
 const GRANTED: Record<Permission, Role[]> = {
   "workbench.enter": ["admin", "engineer", "operator", "auditor"],
   "user.manage": ["admin"],

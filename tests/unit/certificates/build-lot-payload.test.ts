@@ -5,7 +5,7 @@ import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
 import { buildLotFixturePayload, buildLotFixtureRecords, LOT_CAPACITIES_MAH, LOT_POSITIONS } from "./fixture-lot-payload";
 
 describe("the lot certificate payload", () => {
-  it("states the ISO 2859-1 plan of a lot of 60 at level II, AQL 1.0: E, n = 13, Ac 0, Re 1 (REFERENCES.md §10)", () => {
+  it("states the ISO 2859-1 plan of a lot of 60 at level II, AQL 1.0: E, n = 13, Ac 0, Re 1 (docs/references.md §10)", () => {
     const p = buildLotFixturePayload();
     expect(p).toMatchObject({ subject: "lot", title: "Lot certificate", number: "C-00077", customer: "Quayside Packs Ltd" });
     expect(p.samplingPlan).toMatchObject({ inspectionLevel: "II", aql: "1.0", severity: "normal", codeLetter: "E", sampleSize: 13, acceptanceNumber: 0, rejectionNumber: 1, hundredPercent: false, hundredPercentNote: null });

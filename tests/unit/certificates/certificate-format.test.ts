@@ -6,7 +6,7 @@ import { isSetInCertificateFont, toCertificateText } from "@/lib/certificates/ce
 const plain = (s: string) => s.replace(/\u00a0/g, " ");
 
 describe("certificate figures", () => {
-  it("writes values with their units and fixed decimals, as DESIGN.md §9 shows them", () => {
+  it("writes values with their units and fixed decimals, as docs/design.md §9 shows them", () => {
     expect(plain(formatMah(3061.2))).toBe("3 061 mAh");
     expect(plain(formatWh(11.0249))).toBe("11.02 Wh");
     expect(plain(formatVolts(3.6))).toBe("3.60 V");

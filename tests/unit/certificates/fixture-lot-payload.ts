@@ -10,7 +10,7 @@ export const LOT_POSITIONS = [41, 7, 33, 19, 58, 2, 26, 50, 14, 37, 9, 45, 22];
 
 /**
  * A lot certificate of an invented lot: 60 cells of the invented 3 000 mAh cell, ISO 2859-1 level II at
- * AQL 1.0 (code letter E, n = 13, Ac 0, Re 1; REFERENCES.md §10), every drawn cell tested and
+ * AQL 1.0 (code letter E, n = 13, Ac 0, Re 1; docs/references.md §10), every drawn cell tested and
  * conforming (or, with `nonconforming`, the third one not). The first run repeated its discharge: its
  * second cycle counts; one run also has a 0.5 It discharge, which stays out of the 0.2 It figures.
  */

@@ -9,14 +9,14 @@ import { buildRatedCapacityRun, inventedCell } from "../../support/rated-capacit
 /**
  * A run certificate of an invented lab, cell and customer (a scenario of our own): the rated-capacity
  * run of tests/support, one rest logged at 26.5 °C (a deviation the reviewer noted), and a cycler
- * channel whose stated accuracy (REFERENCES.md §6, Example B) gives the evaluation its uncertainty budgets.
+ * channel whose stated accuracy (docs/references.md §6, Example B) gives the evaluation its uncertainty budgets.
  */
 export function buildFixtureRecords(overrides: { uncertainty?: boolean; cycles?: number; deviation?: boolean } = {}): { records: RunCertificateRecords; curves: DischargeCurve[] } {
   const built = buildRatedCapacityRun({
     cycles: overrides.cycles ?? 1,
     ambient: (stepId) => (stepId === "rest" && overrides.deviation !== false ? [22.4, 26.5, 23.1] : [22.5, 22.8]),
   });
-  // The cycler channel's accuracy as REFERENCES.md §6 Example B states it: the evaluation makes the budgets.
+  // The cycler channel's accuracy as docs/references.md §6 Example B states it: the evaluation makes the budgets.
   const channel: RunInstrument = {
     identifier: "CH-03",
     kind: "cycler-channel",

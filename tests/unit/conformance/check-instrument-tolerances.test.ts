@@ -3,7 +3,7 @@ import { checkInstrumentTolerances, type RunInstrument } from "@/lib/conformance
 import { ratedCapacityAt20cTemplate, resolveProcedure } from "@/protocols";
 import { inventedCell } from "../../support/rated-capacity-run";
 
-// IEC 61960-3 clause 4 measurement tolerances, REFERENCES.md §3 (recalled for 61960-3; published via IEC 61951-2:2022
+// IEC 61960-3 clause 4 measurement tolerances, docs/references.md §3 (recalled for 61960-3; published via IEC 61951-2:2022
 // clause 4): current ±1 %, voltage ±1 %, time ±0.1 %, temperature ±2 °C, all sources of error included.
 const resolved = resolveProcedure({ procedure: ratedCapacityAt20cTemplate, cellSpecification: inventedCell });
 if (!resolved.ok) throw new Error("the template resolves on the invented cell");

@@ -3,7 +3,7 @@ import { checkCurrentHold, checkPulseTiming } from "@/lib/conformance";
 import { contextOf, evidenceOf, levelOf, logOf, steps } from "./context-fixtures";
 
 /**
- * A synthetic DC resistance pulse (IEC 61960-3 7.7 shape, REFERENCES.md §4, recalled): a rest, then
+ * A synthetic DC resistance pulse (IEC 61960-3 7.7 shape, docs/references.md §4, recalled): a rest, then
  * 0.6 A for `baseS`, then 3 A for `pulseS`, then a rest, sampled every `dtS`. Rdc 20 mΩ: U1 3.9000 V, U2 3.8520 V.
  */
 function pulseLog({ baseS, pulseS, dtS }: { baseS: number; pulseS: number; dtS: number }) {

@@ -32,7 +32,7 @@ describe("evaluateAcceptance", () => {
   });
 
   it("applies the binary guard-band rule (ILAC-G8:09/2019 4.2.2) with the expanded uncertainty of the step's budget as guard band", () => {
-    // Measured 3.03 Ah over 5.05 h at 0.6 A. Example B limits (REFERENCES.md §6) give U = 0.539 % = 0.0163 Ah, which
+    // Measured 3.03 Ah over 5.05 h at 0.6 A. Example B limits (docs/references.md §6) give U = 0.539 % = 0.0163 Ah, which
     // 3.03 Ah clears; clause-4 limits (Example A) give U = 1.1605 % = 0.0352 Ah, which it does not.
     const guarded = (sources: UncertaintySource[]) => {
       const budget = evaluateCapacityUncertainty({ capacityAh: 3.03, currentA: 0.6, durationS: 5.05 * 3600, sources });
@@ -96,7 +96,7 @@ describe("evaluateAcceptance", () => {
   });
 
   it("judges Rdc from a logged pulse against a maximum", () => {
-    // I1 = 0.6 A then I2 = 3 A; U1 = 3.9000 V, U2 = 3.8520 V → Rdc = 20.0 mΩ (REFERENCES.md §4 arithmetic).
+    // I1 = 0.6 A then I2 = 3 A; U1 = 3.9000 V, U2 = 3.8520 V → Rdc = 20.0 mΩ (docs/references.md §4 arithmetic).
     const pulse = evidenceOf(logOf([...levelOf(20, 3.9, -0.6), ...levelOf(5, 3.852, -3)]), { pulse: true });
     const criterion: ResolvedCriterion = { kind: "resistance", id: "dc", stepId: "pulse", maximum: valueOf(0.025, "Ω") };
     const result = evaluateAcceptance(criterion, contextOf({ step: steps.pulse, evidence: pulse }));

@@ -69,7 +69,7 @@ describe("evaluateRun on a rated-capacity run (IEC 61960-3 7.3.1 template, inven
       ["discharge", "discharge"],
     ]);
     const discharge = evaluation.steps[3];
-    // 0.2 It of 3 000 mAh is 0.6 A (IEC 61434, REFERENCES.md §1); the log held it.
+    // 0.2 It of 3 000 mAh is 0.6 A (IEC 61434, docs/references.md §1); the log held it.
     expect(discharge?.results?.constantCurrent?.meanA).toBeCloseTo(0.6, 3);
     expect(findingOf(evaluation, "discharge#1/set-point-matches/current").expected).toMatchObject({ value: 0.6 });
     expect(discharge?.results?.capacityAh).toBeGreaterThan(3);

@@ -92,14 +92,14 @@ describe("the procedure's decision rule with the budgets", () => {
   const clauseFourChannel: RunInstrument = {
     identifier: "CH-C4",
     kind: "cycler-channel",
-    // IEC 61960-3 clause 4 limits (REFERENCES.md §3) as a channel's accuracy: ±1 % current and voltage, ±0.1 % time.
+    // IEC 61960-3 clause 4 limits (docs/references.md §3) as a channel's accuracy: ±1 % current and voltage, ±0.1 % time.
     accuracy: { current: { percentOfReading: 1, percentOfRange: 0, range: 5 }, voltage: { percentOfReading: 1, percentOfRange: 0, range: 5 }, time: { ppm: 1000 } },
   };
 
   it("inside the guard band: binary rule does not conform, non-binary rule conditional pass, simple acceptance conforms (ILAC-G8:09/2019 4.2)", () => {
     const measured = evaluate({ ...close.input, instruments: [clauseFourChannel] }).acceptance[0]!.measured!.value;
     expect(measured).toBeGreaterThan(3);
-    // U = 1.16 % of about 3.015 Ah is 0.035 Ah (REFERENCES.md §6 Example A limits): the guard band covers it.
+    // U = 1.16 % of about 3.015 Ah is 0.035 Ah (docs/references.md §6 Example A limits): the guard band covers it.
     expect(measured).toBeLessThan(3.03);
     const guarded = evaluate({ ...close.input, resolution: withRule(close.resolution, "binary guard band"), instruments: [clauseFourChannel] });
     expect(guarded.decisionRule).toBe("binary guard band");
@@ -162,7 +162,7 @@ describe("the procedure's decision rule with the budgets", () => {
     const both = evaluate({ ...close.input, instruments: [channel, clauseFourChannel] });
     const capacity = both.uncertainty.find((entry) => entry.stepId === "discharge" && entry.quantity === "capacity")!.budget;
     expect(capacity.rows[0]!.source).toBe("CH-C4 current accuracy");
-    // Current and time alone give Example A's 1.1605 % (REFERENCES.md §6); the end-voltage term adds to it in quadrature.
+    // Current and time alone give Example A's 1.1605 % (docs/references.md §6); the end-voltage term adds to it in quadrature.
     const [current, time, end] = capacity.rows;
     expect(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution) * 100).toBeCloseTo(1.1605, 3);
     expect(capacity.relativeExpandedUncertainty).toBeCloseTo(2 * Math.hypot(current!.relativeContribution, time!.relativeContribution, end!.relativeContribution), 12);
@@ -191,8 +191,8 @@ describe("the procedure's decision rule with the budgets", () => {
 });
 
 describe("DC resistance budget of a pulse step", () => {
-  it("treats the channel's gain as common to both readings (REFERENCES.md §4 pulse: u_r = 0.8165 % with ±1 % limits)", () => {
-    // U1 = 3.9000 V at 0.6 A, U2 = 3.8520 V at 3.0 A (discharge negative): Rdc = 20.0 mΩ (REFERENCES.md §4).
+  it("treats the channel's gain as common to both readings (docs/references.md §4 pulse: u_r = 0.8165 % with ±1 % limits)", () => {
+    // U1 = 3.9000 V at 0.6 A, U2 = 3.8520 V at 3.0 A (discharge negative): Rdc = 20.0 mΩ (docs/references.md §4).
     const readings = { u1V: 3.9, i1A: -0.6, u2V: 3.852, i2A: -3 };
     const onePercent: RunInstrument = {
       identifier: "CH-1P",

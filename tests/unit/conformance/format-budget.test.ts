@@ -22,7 +22,7 @@ describe("formatting figures for a budget table", () => {
 });
 
 describe("formatBudgetTable", () => {
-  it("prints Example B (REFERENCES.md §6) row by row, then u_c, k and U", () => {
+  it("prints Example B (docs/references.md §6) row by row, then u_c, k and U", () => {
     const budget = evaluateCapacityUncertainty({
       capacityAh: 3.06,
       currentA: 0.6,

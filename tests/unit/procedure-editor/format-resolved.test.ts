@@ -45,7 +45,7 @@ describe("formatResolvedValue", () => {
 });
 
 describe("listSetPoints", () => {
-  // IEC 61434: It = Cn / 1 h, so 0.2 It of a 3 000 mAh cell is 0.6 A (DESIGN.md §6).
+  // IEC 61434: It = Cn / 1 h, so 0.2 It of a 3 000 mAh cell is 0.6 A (docs/design.md §6).
   const resolution = resolve({ procedure: ratedCapacityAt20cTemplate, cellSpecification: typicalNmcCell });
 
   it("gives each set-point of a discharge with its value and where it came from", () => {

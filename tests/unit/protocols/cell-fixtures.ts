@@ -1,7 +1,7 @@
 import type { CellSpecification } from '@/protocols';
 
 /**
- * An invented 21700-size NMC cell of 3 000 mAh with typical datasheet values (REFERENCES.md §12,
+ * An invented 21700-size NMC cell of 3 000 mAh with typical datasheet values (docs/references.md §12,
  * common practice): CC-CV to 4.20 V, end at C/50, end-of-discharge 2.50 V.
  */
 export const typicalNmcCell: CellSpecification = {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { describeByCurrent } from "@/lib/statistics";
 
-// A 3 000 mAh cell: It = 3 A, 0.2 It = 0.6 A (REFERENCES.md §1).
+// A 3 000 mAh cell: It = 3 A, 0.2 It = 0.6 A (docs/references.md §1).
 const rated = 3000;
 
 describe("describeByCurrent", () => {
