@@ -62,7 +62,7 @@ test("procedure → run → review → signed certificate → public check, with
   await reviewer.goto(procedureUrl);
   // Releasing is a signature: the release page, then the password again.
   await reviewer.getByRole("link", { name: "Release version 1" }).click();
-  await reviewer.getByLabel("Your password, to sign").fill("demo-engineer-pass");
+  await reviewer.getByLabel("Your password, to sign").fill(password("engineer2@brackwater.example"));
   await reviewer.getByRole("button", { name: "Sign and release version 1" }).click();
   await expect(reviewer.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
   await reviewer.goto(procedureUrl);

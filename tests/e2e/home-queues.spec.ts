@@ -2,6 +2,10 @@ import { randomBytes } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { signInAs, signInAsUser } from "./fixtures";
+import { DEMO_USERS } from "../../scripts/demo-scenario";
+
+// The second engineer, who releases: the demo account's own password.
+const RELEASER_PASSWORD = DEMO_USERS.find((u) => u.email === "engineer2@brackwater.example")!.password;
 
 async function withDb<T>(work: (c: pg.Client) => Promise<T>): Promise<T> {
   const c = new pg.Client({ connectionString: process.env.E2E_DATABASE_URL });
@@ -81,7 +85,7 @@ test("home pages show each role what waits for it, and a version waiting for rel
   await page.getByRole("button", { name: "Sign and release version 2" }).click();
   await expect(page.getByRole("alert").filter({ hasText: "That password is not right. Nothing was signed." })).toBeVisible();
   await expect(password).toHaveValue("");
-  await password.fill("demo-engineer-pass");
+  await password.fill(RELEASER_PASSWORD);
   await page.getByRole("button", { name: "Sign and release version 2" }).click();
   await expect(page.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
   await page.goto("/");

@@ -1,5 +1,9 @@
 import { expect, test } from "@playwright/test";
 import { signInAs, signInAsUser } from "./fixtures";
+import { DEMO_USERS } from "../../scripts/demo-scenario";
+
+// The second engineer, who releases: the demo account's own password.
+const RELEASER_PASSWORD = DEMO_USERS.find((u) => u.email === "engineer2@brackwater.example")!.password;
 
 // One journey across three people: an engineer writes from the rated-capacity template and previews it
 // against a demo cell, a second engineer releases it, and an operator reads it without any controls.
@@ -56,7 +60,7 @@ test("an engineer drafts from a template, a second engineer releases it, an oper
   await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
   await expect(secondPage.getByRole("alert").filter({ hasText: "That password is not right" })).toBeVisible();
   await expect(password, "a refused password is cleared").toHaveValue("");
-  await password.fill("demo-engineer-pass");
+  await password.fill(RELEASER_PASSWORD);
   await secondPage.getByRole("button", { name: "Sign and release version 1" }).click();
   await expect(secondPage.getByTestId("signature-manifestation")).toContainText("Released by Tomas Lindqvist");
   await secondPage.goto(procedureUrl);
