@@ -22,6 +22,8 @@ export interface ChargeRetentionResult {
   };
   retention: RetentionShare;
   recovery: RetentionShare;
+  /** The procedure's standard and clause, e.g. "IEC 61960-3:2017 7.4"; null when not named. */
+  citation: string | null;
 }
 
 /** The steps' measured capacities, as the run evaluation holds them. */
@@ -53,7 +55,11 @@ function describeShare(share: Omit<RetentionShare, "statement">, basis: ChargeRe
  * Q(basis) × 100, the basis being the rated capacity or the capacity measured before storage, as the
  * procedure says. Percentages are not rounded here; the words round to 0.1 %.
  */
-export function evaluateChargeRetention(retention: ResolvedChargeRetention, steps: readonly RetentionStepInput[]): ChargeRetentionResult {
+export function evaluateChargeRetention(
+  retention: ResolvedChargeRetention,
+  steps: readonly RetentionStepInput[],
+  citation: string | null = null,
+): ChargeRetentionResult {
   const basis: ChargeRetentionResult["basis"] = (() => {
     switch (retention.basis.kind) {
       case "rated capacity":
@@ -74,5 +80,24 @@ export function evaluateChargeRetention(retention: ResolvedChargeRetention, step
     const partial = { stepId, label, capacityAh, percent };
     return { ...partial, statement: describeShare(partial, basis) };
   };
-  return { basis, retention: share(retention.afterStorageStepId), recovery: share(retention.recoveryStepId) };
+  return { basis, retention: share(retention.afterStorageStepId), recovery: share(retention.recoveryStepId), citation };
+}
+
+/** The two rows as a report lists them, in the lab's words. */
+export function listRetentionRows(result: ChargeRetentionResult): { name: string; share: RetentionShare }[] {
+  return [
+    { name: "Charge retention (after storage)", share: result.retention },
+    { name: "Charge recovery (after recharging)", share: result.recovery },
+  ];
+}
+
+/** "the rated capacity, 3 000 mAh": what each percentage is a share of. */
+export function formatRetentionReference(result: ChargeRetentionResult): string {
+  return `${result.basis.words}, ${result.basis.capacityAh === null ? "not known" : formatValue(result.basis.capacityAh, "Ah")}`;
+}
+
+/** The line above the two results: their basis and the clause they answer. */
+export function formatRetentionBasis(result: ChargeRetentionResult): string {
+  const clause = result.citation === null ? "" : ` (${result.citation}, charge retention and recovery)`;
+  return `Both percentages are of ${formatRetentionReference(result)}, as the procedure sets${clause}.`;
 }

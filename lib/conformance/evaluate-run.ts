@@ -307,7 +307,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       uncertaintyNotEvaluated: uncertainties.notEvaluated,
       acceptance,
       repeat,
-      ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps) }),
+      ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps, citation) }),
       conformity,
       verdict,
     },

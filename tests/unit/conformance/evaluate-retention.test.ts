@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { computeStepResults, generateSyntheticLog, type Phase, type SyntheticStep } from "@/lib/analysis";
-import { evaluateChargeRetention, type RetentionStepInput } from "@/lib/conformance";
+import { evaluateChargeRetention, evaluateRun, type RetentionStepInput } from "@/lib/conformance";
 import { chargeRetentionTemplate, validateProcedure, type Procedure } from "@/protocols";
-import { inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
 
 // The invented 3 000 mAh cell (tests/support/rated-capacity-run.ts) at 0.2 It = 0.6 A. The model cell has no
 // self-discharge, so the loss in storage is made by construction: the discharge after storage is stopped
@@ -94,5 +94,23 @@ describe("charge retention and recovery (IEC 61960-3 7.4, recalled) against a sy
     expect(basis.ok || basis.problems.map((problem) => problem.message)).toEqual(["name the discharge before storage whose capacity is the basis"]);
     const order = validateProcedure({ ...chargeRetentionTemplate, retention: { afterStorageStepId: "recovery-discharge", recoveryStepId: "discharge", basis: "rated capacity" } });
     expect(order.ok || order.problems.map((problem) => problem.message)).toEqual(["the recovery discharge must come after the discharge named before it"]);
+  });
+
+  it("is part of the run evaluation when the resolution asks for it, named with the procedure's clause", () => {
+    // A rated-capacity run whose two discharges stand in for the ones after storage and after recharging.
+    const resolution = {
+      ...resolveOrThrow({}),
+      retention: { afterStorageStepId: "precondition", recoveryStepId: "discharge", basis: { kind: "rated capacity" as const, capacityAh: 3 } },
+    };
+    const { input } = buildRatedCapacityRun({ resolution });
+    const evaluated = evaluateRun(input);
+    if (!evaluated.ok) throw new Error(JSON.stringify(evaluated.problems));
+    const { retention, steps } = evaluated.evaluation;
+    const capacityOf = (id: string) => steps.find((s) => s.stepId === id)!.results!.capacityAh;
+    expect(retention?.retention.percent).toBeCloseTo((capacityOf("precondition") / 3) * 100, 12);
+    expect(retention?.recovery.percent).toBeCloseTo((capacityOf("discharge") / 3) * 100, 12);
+    expect(retention?.citation).toBe("IEC 61960-3:2017 7.2, 7.3.1");
+    const plain = evaluateRun(buildRatedCapacityRun().input);
+    expect(plain.ok && "retention" in plain.evaluation).toBe(false);
   });
 });
