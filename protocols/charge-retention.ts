@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { explainTypeError } from './explain-type-error';
+import { formatNumber } from './format-number';
 import { identifierSchema } from './identifier';
 import type { Step } from './step';
 
@@ -74,4 +75,14 @@ export function checkChargeRetentionSteps(retention: ChargeRetention | undefined
     if (index <= lastIndex) ctx.addIssue({ code: 'custom', path, message: `the ${words} must come after the discharge named before it` });
     lastIndex = Math.max(lastIndex, index);
   }
+}
+
+/** The procedure's retention setting in words, for the procedure preview. */
+export function describeChargeRetention(retention: ResolvedChargeRetention, steps: readonly { id: string; label: string }[]): string {
+  const label = (id: string) => `"${steps.find((step) => step.id === id)?.label ?? id}"`;
+  const basis =
+    retention.basis.kind === 'rated capacity'
+      ? `the rated capacity, ${formatNumber(retention.basis.capacityAh * 1000, { maxDecimals: 1 })} mAh`
+      : `the capacity of ${label(retention.basis.stepId)} before storage`;
+  return `Reports charge retention (${label(retention.afterStorageStepId)}) and recovery (${label(retention.recoveryStepId)}) as percentages of ${basis}.`;
 }

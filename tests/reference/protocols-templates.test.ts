@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  describeChargeRetention,
   clauseFourTolerances,
   convertToBounds,
   findProcedureTemplate,
@@ -216,6 +217,9 @@ describe('other clauses of IEC 61960-3 (REFERENCES.md §2, last item) [memory]',
       basis: { kind: 'rated capacity', capacityAh: typicalNmcCell.ratedCapacityMah / 1000 },
     });
     expectRecalledNote(procedure, /percentages of the rated capacity/);
+    expect(describeChargeRetention(resolution.retention!, resolution.steps)).toBe(
+      'Reports charge retention ("Discharge after storage (retention)") and recovery ("Recovery discharge") as percentages of the rated capacity, 3 000 mAh.',
+    );
     // No limit is published in our references: the template sets none and says so.
     expect(procedure.acceptance).toEqual([]);
     expect(procedure.header.notes).toContainEqual(expect.stringMatching(/No acceptance limit set: none is published in our references/));
