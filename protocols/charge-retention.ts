@@ -86,3 +86,13 @@ export function describeChargeRetention(retention: ResolvedChargeRetention, step
       : `the capacity of ${label(retention.basis.stepId)} before storage`;
   return `Reports charge retention (${label(retention.afterStorageStepId)}) and recovery (${label(retention.recoveryStepId)}) as percentages of ${basis}.`;
 }
+
+/** A procedure's own retention setting in words (before it is resolved on a cell). */
+export function describeRetentionSetting(retention: ChargeRetention, steps: readonly { id: string; label: string }[]): string {
+  const label = (id: string) => `"${steps.find((step) => step.id === id)?.label ?? id}"`;
+  const basis =
+    retention.basis === 'capacity before storage' && retention.beforeStorageStepId !== undefined
+      ? `the capacity of ${label(retention.beforeStorageStepId)} before storage`
+      : 'the rated capacity';
+  return `Charge retention (${label(retention.afterStorageStepId)}) and recovery (${label(retention.recoveryStepId)}) as percentages of ${basis}.`;
+}
