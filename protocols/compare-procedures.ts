@@ -1,6 +1,7 @@
 import type { AcceptanceCriterion } from './acceptance-criterion';
 import { readDecisionRule, type DecisionRule } from './decision-rule';
 import type { Procedure } from './procedure';
+import type { ChargeRetention } from './charge-retention';
 import type { RepeatRule } from './repeat-rule';
 import type { Step } from './step';
 
@@ -37,6 +38,8 @@ export interface ProcedureComparison {
   /** The decision rule of each version; a definition that names none is read as simple acceptance. */
   decisionRule: { change: 'changed' | 'unchanged'; before: DecisionRule; after: DecisionRule };
   repeat: { change: ItemChange; before?: RepeatRule; after?: RepeatRule; changedFields: string[] };
+  /** The charge retention and recovery setting of each version. */
+  retention: { change: ItemChange; before?: ChargeRetention; after?: ChargeRetention; changedFields: string[] };
 }
 
 function isRecord(value: unknown): value is Record<string, unknown> {
@@ -146,7 +149,8 @@ function compareCriteria(before: AcceptanceCriterion[], after: AcceptanceCriteri
   return [...kept, ...removed];
 }
 
-function compareRepeat(before: RepeatRule | undefined, after: RepeatRule | undefined): ProcedureComparison['repeat'] {
+/** An optional part of a procedure (repeat rule, retention setting): added, removed, changed or the same. */
+function compareOptional<T extends object>(before: T | undefined, after: T | undefined): { change: ItemChange; before?: T; after?: T; changedFields: string[] } {
   if (before === undefined && after === undefined) return { change: 'unchanged', changedFields: [] };
   if (before === undefined) return { change: 'added', after, changedFields: [] };
   if (after === undefined) return { change: 'removed', before, changedFields: [] };
@@ -159,7 +163,8 @@ export function compareProcedures(before: Procedure, after: Procedure): Procedur
   const headerChangedFields = listChangedPaths(before.header, after.header);
   const steps = compareSteps(before.steps, after.steps);
   const acceptance = compareCriteria(before.acceptance, after.acceptance);
-  const repeat = compareRepeat(before.repeat, after.repeat);
+  const repeat = compareOptional(before.repeat, after.repeat);
+  const retention = compareOptional(before.retention, after.retention);
   const rules = { before: readDecisionRule(before), after: readDecisionRule(after) };
   const decisionRule = { change: rules.before === rules.after ? ('unchanged' as const) : ('changed' as const), ...rules };
   const identical =
@@ -168,6 +173,7 @@ export function compareProcedures(before: Procedure, after: Procedure): Procedur
     acceptance.every((entry) => entry.change === 'unchanged') &&
     before.acceptance.map((c) => c.id).join('\n') === after.acceptance.map((c) => c.id).join('\n') &&
     repeat.change === 'unchanged' &&
+    retention.change === 'unchanged' &&
     decisionRule.change === 'unchanged';
-  return { identical, headerChangedFields, steps, acceptance, decisionRule, repeat };
+  return { identical, headerChangedFields, steps, acceptance, decisionRule, repeat, retention };
 }

@@ -3,6 +3,7 @@
 export * from './acceptance-criterion';
 export * from './assert-never';
 export * from './cell-specification';
+export * from './charge-retention';
 export * from './compare-procedures';
 export * from './compare-references';
 export * from './decision-rule';

@@ -1,5 +1,6 @@
 import { findCriterionStepProblem, type AcceptanceCriterion } from './acceptance-criterion';
 import { compareVoltagesWithoutSpecification } from './compare-references';
+import { checkChargeRetentionSteps, type ChargeRetention } from './charge-retention';
 import type { RepeatRule } from './repeat-rule';
 import type { CurrentReference } from './quantity';
 import type { ChargeStep, Step } from './step';
@@ -11,6 +12,7 @@ interface ProcedureParts {
   steps: Step[];
   acceptance: AcceptanceCriterion[];
   repeat?: RepeatRule | undefined;
+  retention?: ChargeRetention | undefined;
 }
 
 function checkUniqueIds(
@@ -174,6 +176,7 @@ export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink)
   checkUniqueIds({ items: parts.acceptance, listKey: 'acceptance', words: 'criterion' }, ctx);
   checkCriteria(parts, ctx);
   checkRepeatRule(parts, ctx);
+  checkChargeRetentionSteps(parts.retention, parts.steps, ctx);
   checkEndVoltages(parts, ctx);
   checkLabelsAgainstSetPoints(parts, ctx);
 }

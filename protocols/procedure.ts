@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { explainTypeError } from './explain-type-error';
 import { acceptanceCriterionSchema } from './acceptance-criterion';
+import { chargeRetentionSchema } from './charge-retention';
 import { decisionRuleSchema } from './decision-rule';
 import { setPointTolerancesSchema } from './measurement-tolerances';
 import { checkProcedureConsistency } from './procedure-consistency';
@@ -42,6 +43,8 @@ export const procedureSchema = z
      */
     decisionRule: decisionRuleSchema.optional(),
     repeat: repeatRuleSchema.optional(),
+    /** Charge retention and recovery percentages, for a storage procedure. */
+    retention: chargeRetentionSchema.optional(),
   })
   .superRefine((procedure, ctx) => checkProcedureConsistency(procedure, ctx));
 

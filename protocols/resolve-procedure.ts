@@ -1,4 +1,5 @@
 import { assertNever } from './assert-never';
+import { resolveChargeRetention } from './charge-retention';
 import type { CapacityCriterion } from './acceptance-criterion';
 import type { CellSpecification } from './cell-specification';
 import { readDecisionRule } from './decision-rule';
@@ -120,6 +121,7 @@ export function resolveProcedure(input: ResolveProcedureInput): ResolveProcedure
       acceptance,
       decisionRule: readDecisionRule(procedure),
       ...(procedure.repeat && { repeat: procedure.repeat }),
+      ...(procedure.retention && { retention: resolveChargeRetention(procedure.retention, cell.ratedCapacityMah) }),
       errors: issues.errors,
       cautions,
       cautionsNeedingAcknowledgement,

@@ -1,4 +1,5 @@
 import type { CapacityBasis } from './acceptance-criterion';
+import type { ResolvedChargeRetention } from './charge-retention';
 import type { StoredDecisionRule } from './decision-rule';
 import type { SetPointToleranceName } from './measurement-tolerances';
 import type { RepeatRule } from './repeat-rule';
@@ -141,6 +142,8 @@ export interface ProcedureResolution {
    */
   decisionRule: StoredDecisionRule;
   repeat?: RepeatRule;
+  /** Absent when the procedure reports no retention, and in resolutions frozen before it could. */
+  retention?: ResolvedChargeRetention;
   errors: ResolutionError[];
   cautions: ResolutionCaution[];
   /** Codes of cautions not yet acknowledged, in step order. */

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import { describeCautionCode, readDecisionRule, type ProcedureResolution } from "@/protocols";
+import { describeCautionCode, describeChargeRetention, readDecisionRule, type ProcedureResolution } from "@/protocols";
 import { ProblemList } from "./problem-list";
 import { ResolutionCautions, ResolutionErrors } from "./resolution-issues";
 import { ResolvedAcceptance } from "./resolved-acceptance";
@@ -105,6 +105,11 @@ function ResolvedView({
       <ResolutionCautions cautions={resolution.cautions} acknowledged={acknowledged} onAcknowledgeChange={onAcknowledgeChange} />
       <ResolvedStepsTable steps={resolution.steps} flaggedStepIds={flagged} />
       <ResolvedAcceptance acceptance={resolution.acceptance} steps={resolution.steps} repeat={resolution.repeat} decisionRule={readDecisionRule(resolution)} />
+      {resolution.retention && (
+        <p className="text-sm" data-testid="retention-setting">
+          {describeChargeRetention(resolution.retention, resolution.steps)}
+        </p>
+      )}
       {resolution.unmatchedAcknowledgements.length > 0 && (
         <p className="text-xs text-ink-soft">
           {resolution.unmatchedAcknowledgements.length === 1 ? "One acknowledgement" : `${resolution.unmatchedAcknowledgements.length} acknowledgements`}{" "}

@@ -1,6 +1,6 @@
 import { RichTextView } from "@/components/rich-text/rich-text-view";
 import type { RichTextDoc } from "@/lib/rich-text";
-import { describeCautionCode, describeCriterion, describeStep, explainDecisionRule, formatQuantity, nameDecisionRule, readDecisionRule, type Procedure } from "@/protocols";
+import { describeCautionCode, describeCriterion, describeRetentionSetting, describeStep, explainDecisionRule, formatQuantity, nameDecisionRule, readDecisionRule, type Procedure } from "@/protocols";
 
 /** A procedure version read like a paper method sheet: header, steps in order, criteria, cautions. */
 export function ProcedureDefinitionView({
@@ -80,6 +80,11 @@ export function ProcedureDefinitionView({
         {acceptance.length > 0 && (
           <p className="mt-2 text-sm" data-testid="decision-rule">
             <span className="font-semibold">Decision rule:</span> {nameDecisionRule(decisionRule)}. <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
+          </p>
+        )}
+        {definition.retention && (
+          <p className="mt-2 text-sm" data-testid="retention-setting">
+            {describeRetentionSetting(definition.retention, definition.steps)}
           </p>
         )}
         {repeat && (

@@ -1,5 +1,5 @@
 import { describeInnerPath } from "@/components/procedure-editor/field-paths";
-import { compareProcedures, describeCriterion, describeStep, type ItemChange, type Procedure } from "@/protocols";
+import { compareProcedures, describeCriterion, describeRetentionSetting, describeStep, type ItemChange, type Procedure } from "@/protocols";
 
 const CHANGE_WORDS: Record<ItemChange, string> = { added: "added", removed: "removed", changed: "changed", unchanged: "same" };
 const CHANGE_STYLE: Record<ItemChange, string> = {
@@ -52,6 +52,17 @@ export function VersionComparison({ before, after }: { before: { number: number;
               <td className="p-2 align-top">{cmp.decisionRule.before}</td>
               <td className="p-2 align-top">{cmp.decisionRule.after}</td>
             </tr>
+            {(cmp.retention.before || cmp.retention.after) && (
+              <tr className={CHANGE_STYLE[cmp.retention.change]} data-testid="retention-setting">
+                <td className="p-2 align-top">
+                  Retention and recovery
+                  <br />
+                  <strong>{CHANGE_WORDS[cmp.retention.change]}</strong>
+                </td>
+                <td className="p-2 align-top">{cmp.retention.before ? describeRetentionSetting(cmp.retention.before, before.definition.steps) : "—"}</td>
+                <td className="p-2 align-top">{cmp.retention.after ? describeRetentionSetting(cmp.retention.after, after.definition.steps) : "—"}</td>
+              </tr>
+            )}
             {cmp.acceptance.map((c, i) => (
               <tr key={`crit-${c.criterionId}-${c.change}`} className={CHANGE_STYLE[c.change]}>
                 <td className="p-2 align-top">

@@ -1,5 +1,5 @@
 import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import { listCountedReadings, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
+import { formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
 import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import { formatMomentsInText } from "./certificate-format";
@@ -9,6 +9,7 @@ import {
   type CertificateCriterion,
   type CertificateFinding,
   type CertificateInstrument,
+  type CertificateRetention,
   type CertificateSetPointCurrent,
   type CertificateStepResult,
   type CertificateUncertainty,
@@ -33,6 +34,20 @@ export type StoredEvaluation = Omit<RunEvaluation, keyof LaterEvaluationFields> 
 export function readDecisionRule(evaluation: StoredEvaluation): StoredDecisionRule {
   const legacy = (evaluation.settings as { decisionRule?: StoredDecisionRule } | undefined)?.decisionRule;
   return evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? legacy ?? "simple acceptance";
+}
+
+/** Retention and recovery as the certificate states them: the basis once, each percentage with its statement. */
+function describeRetention(retention: ChargeRetentionResult): CertificateRetention {
+  return {
+    basis: formatRetentionBasis(retention),
+    rows: listRetentionRows(retention).map(({ name, share }) => ({
+      name,
+      stepLabel: share.label,
+      capacityMAh: share.capacityAh === null ? null : share.capacityAh * 1000,
+      percent: share.percent,
+      statement: share.statement,
+    })),
+  };
 }
 
 export interface RecordedInstrument {
@@ -317,6 +332,7 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     conditions: summariseAmbient(evaluation, records.stepRecords, records.run.resolution),
     instruments: listInstruments(records, widestSpan(testing)),
     results: listResults(evaluation, records.run.resolution, records.stepRecords, records.cell.data.ratedCapacityMah),
+    ...(evaluation.retention && { retention: describeRetention(evaluation.retention) }),
     conformity: {
       decisionRule: readDecisionRule(evaluation),
       specimenConforms: evaluation.verdict.specimenConforms,

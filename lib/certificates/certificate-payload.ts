@@ -146,6 +146,12 @@ export interface CertificateLog {
   uploadedAt: string;
 }
 
+export interface CertificateRetention {
+  /** "Both percentages are of the rated capacity, 3 000 mAh, as the procedure sets (…)." */
+  basis: string;
+  rows: { name: string; stepLabel: string; capacityMAh: number | null; percent: number | null; statement: string }[];
+}
+
 /** A certificate of one run on one specimen. */
 export interface RunCertificatePayload extends CertificateCommon {
   subject: "run";
@@ -171,6 +177,11 @@ export interface RunCertificatePayload extends CertificateCommon {
   instruments: CertificateInstrument[];
   /** 7.8.2.1 m: results with units. */
   results: CertificateStepResult[];
+  /**
+   * Charge retention and recovery (IEC 61960-3, clause recalled): each percentage with the basis it is a
+   * share of. Absent when the procedure asks for none, and in certificates issued before it was stated.
+   */
+  retention?: CertificateRetention;
   /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
   conformity: {
     /** As the evaluation applied it; certificates of evaluations stored before ILAC-G8's three rules may say "guarded acceptance". */

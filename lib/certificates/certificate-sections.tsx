@@ -242,10 +242,37 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
           ...(withResistance ? [r.dcResistanceOhm !== null ? formatMilliohm(r.dcResistanceOhm) : "–"] : []),
         ])}
       />
+      {payload.retention && <RetentionTable retention={payload.retention} />}
       {curves.map((curve, i) => (
         <VqPlot key={`${curve.stepId}#${curve.cycle}`} curve={curve} figure={i + 1} />
       ))}
     </View>
+  );
+}
+
+/** Retention and recovery under the results: each percentage, with the basis it is a share of stated above them. */
+function RetentionTable({ retention }: { retention: NonNullable<RunCertificatePayload["retention"]> }) {
+  return (
+    <Table
+      lead={
+        <>
+          <Tx style={{ ...styles.strong, marginTop: 6 }}>Charge retention and recovery</Tx>
+          <Tx style={{ ...styles.small, marginBottom: 3 }}>{`${retention.basis} Percentage = capacity of the discharge / basis × 100.`}</Tx>
+        </>
+      }
+      columns={[
+        { title: "Result", width: 34 },
+        { title: "Discharge", width: 30 },
+        { title: "Capacity", width: 18, align: "right" as const },
+        { title: "Percentage", width: 18, align: "right" as const },
+      ]}
+      rows={retention.rows.map((r) => [
+        r.name,
+        r.stepLabel,
+        r.capacityMAh !== null ? formatMah(r.capacityMAh) : "–",
+        r.percent !== null ? `${formatNumber(r.percent, { minDecimals: 1, maxDecimals: 1 })} %` : r.statement,
+      ])}
+    />
   );
 }
 

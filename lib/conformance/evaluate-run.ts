@@ -17,6 +17,7 @@ import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
 import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
+import { evaluateChargeRetention, type ChargeRetentionResult } from "./evaluate-retention";
 import {
   evaluateStepUncertainties,
   findCriterionUncertainty,
@@ -79,6 +80,11 @@ export interface RunEvaluation {
   /** Every criterion on every cycle of its step. */
   acceptance: AcceptanceResult[];
   repeat: RepeatOutcome | null;
+  /**
+   * Charge retention and recovery percentages, when the procedure asks for them. Absent otherwise and in
+   * evaluations stored before they were computed.
+   */
+  retention?: ChargeRetentionResult;
   /** The statement of conformity per criterion, on the cycle it rests on. */
   conformity: CriterionConformity[];
   verdict: RunVerdict;
@@ -301,6 +307,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       uncertaintyNotEvaluated: uncertainties.notEvaluated,
       acceptance,
       repeat,
+      ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps, citation) }),
       conformity,
       verdict,
     },

@@ -23,6 +23,7 @@ export * from "./check-log-agreement";
 export * from "./evaluate-acceptance";
 export * from "./evaluate-uncertainty";
 export * from "./evaluate-repeat-rule";
+export * from "./evaluate-retention";
 export * from "./decide-verdict";
 export * from "./evaluate-run";
 export * from "./list-findings";

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  describeChargeRetention,
   clauseFourTolerances,
   convertToBounds,
   findProcedureTemplate,
@@ -186,6 +187,42 @@ describe('other clauses of IEC 61960-3 (docs/references.md §2, last item) [memo
     const resolution = resolutionOf(procedure);
     expect(resolvedStepOf(resolution, 'storage')).toMatchObject({ kind: 'rest', minDuration: { value: 28 * 24 * 3600 } });
     expectRecalledNote(procedure, /28 days/);
+  });
+
+  it('charge retention and recovery: discharge after storage, then charge, rest 1 h to 4 h and discharge again, both at 0.2 It — [memory], noted as recalled', () => {
+    const procedure = templateOf('charge-retention');
+    expect(procedure.steps.map((step) => step.id)).toEqual([
+      'precondition',
+      'charge',
+      'storage',
+      'discharge',
+      'recovery-charge',
+      'recovery-rest',
+      'recovery-discharge',
+    ]);
+    const resolution = resolutionOf(procedure);
+    // 0.2 It of the 3 000 mAh cell = 0.6 A (REFERENCES.md §1, published) for both measured discharges.
+    for (const id of ['discharge', 'recovery-discharge']) {
+      expect(resolvedStepOf(resolution, id)).toMatchObject({ kind: 'discharge', purpose: 'measure', current: { value: 0.6 } });
+    }
+    expect(resolvedStepOf(resolution, 'recovery-charge')).toMatchObject({ kind: 'charge', voltage: { value: 4.2 } });
+    // Rest 1 h to 4 h after charge as for the rated capacity (REFERENCES.md §2, memory).
+    expect(resolvedStepOf(resolution, 'recovery-rest')).toMatchObject({ kind: 'rest', minDuration: { value: 3600 }, maxDuration: { value: 14400 } });
+    expectRecalledNote(procedure, /Recovery: charge again/);
+    // Both percentages of the rated capacity: a parameter of the template, recalled.
+    expect(procedure.retention).toEqual({ afterStorageStepId: 'discharge', recoveryStepId: 'recovery-discharge', basis: 'rated capacity' });
+    expect(resolution.retention).toEqual({
+      afterStorageStepId: 'discharge',
+      recoveryStepId: 'recovery-discharge',
+      basis: { kind: 'rated capacity', capacityAh: typicalNmcCell.ratedCapacityMah / 1000 },
+    });
+    expectRecalledNote(procedure, /percentages of the rated capacity/);
+    expect(describeChargeRetention(resolution.retention!, resolution.steps)).toBe(
+      'Reports charge retention ("Discharge after storage (retention)") and recovery ("Recovery discharge") as percentages of the rated capacity, 3 000 mAh.',
+    );
+    // No limit is published in our references: the template sets none and says so.
+    expect(procedure.acceptance).toEqual([]);
+    expect(procedure.header.notes).toContainEqual(expect.stringMatching(/No acceptance limit set: none is published in our references/));
   });
 });
 

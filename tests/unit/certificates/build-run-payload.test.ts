@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { buildRunCertificatePayload, readDecisionRule, type StoredEvaluation } from "@/lib/certificates/build-run-payload";
 import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
+import { evaluateChargeRetention } from "@/lib/conformance";
 import { findUnacknowledgedDeviations, readAcknowledgedDeviations } from "@/lib/certificates/review-coverage";
 import { buildFixtureRecords } from "./fixture-payload";
 
@@ -78,6 +79,25 @@ describe("buildRunCertificatePayload", () => {
     expect(payload.uncertaintyNotEvaluated).toEqual([]);
     const guarded = { ...legacy, acceptance: records.evaluation.value.acceptance.map((a) => ({ ...a, rule: "guarded acceptance" as const })) };
     expect(readDecisionRule(guarded)).toBe("guarded acceptance");
+  });
+
+  it("states charge retention and recovery with their basis when the evaluation has them, and adds no field when it has none", () => {
+    const { records } = buildFixtureRecords();
+    expect("retention" in buildRunCertificatePayload(records)).toBe(false);
+    // The fixture is a rated-capacity run: its two discharges stand in for the ones after storage and after recharging.
+    const steps = records.evaluation.value.steps;
+    records.evaluation.value.retention = evaluateChargeRetention(
+      { afterStorageStepId: "precondition", recoveryStepId: "discharge", basis: { kind: "rated capacity", capacityAh: 3 } },
+      steps,
+      "IEC 61960-3:2017 7.4",
+    );
+    const capacityOf = (id: string) => steps.find((s) => s.stepId === id && s.cycle === 1)!.results!.capacityAh;
+    const payload = buildRunCertificatePayload(records);
+    expect(payload.retention?.basis).toBe("Both percentages are of the rated capacity, 3 000 mAh, as the procedure sets (IEC 61960-3:2017 7.4, charge retention and recovery).");
+    expect(payload.retention?.rows.map((r) => r.name)).toEqual(["Charge retention (after storage)", "Charge recovery (after recharging)"]);
+    expect(payload.retention?.rows[0]?.percent).toBeCloseTo((capacityOf("precondition") / 3) * 100, 12);
+    expect(payload.retention?.rows[1]?.percent).toBeCloseTo((capacityOf("discharge") / 3) * 100, 12);
+    expect(payload.retention?.rows[1]?.capacityMAh).toBeCloseTo(capacityOf("discharge") * 1000, 9);
   });
 
   it("is deterministic: the same records give the same hash; any stated value changes it", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compareProcedures, listChangedPaths, ratedCapacityAt20cTemplate, type Procedure, type Step } from '@/protocols';
+import { chargeRetentionTemplate, compareProcedures, describeRetentionSetting, listChangedPaths, ratedCapacityAt20cTemplate, type Procedure, type Step } from '@/protocols';
 
 function copy(): Procedure {
   return structuredClone(ratedCapacityAt20cTemplate);
@@ -85,6 +85,23 @@ describe('compareProcedures', () => {
       ['time', 'added', []],
     ]);
     expect(comparison.repeat).toMatchObject({ change: 'changed', changedFields: ['maxCycles'] });
+  });
+});
+
+describe('compareProcedures on the retention setting', () => {
+  it('is not identical when only the basis of the percentages changed, and says how', () => {
+    const after: Procedure = {
+      ...chargeRetentionTemplate,
+      retention: { ...chargeRetentionTemplate.retention!, basis: 'capacity before storage', beforeStorageStepId: 'discharge' },
+    };
+    const comparison = compareProcedures(chargeRetentionTemplate, after);
+    expect(comparison.identical).toBe(false);
+    expect(comparison.retention).toMatchObject({ change: 'changed', changedFields: ['basis', 'beforeStorageStepId'] });
+    expect(compareProcedures(ratedCapacityAt20cTemplate, chargeRetentionTemplate).retention.change).toBe('added');
+    expect(compareProcedures(chargeRetentionTemplate, structuredClone(chargeRetentionTemplate)).identical).toBe(true);
+    expect(describeRetentionSetting(chargeRetentionTemplate.retention!, chargeRetentionTemplate.steps)).toBe(
+      'Charge retention ("Discharge after storage (retention)") and recovery ("Recovery discharge") as percentages of the rated capacity.',
+    );
   });
 });
 

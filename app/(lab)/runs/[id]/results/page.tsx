@@ -2,6 +2,7 @@ import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
 import { FindingsTable, type FindingRow } from "@/components/runs/results/findings-table";
 import { ResultsTable } from "@/components/runs/results/results-table";
+import { RetentionTable } from "@/components/runs/results/retention-table";
 import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots";
 import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
 import { UncertaintySection } from "@/components/runs/results/uncertainty-section";
@@ -89,6 +90,14 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
         </h2>
         <ResultsTable rows={listResultRows(evaluation)} />
       </section>
+      {evaluation.retention && (
+        <section aria-labelledby="retention-heading">
+          <h2 id="retention-heading" className="mb-2 text-lg font-semibold">
+            Charge retention and recovery
+          </h2>
+          <RetentionTable retention={evaluation.retention} />
+        </section>
+      )}
       <section aria-labelledby="conformity-heading">
         <h2 id="conformity-heading" className="mb-2 text-lg font-semibold">
           Statement of conformity

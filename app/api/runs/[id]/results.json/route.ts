@@ -13,6 +13,7 @@ export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params })
     verdict: evaluation.verdict,
     conformity: evaluation.conformity,
     results: listResultRows(evaluation),
+    ...(evaluation.retention && { retention: evaluation.retention }),
     findings: [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)],
   };
   return new Response(JSON.stringify(body, null, 2), {
