@@ -3,29 +3,7 @@ import { recordedTimeSchema, type AmbientReading, type StepCorrection, type Step
 import type { ResolvedStep } from "@/protocols";
 import { checkNewReading } from "./check-new-reading";
 import { listProgrammedFields } from "./programmed-fields";
-import { stepKeySchema } from "./step-form";
-
-const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, { error: `at most ${max} characters` })
-    .optional()
-    .transform((v) => (v ? v : undefined));
-
-const optionalNumber = z
-  .string()
-  .trim()
-  .optional()
-  .transform((v, ctx) => {
-    if (!v) return undefined;
-    const n = Number(v.replace(",", "."));
-    if (!Number.isFinite(n)) {
-      ctx.addIssue({ code: "custom", message: "write a number" });
-      return z.NEVER;
-    }
-    return n;
-  });
+import { optionalNumber, optionalText, stepKeySchema } from "./step-form";
 
 const optionalTime = recordedTimeSchema.optional().or(z.literal("").transform(() => undefined));
 

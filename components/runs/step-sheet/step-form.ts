@@ -4,7 +4,8 @@ import type { ResolvedStep } from "@/protocols";
 import { checkNewReading } from "./check-new-reading";
 import { listProgrammedFields } from "./programmed-fields";
 
-const optionalText = (max: number) =>
+/** Form text that may be left empty (empty → undefined), at most `max` characters. */
+export const optionalText = (max: number) =>
   z
     .string()
     .trim()
@@ -12,7 +13,8 @@ const optionalText = (max: number) =>
     .optional()
     .transform((v) => (v ? v : undefined));
 
-const optionalNumber = z
+/** A form number that may be left empty; a decimal comma is read as a point. */
+export const optionalNumber = z
   .string()
   .trim()
   .optional()
