@@ -1,6 +1,5 @@
 import "server-only";
 import { sql } from "kysely";
-import { classifyDischarge } from "@/lib/lot-results/capacity-discharge";
 import type { ResolvedStep } from "@/protocols";
 import type { Executor } from "./index";
 import type { RunStatus } from "./schema";
@@ -80,14 +79,14 @@ function buildConditions(filter: DischargeResultFilter) {
 }
 
 /**
- * Every capacity discharge of the reviewed runs (accepted or certified) that match the filter, read
- * from the evaluation the accepting reviewer signed for (the latest 'accepted' review, as
+ * Every constant-current discharge of the reviewed runs (accepted or certified) that match the filter,
+ * read from the evaluation the accepting reviewer signed for (the latest 'accepted' review, as
  * db/evidence.ts getReviewedEvaluation reads it). The steps are unpacked from the stored JSON in
- * SQL, so only the figures cross the wire; each discharge is then kept only if
- * lib/lot-results/capacity-discharge.ts says it is a capacity result (measured, at 20 °C, fresh
- * from the charge). Ordered by lot position, specimen, run, step.
+ * SQL, so only the figures cross the wire. Which of them count as capacity results is a domain
+ * decision: lib/lots/results/list-discharge-results.ts makes it. Ordered by lot position, specimen,
+ * run, step.
  */
-export async function listDischargeResults(db: Executor, filter: DischargeResultFilter = {}): Promise<DischargeResultRow[]> {
+export async function listReviewedDischarges(db: Executor, filter: DischargeResultFilter = {}): Promise<DischargeResultRow[]> {
   if (filter.runNumbers?.length === 0) return [];
   const result = await sql<Row>`
     with reviewed as (
@@ -123,38 +122,35 @@ export async function listDischargeResults(db: Executor, filter: DischargeResult
       and jsonb_typeof(st->'results'->'constantCurrent') = 'object'
       and jsonb_typeof(st->'results'->'meanVoltageV') = 'number'
     order by l.identifier nulls last, s.lot_position nulls last, s.identifier, r.number, (st->'results'->>'startS')::float8`.execute(db);
-  if (result.rows.length === 0) return [];
-  const stepsOfRun = await listResolvedSteps(db, [...new Set(result.rows.map((r) => r.run_id))]);
-  return result.rows
-    .filter((r) => classifyDischarge(stepsOfRun.get(r.run_id) ?? [], r.step_id).counts)
-    .map((r) => ({
-      runId: r.run_id,
-      runNumber: r.run_number,
-      runStatus: r.run_status,
-      specimenId: r.specimen_id,
-      specimenIdentifier: r.specimen_identifier,
-      lotPosition: r.lot_position,
-      lotId: r.lot_id,
-      lotIdentifier: r.lot_identifier,
-      cellSpecificationId: r.cell_specification_id,
-      specificationName: r.specification_name,
-      rating: { ratedCapacityMah: r.rated_capacity_mah, maxContinuousDischargeCurrentA: r.max_discharge_current_a },
-      procedureCode: r.procedure_code,
-      stepId: r.step_id,
-      cycle: r.cycle,
-      stepLabel: r.step_label,
-      currentA: r.current_a,
-      capacityAh: r.capacity_ah,
-      energyWh: r.energy_wh,
-      meanVoltageV: r.mean_voltage_v,
-      beyondRating: r.beyond_rating,
-      evaluationId: r.evaluation_id,
-      evaluatedAt: r.evaluated_at,
-    }));
+  return result.rows.map((r) => ({
+    runId: r.run_id,
+    runNumber: r.run_number,
+    runStatus: r.run_status,
+    specimenId: r.specimen_id,
+    specimenIdentifier: r.specimen_identifier,
+    lotPosition: r.lot_position,
+    lotId: r.lot_id,
+    lotIdentifier: r.lot_identifier,
+    cellSpecificationId: r.cell_specification_id,
+    specificationName: r.specification_name,
+    rating: { ratedCapacityMah: r.rated_capacity_mah, maxContinuousDischargeCurrentA: r.max_discharge_current_a },
+    procedureCode: r.procedure_code,
+    stepId: r.step_id,
+    cycle: r.cycle,
+    stepLabel: r.step_label,
+    currentA: r.current_a,
+    capacityAh: r.capacity_ah,
+    energyWh: r.energy_wh,
+    meanVoltageV: r.mean_voltage_v,
+    beyondRating: r.beyond_rating,
+    evaluationId: r.evaluation_id,
+    evaluatedAt: r.evaluated_at,
+  }));
 }
 
 /** The resolved steps each run was planned with (run.resolution, written only by lib/runs). */
-async function listResolvedSteps(db: Executor, runIds: readonly string[]): Promise<Map<string, ResolvedStep[]>> {
+export async function listResolvedSteps(db: Executor, runIds: readonly string[]): Promise<Map<string, ResolvedStep[]>> {
+  if (runIds.length === 0) return new Map();
   const rows = await db
     .selectFrom("run")
     .select(["id", sql<ResolvedStep[]>`resolution->'steps'`.as("steps")])

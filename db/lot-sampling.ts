@@ -1,5 +1,5 @@
 import "server-only";
-import { decideLot, type InspectionLevel, type LotDecision, type SamplingPlan } from "@/lib/sampling";
+import type { InspectionLevel, SamplingPlan } from "@/lib/lots/sampling";
 import type { Executor } from "./index";
 
 /** What one drawn cell has shown: the statement of conformity of its reviewed run, or "not tested". */
@@ -27,7 +27,8 @@ export interface LotSampleDrawView {
   drawnBy: string;
 }
 
-export interface LotSampling {
+/** A lot's sampling as recorded; lib/lots/sampling/read-lot-sampling.ts adds the lot decision. */
+export interface LotSamplingRecord {
   plan: SamplingPlan | null;
   /** As the table heads its column: "0.65", "1.0". */
   aql: string | null;
@@ -38,8 +39,6 @@ export interface LotSampling {
   /** One per drawn position, in draw order. */
   members: LotSampleMember[];
   counts: { drawn: number; registered: number; tested: number; nonconforming: number; notDecided: number };
-  /** decideLot's answer from the counts; null while the lot has no plan. */
-  decision: LotDecision | null;
 }
 
 const REVIEWED: readonly ("accepted" | "certified")[] = ["accepted", "certified"];
@@ -73,8 +72,8 @@ function toResult(statement: string): LotMemberResult {
   return statement === "conforms" || statement === "does not conform" ? statement : "not decided";
 }
 
-/** A lot's sampling: its plan, the drawn sample with each cell's result, the counts and the lot decision. */
-export async function getLotSampling(db: Executor, lotId: string): Promise<LotSampling | null> {
+/** A lot's sampling as recorded: its plan, the drawn sample with each cell's reviewed result, and the counts. */
+export async function getLotSamplingRecord(db: Executor, lotId: string): Promise<LotSamplingRecord | null> {
   const lot = await db
     .selectFrom("lot as l")
     .leftJoin("procedure as p", "p.id", "l.acceptance_procedure_id")
@@ -121,13 +120,6 @@ export async function getLotSampling(db: Executor, lotId: string): Promise<LotSa
   const nonconforming = count("does not conform");
   const tested = count("conforms") + nonconforming;
   const counts = { drawn: members.length, registered: specimens.length, tested, nonconforming, notDecided: count("not decided") };
-  let decision: LotDecision | null = null;
-  if (plan) {
-    const decided = decideLot({ plan, tested, nonconforming });
-    // The counts come from at most n drawn positions, so decideLot cannot refuse them.
-    if (!decided.ok) throw new Error(`lot ${lotId}: ${decided.error.message}`);
-    decision = decided.decision;
-  }
   return {
     plan,
     aql: lot.aql,
@@ -136,7 +128,6 @@ export async function getLotSampling(db: Executor, lotId: string): Promise<LotSa
     draw,
     members,
     counts,
-    decision,
   };
 }
 

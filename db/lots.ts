@@ -1,6 +1,6 @@
 import "server-only";
 import { sql } from "kysely";
-import type { InspectionLevel, SamplingPlan } from "@/lib/sampling";
+import type { InspectionLevel, SamplingPlan } from "@/lib/lots/sampling";
 import type { Executor } from "./index";
 
 /** The cell specification a lot or specimen is of, as lists and links show it. */

@@ -1,5 +1,5 @@
 import { getDb } from "../db";
-import { getLotSampling } from "../db/lot-sampling";
+import { getLotSampling } from "../lib/lots/sampling/read-lot-sampling";
 import { getProcedureIdByCode } from "../db/procedures";
 import { getRun } from "../db/runs";
 import { formatLogCsv } from "../lib/analysis";
@@ -15,7 +15,7 @@ import { ingestLog } from "../lib/runs/ingest-log";
 import { recordStep } from "../lib/runs/record-step";
 import { startRun } from "../lib/runs/start-run";
 import { submitRun } from "../lib/runs/submit-run";
-import { createLot, lotInputSchema } from "../lib/specimens/lots";
+import { createLot, lotInputSchema } from "../lib/lots/lot-records";
 import { createSpecimen, specimenInputSchema } from "../lib/specimens/specimens";
 import type { ResolvedStep } from "../protocols";
 import { buildDemoRunLog } from "./demo-run-log";

@@ -20,7 +20,7 @@ import { createProcedure, releaseVersion, submitForReview } from "../lib/procedu
 import { procedureDraftSchema } from "../lib/procedures/procedure-input";
 import { plainToRichText } from "../lib/rich-text";
 import { startRun } from "../lib/runs/start-run";
-import { createLot, lotInputSchema } from "../lib/specimens/lots";
+import { createLot, lotInputSchema } from "../lib/lots/lot-records";
 import { createSpecimen, specimenInputSchema } from "../lib/specimens/specimens";
 import { attachDatasheet, createCellSpecification, cellSpecificationInputSchema } from "../lib/specs/cell-specifications";
 import { procedureTemplates } from "../protocols";

@@ -2,8 +2,8 @@ import Link from "next/link";
 import type { CellSpecificationView } from "@/db/cell-specifications";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import type { LotView } from "@/db/lots";
-import { computeMultipleOfIt, formatDischargeKey, listMultiplesOfIt, MAX_OVERLAID, type CompareQuery } from "@/lib/lot-results/compare-selection";
-import { isAboveRating } from "@/lib/lot-results/summarise-results";
+import { computeMultipleOfIt, formatDischargeKey, listMultiplesOfIt, MAX_OVERLAID, type CompareQuery } from "@/lib/lots/results/compare-selection";
+import { isAboveRating } from "@/lib/lots/results/summarise-results";
 import { formatNumber } from "@/protocols";
 
 /** Most rows the list shows at once; the filters narrow it. */

@@ -5,8 +5,8 @@ import { useMemo } from "react";
 import uPlot from "uplot";
 import { getJson } from "@/components/procedure-preview/post-json";
 import { UplotChart } from "@/components/runs/results/uplot-chart";
-import type { OverlaySeriesView } from "@/lib/lot-results/compare-series-view";
-import type { OverlayStyle } from "@/lib/lot-results/overlay-style";
+import type { OverlaySeriesView } from "@/lib/lots/results/compare-series-view";
+import type { OverlayStyle } from "@/lib/lots/results/overlay-style";
 
 const POINTS = 1000;
 

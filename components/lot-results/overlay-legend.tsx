@@ -1,7 +1,7 @@
 import type { DischargeResultRow } from "@/db/discharge-results";
-import { computeMultipleOfIt, formatDischargeKey } from "@/lib/lot-results/compare-selection";
-import type { OverlayStyle } from "@/lib/lot-results/overlay-style";
-import { isAboveRating } from "@/lib/lot-results/summarise-results";
+import { computeMultipleOfIt, formatDischargeKey } from "@/lib/lots/results/compare-selection";
+import type { OverlayStyle } from "@/lib/lots/results/overlay-style";
+import { isAboveRating } from "@/lib/lots/results/summarise-results";
 import { formatNumber } from "@/protocols";
 
 function Swatch({ style }: { style: OverlayStyle }) {

@@ -8,7 +8,7 @@ import {
   pickSpecimensAtOneCurrent,
   type CompareQuery,
   type DischargeKey,
-} from "@/lib/lot-results/compare-selection";
+} from "@/lib/lots/results/compare-selection";
 import { formatNumber } from "@/protocols";
 
 const it = (m: number) => `${formatNumber(m, { maxDecimals: 2 })} It`;

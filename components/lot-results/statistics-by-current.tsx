@@ -1,6 +1,6 @@
 import { Notice } from "@/components/ui/notice";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
-import type { CurrentSummary, StatisticsSummary } from "@/lib/lot-results/summarise-results";
+import type { CurrentSummary, StatisticsSummary } from "@/lib/lots/results/summarise-results";
 import { cplFormula, cplSource, type ResultsDescription } from "@/lib/statistics";
 import { formatNumber } from "@/protocols";
 import { HistogramChart, type HistogramMarker } from "./histogram-chart";

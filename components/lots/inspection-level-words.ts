@@ -1,4 +1,4 @@
-import type { InspectionLevel } from "@/lib/sampling";
+import type { InspectionLevel } from "@/lib/lots/sampling";
 
 /**
  * ISO 2859-1 inspection levels in the lab's words: the general levels for ordinary lots, the special

@@ -4,7 +4,7 @@ import { Notice } from "@/components/ui/notice";
 import type { CertificateStatus } from "@/db/certificates";
 import type { ActionState } from "@/lib/forms/action-state";
 import { formatDateTime } from "@/lib/format-date-time";
-import type { LotVerdict } from "@/lib/sampling";
+import type { LotVerdict } from "@/lib/lots/sampling";
 import { IssueLotCertificateForm } from "./issue-lot-certificate-form";
 
 interface Props {

@@ -1,6 +1,6 @@
 import clsx from "clsx";
-import type { LotSampling } from "@/db/lot-sampling";
-import type { LotVerdict, SamplingPlan } from "@/lib/sampling";
+import type { LotSampling } from "@/lib/lots/sampling/read-lot-sampling";
+import type { LotVerdict, SamplingPlan } from "@/lib/lots/sampling";
 import { Notice } from "@/components/ui/notice";
 import { formatNumber } from "@/protocols/format-number";
 

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import type { LotSampling } from "@/db/lot-sampling";
+import type { LotSampling } from "@/lib/lots/sampling/read-lot-sampling";
 import type { ActionState } from "@/lib/forms/action-state";
 import { formatDateTime } from "@/lib/format-date-time";
 import { formatNumber } from "@/protocols/format-number";

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { SamplingPlan } from "@/lib/sampling";
+import type { SamplingPlan } from "@/lib/lots/sampling";
 import { formatNumber } from "@/protocols/format-number";
 import { INSPECTION_LEVEL_WORDS } from "./inspection-level-words";
 

@@ -1,10 +1,8 @@
 import type { ChangeEvent } from "react";
 import { Field } from "@/components/ui/field";
+import type { SpecificationOption } from "@/lib/specimens/form-option-types";
 
-export interface SpecificationOption {
-  id: string;
-  label: string;
-}
+export type { SpecificationOption };
 
 /** The cell specification a lot or a specimen is of. Controlled when `value` is given. */
 export function SpecificationSelect({

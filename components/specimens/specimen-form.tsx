@@ -6,17 +6,12 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
+import type { LotOption } from "@/lib/specimens/form-option-types";
 import { SpecificationSelect, type SpecificationOption } from "./specification-select";
 
 type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
 
-export interface LotOption {
-  id: string;
-  label: string;
-  cellSpecificationId: string;
-  receivedOn: string;
-  quantityReceived: number;
-}
+export type { LotOption };
 
 export interface SpecimenFormValues {
   id?: string;

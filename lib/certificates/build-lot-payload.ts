@@ -1,6 +1,6 @@
 import type { LotMemberResult } from "@/db/lot-sampling";
-import { summariseStatistics, type SummaryResult } from "@/lib/lot-results/summarise-results";
-import type { LotDecision, SamplingPlan } from "@/lib/sampling";
+import { summariseStatistics, type SummaryResult } from "@/lib/lots/results/summarise-results";
+import type { LotDecision, SamplingPlan } from "@/lib/lots/sampling";
 import { findReferenceGroup, groupByCurrent } from "@/lib/statistics";
 import type { CellSpecification, StoredDecisionRule } from "@/protocols";
 import { formatNumber } from "@/protocols/format-number";

@@ -222,7 +222,7 @@ export interface LotCertificateCell {
   currentA: number | null;
 }
 
-/** Capacity statistics of the sample at 0.2 It (lib/lot-results summariseStatistics). */
+/** Capacity statistics of the sample at 0.2 It (lib/lots/results summariseStatistics). */
 export interface LotCertificateStatistics {
   currentA: number;
   count: number;

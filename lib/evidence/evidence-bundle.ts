@@ -9,8 +9,8 @@ import { getCertificateByNumber, listLotCertificates, type CertificateView } fro
 import { getReviewedEvaluation, listRunCertificateIds, listRunLogFiles } from "@/db/evidence";
 import { readCertificatePdf } from "@/lib/certificates/certificate-pdf";
 import { DomainError } from "@/lib/errors";
-import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lot-results/export-results";
-import { readLotResults } from "@/lib/lot-results/read-results";
+import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lots/results/export-results";
+import { readLotResults } from "@/lib/lots/results/read-results";
 import { readVerifiedFile, type Reader } from "@/lib/integrity/read-verified-file";
 import { formatAuditTrailCsv } from "./audit-trail-csv";
 

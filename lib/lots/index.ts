@@ -1,5 +1,6 @@
-// Lot sampling services (ISO 2859-1): the plan an engineer sets for a lot and the sample drawn under it.
-export { setLotSamplingPlan } from "./set-lot-sampling-plan";
-export { drawLotSample } from "./draw-lot-sample";
-export { replanForNewLotSize } from "./replan-for-lot-size";
-export { computeSamplingPlan } from "./compute-sampling-plan";
+// Lot services: the lot record, the sampling plan an engineer sets for it (ISO 2859-1) and the sample drawn under it.
+export { createLot, editLot, lotInputSchema, type LotInput } from "./lot-records";
+export { setLotSamplingPlan } from "./sampling/set-lot-sampling-plan";
+export { drawLotSample } from "./sampling/draw-lot-sample";
+export { replanForNewLotSize } from "./sampling/replan-for-lot-size";
+export { computeSamplingPlan } from "./sampling/compute-sampling-plan";

@@ -6,7 +6,7 @@ import { countSpecimensOfLot, getHighestLotPosition, getLot, insertLot, lockLot,
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { readLabToday } from "@/lib/instruments/lab-today";
-import { replanForNewLotSize } from "@/lib/lots/replan-for-lot-size";
+import { replanForNewLotSize } from "@/lib/lots/sampling/replan-for-lot-size";
 import { lotInputSchema, type LotInput } from "./lot-input";
 
 export { lotInputSchema, type LotInput };

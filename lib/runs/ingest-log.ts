@@ -12,6 +12,7 @@ import { columnMappingSchema, createLogParser, type ColumnMapping, type LogImpor
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { deleteObject, putObjectFromFile } from "@/lib/storage";
+import { isRunOpen } from "./run-status";
 
 /** Largest data log accepted: a 2-million-row log is ≈ 70 MB. */
 export const LOG_MAX_BYTES = 200 * 1024 * 1024;
@@ -34,7 +35,7 @@ export async function ingestLog(
   const mapping: ColumnMapping = columnMappingSchema.parse(upload.mapping);
   const run = await getRun(getDb(), runId);
   if (!run) throw new DomainError("not-found", "No such run.");
-  if (!["planned", "in_progress", "returned"].includes(run.status)) {
+  if (!isRunOpen(run.status)) {
     throw new DomainError("conflict", `Run ${run.number} is ${run.status.replace("_", " ")}; its log can no longer change.`);
   }
 
@@ -67,7 +68,7 @@ export async function ingestLog(
     stored = true;
     const runLogId = await getDb().transaction().execute(async (tx) => {
       const current = await getRun(tx, runId, { forUpdate: true });
-      if (!current || !["planned", "in_progress", "returned"].includes(current.status)) {
+      if (!current || !isRunOpen(current.status)) {
         throw new DomainError("conflict", "The run changed while the log was uploading; nothing was stored.");
       }
       const f = await insertStoredFile(tx, { storageKey: key, originalName: upload.name.slice(0, 200), contentType: "text/csv", sizeBytes: bytes, sha256, purpose: "run-log", uploadedBy: actor.id });

@@ -5,9 +5,7 @@ import { getRun, getStepRecord, setRunStatus, upsertStepRecord } from "@/db/runs
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { isPlausibleAmbient, stepRecordSchema, type StepRecord, type StepRecordInput } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
-import { RUN_STATUS_WORDS } from "./run-status";
-
-const OPEN = new Set(["planned", "in_progress", "returned"]);
+import { isRunOpen, RUN_STATUS_WORDS } from "./run-status";
 
 /**
  * Saves what the operator recorded for one step of one cycle. The first record moves a planned run
@@ -26,7 +24,7 @@ export async function recordStep(
   await getDb().transaction().execute(async (tx) => {
     const run = await getRun(tx, runId, { forUpdate: true });
     if (!run) throw new DomainError("not-found", "No such run.");
-    if (!OPEN.has(run.status)) throw new DomainError("conflict", `Run ${run.number} is ${RUN_STATUS_WORDS[run.status].words}; its records can no longer change.`);
+    if (!isRunOpen(run.status)) throw new DomainError("conflict", `Run ${run.number} is ${RUN_STATUS_WORDS[run.status].words}; its records can no longer change.`);
     if (!run.resolution.steps.some((s) => s.id === record.stepId)) throw new DomainError("invalid", `The procedure of run ${run.number} has no step ${record.stepId}.`);
     const before = await getStepRecord(tx, runId, record.stepId, record.cycle);
     const timesChanged = before && ((before.startedAt && before.startedAt !== record.startedAt) || (before.endedAt && before.endedAt !== record.endedAt));

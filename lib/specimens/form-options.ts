@@ -2,8 +2,7 @@ import "server-only";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
 import { listLots } from "@/db/lots";
-import type { LotOption } from "@/components/specimens/specimen-form";
-import type { SpecificationOption } from "@/components/specimens/specification-select";
+import type { LotOption, SpecificationOption } from "./form-option-types";
 
 /** The cell specifications a lot or specimen can be of, labelled as people pick them. */
 export async function loadSpecificationOptions(): Promise<SpecificationOption[]> {

@@ -1,4 +1,4 @@
-import type { LotInput } from "./lot-input";
+import type { LotInput } from "@/lib/lots/lot-input";
 import type { SpecimenInput } from "./specimen-input";
 
 const reader = (form: FormData) => (k: string) => String(form.get(k) ?? "").trim();

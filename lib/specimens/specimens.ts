@@ -5,7 +5,7 @@ import { countSpecimensOfLot, lockLot } from "@/db/lots";
 import { findSpecimenAtLotPosition, getSpecimen, insertSpecimen, specimenHasRuns, updateSpecimen, type SpecimenView } from "@/db/specimens";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
-import { nameSpecification, refuseFutureReceipt } from "./lots";
+import { nameSpecification, refuseFutureReceipt } from "@/lib/lots/lot-records";
 import { specimenInputSchema, type SpecimenInput, type SpecimenValues } from "./specimen-input";
 
 export { specimenInputSchema, type SpecimenInput, type SpecimenValues };

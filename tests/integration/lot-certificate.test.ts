@@ -26,7 +26,7 @@ import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
-import { createLot, lotInputSchema } from "@/lib/specimens/lots";
+import { createLot, lotInputSchema } from "@/lib/lots/lot-records";
 import { createSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";

@@ -1,14 +1,14 @@
 import Papa from "papaparse";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { listDischargeResults } from "@/db/discharge-results";
+import { listDischargeResults } from "@/lib/lots/results/list-discharge-results";
 import { formatLogCsv } from "@/lib/analysis";
 import { hashPassword } from "@/lib/auth/password";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import type { RunEvaluation } from "@/lib/conformance";
-import { classifyDischarge } from "@/lib/lot-results/capacity-discharge";
-import { EXPORT_COLUMNS, formatResultsCsv, listExportedResults } from "@/lib/lot-results/export-results";
-import { readLotResults } from "@/lib/lot-results/read-results";
+import { classifyDischarge } from "@/lib/lots/results/capacity-discharge";
+import { EXPORT_COLUMNS, formatResultsCsv, listExportedResults } from "@/lib/lots/results/export-results";
+import { readLotResults } from "@/lib/lots/results/read-results";
 import { acceptRun } from "@/lib/reviews/accept-run";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";

@@ -2,7 +2,7 @@ import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
-import { listDischargeResults } from "@/db/discharge-results";
+import { listDischargeResults } from "@/lib/lots/results/list-discharge-results";
 import { getRun, listStepRecords } from "@/db/runs";
 import { formatLogCsv } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";

@@ -6,7 +6,7 @@ import { getLot } from "@/db/lots";
 import { getSpecimen, listSpecimens } from "@/db/specimens";
 import { addDays } from "@/lib/instruments/calendar-date";
 import { readLabToday } from "@/lib/instruments/lab-today";
-import { createLot, editLot, lotInputSchema } from "@/lib/specimens/lots";
+import { createLot, editLot, lotInputSchema } from "@/lib/lots/lot-records";
 import { createSpecimen, editSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { cellSpecificationInputSchema } from "@/lib/specs/cell-specifications-input";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { planSampling, table2aSampleSizes, type CodeLetter, type InspectionLevel, type SamplingPlan } from "@/lib/sampling";
+import { planSampling, table2aSampleSizes, type CodeLetter, type InspectionLevel, type SamplingPlan } from "@/lib/lots/sampling";
 
 function plan(lotSize: number, aql: number, inspectionLevel: InspectionLevel = "II"): SamplingPlan {
   const result = planSampling({ lotSize, aql, inspectionLevel, severity: "normal" });

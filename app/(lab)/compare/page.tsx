@@ -7,12 +7,12 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
-import { listDischargeResults } from "@/db/discharge-results";
+import { listDischargeResults } from "@/lib/lots/results/list-discharge-results";
 import { listLots } from "@/db/lots";
 import { requirePagePermission } from "@/lib/auth/guards";
-import { formatDischargeKey, isAtMultiple, readCompareQuery } from "@/lib/lot-results/compare-selection";
-import { pickOverlayStyle, type OverlayStyle } from "@/lib/lot-results/overlay-style";
-import { findChosenDischarges } from "@/lib/lot-results/read-overlay-series";
+import { formatDischargeKey, isAtMultiple, readCompareQuery } from "@/lib/lots/results/compare-selection";
+import { pickOverlayStyle, type OverlayStyle } from "@/lib/lots/results/overlay-style";
+import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
 
 export const metadata: Metadata = { title: "Compare discharges" };
 

@@ -5,7 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { requireActionPermission } from "@/lib/auth/guards";
 import { toActionState, type ActionState } from "@/lib/forms/action-state";
-import { createLot, editLot, lotInputSchema } from "@/lib/specimens/lots";
+import { createLot, editLot, lotInputSchema } from "@/lib/lots/lot-records";
 import { readLotForm } from "@/lib/specimens/record-forms";
 
 export async function saveLotAction(_prev: ActionState, form: FormData): Promise<ActionState> {

@@ -2,7 +2,7 @@ import { getDb } from "@/db";
 import { listLots } from "@/db/lots";
 import { readJson } from "@/lib/api/read-json";
 import { apiRoute } from "@/lib/auth/guards";
-import { createLot, lotInputSchema } from "@/lib/specimens/lots";
+import { createLot, lotInputSchema } from "@/lib/lots/lot-records";
 
 export const GET = apiRoute("run.read", async (req) => {
   const q = new URL(req.url).searchParams.get("q")?.slice(0, 100) || undefined;

@@ -1,7 +1,7 @@
 import { readJson } from "@/lib/api/read-json";
 import { apiRoute } from "@/lib/auth/guards";
-import { computeSamplingPlan } from "@/lib/lots/compute-sampling-plan";
-import { samplingPlanRequestSchema } from "@/lib/lots/sampling-plan-input";
+import { computeSamplingPlan } from "@/lib/lots/sampling/compute-sampling-plan";
+import { samplingPlanRequestSchema } from "@/lib/lots/sampling/sampling-plan-input";
 
 /**
  * The ISO 2859-1 single sampling plan (normal inspection) for a lot size, inspection level and AQL,

@@ -1,6 +1,7 @@
 import "server-only";
 import { getDb } from "@/db";
-import { getReviewedDischargeStretch, listDischargeResults, type DischargeResultRow } from "@/db/discharge-results";
+import { getReviewedDischargeStretch, type DischargeResultRow } from "@/db/discharge-results";
+import { listDischargeResults } from "./list-discharge-results";
 import { readChannelRange } from "@/db/run-series";
 import { accumulateCapacityAh, thinChannels } from "@/lib/runs/plan-series-read";
 import { computeMultipleOfIt, formatDischargeKey, type DischargeKey } from "./compare-selection";

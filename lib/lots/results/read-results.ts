@@ -1,7 +1,8 @@
 import "server-only";
 import { getDb } from "@/db";
 import { getCellSpecification, type CellSpecificationView } from "@/db/cell-specifications";
-import { listDischargeResults, type DischargeResultRow } from "@/db/discharge-results";
+import type { DischargeResultRow } from "@/db/discharge-results";
+import { listDischargeResults } from "./list-discharge-results";
 import { getLot, type LotView } from "@/db/lots";
 import { getSpecimen, type SpecimenView } from "@/db/specimens";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";

@@ -1,5 +1,5 @@
 import { ZodError } from "zod";
-import { planSampling, type InspectionLevel, type InspectionSeverity, type SamplingPlan } from "@/lib/sampling";
+import { planSampling, type InspectionLevel, type InspectionSeverity, type SamplingPlan } from "@/lib/lots/sampling";
 
 /** A refusal tied to one input, answered like any invalid field: 422 from the API, an error beside the field in a form. */
 export function fieldRefusal(field: string, message: string): ZodError {

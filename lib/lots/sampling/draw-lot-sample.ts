@@ -5,7 +5,7 @@ import { recordAuditEvent } from "@/db/audit";
 import { getLotPlanColumns, hasLotSampleDraw, insertLotSampleDraw, lockLot } from "@/db/lots";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
-import { drawSample, type SamplingPlan } from "@/lib/sampling";
+import { drawSample, type SamplingPlan } from "@/lib/lots/sampling";
 import { fieldRefusal } from "./compute-sampling-plan";
 import { lotSampleDrawInputSchema, type LotSampleDrawInput } from "./sampling-plan-input";
 import { refuseUnlessEngineer } from "./set-lot-sampling-plan";

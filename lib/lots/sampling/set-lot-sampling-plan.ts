@@ -6,7 +6,7 @@ import { getLotPlanColumns, hasLotSampleDraw, lockLot, updateLotSamplingPlan } f
 import { can } from "@/lib/auth/permissions";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
-import type { SamplingPlan } from "@/lib/sampling";
+import type { SamplingPlan } from "@/lib/lots/sampling";
 import { computeSamplingPlan, fieldRefusal } from "./compute-sampling-plan";
 import { lotSamplingPlanInputSchema, type LotSamplingPlanInput } from "./sampling-plan-input";
 

@@ -1,6 +1,6 @@
 import { buildLotCertificatePayload, type LotCertificateRecords, type LotSampleResult } from "@/lib/certificates/build-lot-payload";
 import type { LotCertificatePayload } from "@/lib/certificates/certificate-payload";
-import { decideLot, planSampling } from "@/lib/sampling";
+import { decideLot, planSampling } from "@/lib/lots/sampling";
 import { inventedCell } from "../../support/rated-capacity-run";
 
 /** Invented capacities (mAh) at 0.2 It of the 13 drawn cells of an invented lot of 60: a scenario of our own. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { instrumentInputSchema } from "@/lib/instruments/instrument-input";
-import { lotInputSchema } from "@/lib/specimens/lot-input";
+import { lotInputSchema } from "@/lib/lots/lot-input";
 import { specimenInputSchema } from "@/lib/specimens/specimen-input";
 
 function messagesAt(result: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }, field: string): string[] {

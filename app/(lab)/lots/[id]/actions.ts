@@ -5,9 +5,9 @@ import { z } from "zod";
 import { requireActionPermission } from "@/lib/auth/guards";
 import { issueLotCertificate } from "@/lib/certificates/issue-lot-certificate";
 import { toActionState, type ActionState } from "@/lib/forms/action-state";
-import { drawLotSample } from "@/lib/lots/draw-lot-sample";
-import { readDrawForm, readSamplingPlanForm } from "@/lib/lots/read-lot-forms";
-import { setLotSamplingPlan } from "@/lib/lots/set-lot-sampling-plan";
+import { drawLotSample } from "@/lib/lots/sampling/draw-lot-sample";
+import { readDrawForm, readSamplingPlanForm } from "@/lib/lots/sampling/read-lot-forms";
+import { setLotSamplingPlan } from "@/lib/lots/sampling/set-lot-sampling-plan";
 
 const lotIdSchema = z.uuid({ error: "No such lot." });
 

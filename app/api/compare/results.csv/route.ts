@@ -1,7 +1,7 @@
 import { apiRoute } from "@/lib/auth/guards";
-import { chosenDischargesSchema } from "@/lib/lot-results/compare-selection";
-import { formatResultsCsv, listExportedResults } from "@/lib/lot-results/export-results";
-import { findChosenDischarges } from "@/lib/lot-results/read-overlay-series";
+import { chosenDischargesSchema } from "@/lib/lots/results/compare-selection";
+import { formatResultsCsv, listExportedResults } from "@/lib/lots/results/export-results";
+import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
 
 /** The numbers of the chosen discharges (`d`, repeated), one line each, in the order chosen. */
 export const GET = apiRoute("run.read", async (req) => {

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { apiRoute } from "@/lib/auth/guards";
-import { chosenDischargesSchema } from "@/lib/lot-results/compare-selection";
-import { readOverlaySeries } from "@/lib/lot-results/read-overlay-series";
+import { chosenDischargesSchema } from "@/lib/lots/results/compare-selection";
+import { readOverlaySeries } from "@/lib/lots/results/read-overlay-series";
 import { MAX_POINTS, MIN_POINTS } from "@/lib/runs/plan-series-read";
 
 const pointsMessage = `points is a whole number from ${MIN_POINTS} to ${MAX_POINTS}.`;

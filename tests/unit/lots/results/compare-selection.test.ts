@@ -10,7 +10,7 @@ import {
   pickSpecimensAtOneCurrent,
   PRESET_SPECIMENS,
   readCompareQuery,
-} from "@/lib/lot-results/compare-selection";
+} from "@/lib/lots/results/compare-selection";
 
 // An invented 3 000 mAh cell: It = 3 A (IEC 61434), so 0.2 It = 0.6 A.
 const rating = { ratedCapacityMah: 3000 };

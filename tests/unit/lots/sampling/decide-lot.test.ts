@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decideLot, type LotDecisionInput } from "@/lib/sampling";
+import { decideLot, type LotDecisionInput } from "@/lib/lots/sampling";
 
 // Plan H at AQL 1.0: n = 50, Ac 1, Re 2.
 const plan = { sampleSize: 50, acceptanceNumber: 1, rejectionNumber: 2 };

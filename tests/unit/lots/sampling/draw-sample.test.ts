@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { createSeededRandom } from "@/lib/analysis/seeded-random";
-import { drawSample } from "@/lib/sampling";
+import { drawSample } from "@/lib/lots/sampling";
 
 const lot = Array.from({ length: 12 }, (_, k) => `S-${String(k + 1).padStart(3, "0")}`);
 

@@ -8,7 +8,7 @@ import {
   table2aNormal,
   table2aSampleSizes,
   type Table2aCell,
-} from "@/lib/sampling";
+} from "@/lib/lots/sampling";
 
 // Consistency checks of the recalled tables: they catch a typing slip in the data, not a wrong memory.
 describe("Table 1 as data", () => {

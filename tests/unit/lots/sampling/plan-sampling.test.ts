@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { inspectionLevels, offeredAqlColumns, planSampling, type SamplingPlanInput } from "@/lib/sampling";
+import { inspectionLevels, offeredAqlColumns, planSampling, type SamplingPlanInput } from "@/lib/lots/sampling";
 
 const normal = (overrides: Partial<SamplingPlanInput>): SamplingPlanInput => ({
   lotSize: 400,

@@ -4,9 +4,9 @@ import { RateCapabilityTableView } from "@/components/lot-results/rate-capabilit
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePagePermission } from "@/lib/auth/guards";
-import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lot-results/compare-selection";
-import { readOrNotFound } from "@/lib/lot-results/or-not-found";
-import { readSpecimenResults } from "@/lib/lot-results/read-results";
+import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lots/results/compare-selection";
+import { readOrNotFound } from "@/lib/read-or-not-found";
+import { readSpecimenResults } from "@/lib/lots/results/read-results";
 import { formatNumber } from "@/protocols";
 
 export const metadata: Metadata = { title: "Rate capability" };

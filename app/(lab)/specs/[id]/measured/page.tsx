@@ -5,9 +5,9 @@ import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePagePermission } from "@/lib/auth/guards";
-import { formatCompareHref } from "@/lib/lot-results/compare-selection";
-import { readOrNotFound } from "@/lib/lot-results/or-not-found";
-import { readSpecificationResults } from "@/lib/lot-results/read-results";
+import { formatCompareHref } from "@/lib/lots/results/compare-selection";
+import { readOrNotFound } from "@/lib/read-or-not-found";
+import { readSpecificationResults } from "@/lib/lots/results/read-results";
 
 export const metadata: Metadata = { title: "Measured against the datasheet" };
 

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { apiRoute } from "@/lib/auth/guards";
-import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lot-results/export-results";
-import { readLotResults } from "@/lib/lot-results/read-results";
+import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lots/results/export-results";
+import { readLotResults } from "@/lib/lots/results/read-results";
 
 /** The lot's reviewed discharge results, one line each: the numbers behind its statistics. */
 export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {

@@ -1,8 +1,8 @@
 import { z } from "zod";
 import { apiRoute } from "@/lib/auth/guards";
-import { listExportedResults, toFileName } from "@/lib/lot-results/export-results";
-import { readLotResults } from "@/lib/lot-results/read-results";
-import { toSummaryJson } from "@/lib/lot-results/summary-json";
+import { listExportedResults, toFileName } from "@/lib/lots/results/export-results";
+import { readLotResults } from "@/lib/lots/results/read-results";
+import { toSummaryJson } from "@/lib/lots/results/summary-json";
 
 /** The lot's reviewed discharge results with the statistics and rate table made from them, as data. */
 export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {

@@ -1,9 +1,9 @@
 import { z } from "zod";
 import { getDb } from "@/db";
-import { getLotSampling } from "@/db/lot-sampling";
+import { getLotSampling } from "@/lib/lots/sampling/read-lot-sampling";
 import { apiRoute } from "@/lib/auth/guards";
-import { toSummaryJson } from "@/lib/lot-results/summary-json";
-import { readLotResults } from "@/lib/lot-results/read-results";
+import { toSummaryJson } from "@/lib/lots/results/summary-json";
+import { readLotResults } from "@/lib/lots/results/read-results";
 
 /** A lot at a glance: its sampling plan, draw and decision, statistics per current and rate capability. */
 export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {

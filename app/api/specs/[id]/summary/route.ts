@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { apiRoute } from "@/lib/auth/guards";
-import { readSpecificationResults } from "@/lib/lot-results/read-results";
-import { toSummaryJson } from "@/lib/lot-results/summary-json";
+import { readSpecificationResults } from "@/lib/lots/results/read-results";
+import { toSummaryJson } from "@/lib/lots/results/summary-json";
 
 /** A cell specification's reviewed results: statistics per current and each datasheet claim beside them. */
 export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
