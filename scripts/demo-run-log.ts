@@ -1,7 +1,7 @@
 import { generateSyntheticLog, type CellModel, type LogColumns, type SyntheticStep } from "../lib/analysis";
 import type { ProgrammedSetPoints, StepRecordInput } from "../lib/conformance";
 import type { ProcedureResolution, ResolvedStep } from "../protocols";
-import { programmedFor } from "../tests/support/rated-capacity-run";
+import { programmedFor } from "../scenarios/rated-capacity-run";
 
 /** How one invented run went: the cell, when it started, and what the operator did differently. */
 export interface DemoRunPlan {
@@ -46,7 +46,7 @@ function toSyntheticStep(step: ResolvedStep, programmed: ProgrammedSetPoints, re
 /**
  * An invented cycler log and the operator's step records for a procedure made only of charge, rest
  * and discharge steps, run once each in order (a repeat block's first cycle): the same simple cell
- * model as tests/support, with the times of the records taken from the log.
+ * model as scenarios/rated-capacity-run.ts, with the times of the records taken from the log.
  */
 export function buildDemoRunLog(plan: DemoRunPlan): DemoRunLog {
   const steps = plan.resolution.steps;

@@ -1,5 +1,5 @@
 import { ROLE_LABELS } from "../lib/auth/permissions";
-import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
+import { DEMO_LAB, DEMO_USERS } from "../scenarios/demo-lab";
 
 const url = process.argv[2] ?? "http://localhost:3000";
 console.log(`\nCellwright is running at ${url}  (${DEMO_LAB.name}, an invented demo lab)\n`);

@@ -20,7 +20,7 @@ import { createSpecimen, specimenInputSchema } from "../lib/specimens/specimens"
 import type { ResolvedStep } from "../protocols";
 import { buildDemoRunLog } from "./demo-run-log";
 import { DEMO_LOT_B } from "./demo-lot-scenario";
-import { DEMO_USERS } from "./demo-scenario";
+import { DEMO_USERS } from "../scenarios/demo-lab";
 
 const AS_RECEIVED = "as received: sleeve intact, no dents, no leakage";
 const RATE_NOTE = "Taken from the lot outside the ISO 2859-1 sample, for rate characterisation.";

@@ -9,7 +9,7 @@ import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
 import { ingestLog } from "../lib/runs/ingest-log";
 import { recordStep } from "../lib/runs/record-step";
 import { submitRun } from "../lib/runs/submit-run";
-import { buildRatedCapacityRun, logStartedAt } from "../tests/support/rated-capacity-run";
+import { buildRatedCapacityRun, logStartedAt } from "../scenarios/rated-capacity-run";
 import { getDb } from "../db";
 import { getProcedureIdByCode } from "../db/procedures";
 import { addDays } from "../lib/instruments/calendar-date";
@@ -32,7 +32,7 @@ import {
   DEMO_LOOSE_SPECIMENS,
   DEMO_LOT,
   DEMO_USERS,
-} from "./demo-scenario";
+} from "../scenarios/demo-lab";
 
 const STANDARD_CAUTIONS = plainToRichText(
   [
@@ -158,7 +158,7 @@ export async function seedDemoRun(): Promise<string[]> {
 
 /**
  * A finished run to look at: every step recorded, an invented cycler log (from the simple cell model in
- * tests/support) uploaded, evaluated and submitted, all through the same services as the app. Idempotent.
+ * scenarios/rated-capacity-run.ts) uploaded, evaluated and submitted, all through the same services as the app. Idempotent.
  */
 export async function seedEvaluatedRun(): Promise<string[]> {
   const run = await seedSubmittedRun(DEMO_LOT.specimens[2]!.identifier, 5010, 4);

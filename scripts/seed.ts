@@ -5,7 +5,7 @@ import pg from "pg";
 import type { Database } from "../db/schema";
 import { closePool } from "../db/pool";
 import { repairFramedObjects } from "../lib/integrity/repair-framed-objects";
-import { DEMO_LAB, DEMO_USERS } from "./demo-scenario";
+import { DEMO_LAB, DEMO_USERS } from "../scenarios/demo-lab";
 import { seedDemoLot } from "./seed-demo-lot";
 import { seedLibrary } from "./seed-library";
 

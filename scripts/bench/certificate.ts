@@ -9,7 +9,7 @@ import { hashCanonicalJson } from "../../lib/certificates/canonical-json";
 import { renderCertificatePdf } from "../../lib/certificates/render-certificate";
 import { createSelfSignedP12 } from "../../lib/certificates/self-signed-p12";
 import { signPdf } from "../../lib/certificates/sign-pdf";
-import { buildFixturePayload } from "../../tests/unit/certificates/fixture-payload";
+import { buildFixturePayload } from "../../scenarios/run-certificate";
 
 const WARM_RUNS = 10;
 const TARGET_MS = 1000;

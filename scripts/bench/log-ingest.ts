@@ -19,7 +19,7 @@ import { from as copyFrom } from "pg-copy-streams";
 import { downsampleLttb, segment, writeLogCsv } from "../../lib/analysis";
 import { createLogParser, createScanFloor, type ColumnMapping } from "../../lib/analysis/log-import";
 import { evaluateRun, type RunEvaluationInput } from "../../lib/conformance";
-import { buildRatedCapacityRun } from "../../tests/support/rated-capacity-run";
+import { buildRatedCapacityRun } from "../../scenarios/rated-capacity-run";
 
 // One rated-capacity cycle (≈ 40 000 s of log) sampled every 0.02 s ≈ 2 million rows;
 // BENCH_INTERVAL_S changes the size.

@@ -2,8 +2,8 @@ import { expect, test, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
 import { formatLogCsv } from "../../lib/analysis";
 import type { ProcedureResolution } from "../../protocols";
-import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "../../scripts/demo-scenario";
-import { buildRatedCapacityRun } from "../support/rated-capacity-run";
+import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "@/scenarios/demo-lab";
+import { buildRatedCapacityRun } from "@/scenarios/rated-capacity-run";
 import { signInAs, signInAsUser } from "./fixtures";
 
 const password = (email: string) => DEMO_USERS.find((u) => u.email === email)!.password;

@@ -2,7 +2,7 @@ import { randomBytes } from "node:crypto";
 import { test as base, expect, type BrowserContext } from "@playwright/test";
 import pg from "pg";
 import type { Role } from "../../db/schema";
-import { DEMO_USERS } from "../../scripts/demo-scenario";
+import { DEMO_USERS } from "@/scenarios/demo-lab";
 
 export const SESSION_COOKIE = "cellwright_session";
 

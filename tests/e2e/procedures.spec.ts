@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { signInAs, signInAsUser } from "./fixtures";
-import { DEMO_USERS } from "../../scripts/demo-scenario";
+import { DEMO_USERS } from "@/scenarios/demo-lab";
 
 // The second engineer, who releases: the demo account's own password.
 const RELEASER_PASSWORD = DEMO_USERS.find((u) => u.email === "engineer2@brackwater.example")!.password;

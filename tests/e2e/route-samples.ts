@@ -58,7 +58,7 @@ export async function sampleParams(): Promise<Record<string, string>> {
       lot: lot.rows[0].id,
       specimen: specimen.rows[0].id,
       run: run.rows[0].id,
-      // The seeded certificate (scripts/demo-scenario.ts); a number never issued if there is none.
+      // The seeded certificate (scenarios/demo-lab.ts); a number never issued if there is none.
       certificate: certificate.rows[0]?.number ?? "C-99999",
       hasCertificate: String(certificate.rows.length > 0),
     };

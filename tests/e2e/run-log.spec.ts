@@ -2,8 +2,8 @@ import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { formatLogCsv } from "../../lib/analysis";
 import type { ProcedureResolution } from "../../protocols";
-import { DEMO_CELL_SPECIFICATIONS } from "../../scripts/demo-scenario";
-import { buildRatedCapacityRun } from "../support/rated-capacity-run";
+import { DEMO_CELL_SPECIFICATIONS } from "@/scenarios/demo-lab";
+import { buildRatedCapacityRun } from "@/scenarios/rated-capacity-run";
 import { signInAs } from "./fixtures";
 
 /**

@@ -1,8 +1,8 @@
 import { expect, test, type Page, type TestInfo } from "@playwright/test";
 import pg from "pg";
 import type { ProcedureResolution } from "../../protocols";
-import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "../../scripts/demo-scenario";
-import { buildRatedCapacityRun } from "../support/rated-capacity-run";
+import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "@/scenarios/demo-lab";
+import { buildRatedCapacityRun } from "@/scenarios/rated-capacity-run";
 import { signInAs } from "./fixtures";
 
 /**

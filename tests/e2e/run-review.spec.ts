@@ -1,6 +1,6 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
-import { DEMO_USERS } from "../../scripts/demo-scenario";
+import { DEMO_USERS } from "@/scenarios/demo-lab";
 import { signInAsUser } from "./fixtures";
 
 // The seeded run R-00002 (scripts/seed-library.ts): operated, evaluated and submitted by the demo

@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { DEMO_USERS } from "../../scripts/demo-scenario";
+import { DEMO_USERS } from "@/scenarios/demo-lab";
 
 // Only this spec signs in through the form; the others start with a session (fixtures.ts).
 const LAB = ["Runs", "Lots", "Specimens", "Compare discharges", "Instruments"];

@@ -34,7 +34,7 @@ import { buildEvidenceBundle } from "@/lib/evidence/evidence-bundle";
 import { INTEGRITY_FAULT_ACTION } from "@/lib/integrity/read-verified-file";
 import { verifyStoredFiles } from "@/lib/integrity/verify-stored-files";
 import { deleteObject, listObjectKeys, putObject, readObjectOrNull } from "@/lib/storage";
-import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { adminUrl } from "../support/test-database";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 import { forgeAsOwner, withOwnerClient } from "../support/test-database";

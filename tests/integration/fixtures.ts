@@ -24,7 +24,7 @@ export async function setPassword(user: SignedInUser, password: string): Promise
   return user;
 }
 
-/** How the synthetic logs of tests/support are written: elapsed seconds, discharge current negative. */
+/** How the synthetic logs of scenarios/rated-capacity-run.ts are written: elapsed seconds, discharge current negative. */
 export const ELAPSED_LOG_MAPPING = {
   time: { form: "elapsed", column: "Time (s)", unit: "s" },
   voltage: { column: "Voltage (V)", unit: "V" },

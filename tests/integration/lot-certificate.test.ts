@@ -30,7 +30,7 @@ import { createLot, lotInputSchema } from "@/lib/lots/lot-records";
 import { createSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
-import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "@/scenarios/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 
 // Each test database gets its own generated lab key, in a folder of this file's own.

@@ -18,7 +18,7 @@ import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { describeResults } from "@/lib/statistics";
 import { chargeRetentionTemplate, dischargeAtMinus20cTemplate } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 import { forgeAsOwner } from "../support/test-database";
 

@@ -24,7 +24,7 @@ import { createLot, editLot, lotInputSchema } from "@/lib/lots/lot-records";
 import { createSpecimen, editSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, type BuiltRun } from "@/scenarios/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
 import { withOwnerClient } from "../support/test-database";
 

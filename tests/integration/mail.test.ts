@@ -20,7 +20,7 @@ import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { withOwnerClient } from "../support/test-database";
 import { chunksOf, makeUser, ELAPSED_LOG_MAPPING as MAPPING, releaseRatedCapacityProcedure } from "./fixtures";
 

@@ -16,7 +16,7 @@ import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { readSubmitReadiness } from "@/lib/runs/submit-readiness";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { chunksOf, ELAPSED_LOG_MAPPING as MAPPING, makeUser, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";

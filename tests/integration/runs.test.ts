@@ -16,7 +16,7 @@ import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification, editCellSpecification } from "@/lib/specs/cell-specifications";
 import { listObjectKeys } from "@/lib/storage";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";

@@ -10,7 +10,7 @@ import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
 import { submitRun } from "@/lib/runs/submit-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
-import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { chunksOf, ELAPSED_LOG_MAPPING, makeUser, releaseRatedCapacityProcedure, setPassword } from "./fixtures";
 
 // Issue 11 row 3: a second operator recorded the steps and uploaded the log of a run another operator

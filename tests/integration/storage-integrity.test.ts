@@ -20,7 +20,7 @@ import { backup } from "../../scripts/backup";
 import { RestoreRefused, restore } from "../../scripts/restore";
 import { MIGRATIONS } from "../../migrations";
 import { adminUrl } from "../support/test-database";
-import { inventedCell } from "../support/rated-capacity-run";
+import { inventedCell } from "@/scenarios/rated-capacity-run";
 import { makeUser } from "./fixtures";
 
 const scratch = mkdtempSync(join(tmpdir(), "cellwright-integrity-"));

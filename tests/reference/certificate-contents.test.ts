@@ -9,7 +9,7 @@ import type { CertificatePayload } from "@/lib/certificates/certificate-payload"
 import { renderCertificatePdf } from "@/lib/certificates/render-certificate";
 import type { DischargeCurve } from "@/lib/certificates/vq-plot";
 import { buildRunCertificatePayload } from "@/lib/certificates/build-run-payload";
-import { buildFixturePayload, buildFixtureRecords } from "../unit/certificates/fixture-payload";
+import { buildFixturePayload, buildFixtureRecords } from "@/scenarios/run-certificate";
 import { buildLotFixturePayload } from "../unit/certificates/fixture-lot-payload";
 
 // What a test report must state: ISO/IEC 17025:2017 7.8.2.1 a–p, 7.8.3.1 and 7.8.8, as docs/references.md §8

@@ -11,7 +11,7 @@ import { signPdf } from "@/lib/certificates/sign-pdf";
 import { readPdfSignature } from "@/lib/certificates/verify-pdf-signature";
 import { fingerprintCertificate } from "@/lib/certificates/x509-names";
 import forge from "node-forge";
-import { buildFixturePayload } from "../unit/certificates/fixture-payload";
+import { buildFixturePayload } from "@/scenarios/run-certificate";
 
 // The embedded signature is checked by an independent verifier: Debian's pdfsig (poppler-utils), which
 // implements the PDF signature rules (ISO 32000-1 12.8: /ByteRange over the whole file but the

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { evaluateRun, listFindings, readCellRating, type Finding, type StepRecordInput } from "@/lib/conformance";
 import { resolveProcedure, type CellSpecification, type Procedure } from "@/protocols";
-import { inventedCell } from "../support/rated-capacity-run";
+import { inventedCell } from "@/scenarios/rated-capacity-run";
 
 /** A small procedure: rest of at least 1 h, then a discharge at 0.2 It, at an ambient of 20–25 °C. */
 const procedure: Procedure = {

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { computeItAmperes, resolveCurrent, type CellSpecification } from '@/protocols';
-import { typicalNmcCell } from '../unit/protocols/cell-fixtures';
+import { inventedCell } from '@/scenarios/invented-cells';
 
 function cellRated(ratedCapacityMah: number): CellSpecification {
-  return { ...typicalNmcCell, designation: undefined, ratedCapacityMah, minimumCapacityMah: undefined };
+  return { ...inventedCell, designation: undefined, ratedCapacityMah, minimumCapacityMah: undefined };
 }
 
 function amperes(multipleOfIt: number, ratedCapacityMah: number): number {

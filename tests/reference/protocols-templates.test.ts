@@ -11,7 +11,7 @@ import {
   type ResolvedStep,
   type Step,
 } from '@/protocols';
-import { typicalNmcCell } from '../unit/protocols/cell-fixtures';
+import { inventedCell } from '@/scenarios/invented-cells';
 
 function templateOf(key: string): Procedure {
   const template = findProcedureTemplate(key);
@@ -26,7 +26,7 @@ function stepOf(procedure: Procedure, id: string): Step {
 }
 
 function resolutionOf(procedure: Procedure): ProcedureResolution {
-  const result = resolveProcedure({ procedure, cellSpecification: typicalNmcCell });
+  const result = resolveProcedure({ procedure, cellSpecification: inventedCell });
   if (!result.ok) throw new Error('template must resolve');
   return result.resolution;
 }
@@ -214,7 +214,7 @@ describe('other clauses of IEC 61960-3 (docs/references.md §2, last item) [memo
     expect(resolution.retention).toEqual({
       afterStorageStepId: 'discharge',
       recoveryStepId: 'recovery-discharge',
-      basis: { kind: 'rated capacity', capacityAh: typicalNmcCell.ratedCapacityMah / 1000 },
+      basis: { kind: 'rated capacity', capacityAh: inventedCell.ratedCapacityMah / 1000 },
     });
     expectRecalledNote(procedure, /percentages of the rated capacity/);
     expect(describeChargeRetention(resolution.retention!, resolution.steps)).toBe(

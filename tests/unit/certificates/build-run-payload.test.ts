@@ -3,7 +3,7 @@ import { buildRunCertificatePayload, readDecisionRule, type StoredEvaluation } f
 import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
 import { evaluateChargeRetention } from "@/lib/conformance";
 import { findUnacknowledgedDeviations, readAcknowledgedDeviations } from "@/lib/certificates/review-coverage";
-import { buildFixtureRecords } from "./fixture-payload";
+import { buildFixtureRecords } from "@/scenarios/run-certificate";
 
 describe("buildRunCertificatePayload", () => {
   it("states every deviating finding with the reviewer's note, and counts the checks", () => {

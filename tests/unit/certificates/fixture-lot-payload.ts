@@ -1,7 +1,7 @@
 import { buildLotCertificatePayload, type LotCertificateRecords, type LotSampleResult } from "@/lib/certificates/build-lot-payload";
 import type { LotCertificatePayload } from "@/lib/certificates/certificate-payload";
 import { decideLot, planSampling } from "@/lib/lots/sampling";
-import { inventedCell } from "../../support/rated-capacity-run";
+import { inventedCell } from "@/scenarios/rated-capacity-run";
 
 /** Invented capacities (mAh) at 0.2 It of the 13 drawn cells of an invented lot of 60: a scenario of our own. */
 export const LOT_CAPACITIES_MAH = [3061, 3012, 3090, 2987, 3044, 3020, 2968, 3075, 3031, 3002, 3058, 3026, 3049];

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { checkInstrumentTolerances, type RunInstrument } from "@/lib/conformance";
 import { ratedCapacityAt20cTemplate, resolveProcedure } from "@/protocols";
-import { inventedCell } from "../../support/rated-capacity-run";
+import { inventedCell } from "@/scenarios/rated-capacity-run";
 
 // IEC 61960-3 clause 4 measurement tolerances, docs/references.md §3 (recalled for 61960-3; published via IEC 61951-2:2022
 // clause 4): current ±1 %, voltage ±1 %, time ±0.1 %, temperature ±2 °C, all sources of error included.

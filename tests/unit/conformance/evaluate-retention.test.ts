@@ -2,9 +2,9 @@ import { describe, expect, it } from "vitest";
 import { computeStepResults, generateSyntheticLog, type Phase, type SyntheticStep } from "@/lib/analysis";
 import { evaluateChargeRetention, evaluateRun, type RetentionStepInput } from "@/lib/conformance";
 import { chargeRetentionTemplate, validateProcedure, type Procedure } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
-// The invented 3 000 mAh cell (tests/support/rated-capacity-run.ts) at 0.2 It = 0.6 A. The model cell has no
+// The invented 3 000 mAh cell (scenarios/rated-capacity-run.ts) at 0.2 It = 0.6 A. The model cell has no
 // self-discharge, so the loss in storage is made by construction: the discharge after storage is stopped
 // after a set time, as a cell that lost charge would stop early. With no noise and no jitter each capacity
 // is I × t exactly (trapezoid of a constant current): 0.6 A × 5.1 h = 3.060 Ah, 0.6 A × 4.25 h = 2.550 Ah,

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import type { LogColumns } from "@/lib/analysis";
 import { evaluateRun, listFindings, readCellRating, type RunEvaluationInput, type RunInstrument } from "@/lib/conformance";
 import { procedureTemplates } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell, logStartedAt, resolveOrThrow } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, logStartedAt, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 const lowRateCell = { ...inventedCell, maxContinuousDischargeCurrentA: 0.5, maxChargeCurrentA: undefined };
 const cells = [inventedCell, lowRateCell];

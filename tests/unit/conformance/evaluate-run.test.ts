@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { evaluateRun, listFindings, type Finding, type RunEvaluation, type RunEvaluationInput } from "@/lib/conformance";
 import { ratedCapacityAt20cTemplate, type Procedure } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 function evaluate(input: RunEvaluationInput): RunEvaluation {
   const result = evaluateRun(input);

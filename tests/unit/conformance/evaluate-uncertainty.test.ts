@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { generateSyntheticLog } from "@/lib/analysis";
 import { evaluateRun, evaluateStepUncertainties, readCellRating, type RunEvaluation, type RunEvaluationInput, type RunInstrument } from "@/lib/conformance";
 import { dcResistanceTemplate, type DecisionRule, type ProcedureResolution } from "@/protocols";
-import { atLogSecond, buildRatedCapacityRun, inventedCell, logStartedAt, resolveOrThrow } from "../../support/rated-capacity-run";
+import { atLogSecond, buildRatedCapacityRun, inventedCell, logStartedAt, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 // Invented instruments for the tests, of the order cycler channels state (not a published source).
 const channel: RunInstrument = {

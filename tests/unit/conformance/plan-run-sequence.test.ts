@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { planRunSequence } from "@/lib/conformance";
 import { recordOf } from "./context-fixtures";
-import { resolveOrThrow } from "../../support/rated-capacity-run";
+import { resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 const resolution = resolveOrThrow({});
 const planOf = (records: Parameters<typeof recordOf>[0][]) => planRunSequence({ resolution, stepRecords: records.map(recordOf) });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { checkRunEvaluationInput, readCellRating, stepRecordSchema, storedRunEvaluationSchema } from "@/lib/conformance";
-import { inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
+import { inventedCell, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 describe("stepRecordSchema", () => {
   it("fills in defaults and keeps SI set-points", () => {

@@ -7,7 +7,8 @@ import {
   listSetPoints,
 } from "@/components/procedure-preview/format-resolved";
 import { dcResistanceTemplate, ratedCapacityAt20cTemplate, resolveProcedure, type ProcedureResolution } from "@/protocols";
-import { omitFields, prismaticLcoCell, typicalNmcCell } from "../protocols/cell-fixtures";
+import { omitFields } from "../protocols/cell-fixtures";
+import { inventedCell, prismaticLcoCell } from "@/scenarios/invented-cells";
 
 function resolve(...args: Parameters<typeof resolveProcedure>): ProcedureResolution {
   const result = resolveProcedure(...args);
@@ -46,7 +47,7 @@ describe("formatResolvedValue", () => {
 
 describe("listSetPoints", () => {
   // IEC 61434: It = Cn / 1 h, so 0.2 It of a 3 000 mAh cell is 0.6 A (docs/design.md §6).
-  const resolution = resolve({ procedure: ratedCapacityAt20cTemplate, cellSpecification: typicalNmcCell });
+  const resolution = resolve({ procedure: ratedCapacityAt20cTemplate, cellSpecification: inventedCell });
 
   it("gives each set-point of a discharge with its value and where it came from", () => {
     expect(listSetPoints(resolution.steps[3]!)).toEqual([
@@ -67,7 +68,7 @@ describe("listSetPoints", () => {
   });
 
   it("gives the pulse levels of a DC resistance step", () => {
-    const pulse = resolve({ procedure: dcResistanceTemplate, cellSpecification: typicalNmcCell }).steps[2]!;
+    const pulse = resolve({ procedure: dcResistanceTemplate, cellSpecification: inventedCell }).steps[2]!;
     expect(listSetPoints(pulse).map((p) => `${p.name}: ${p.value}`)).toEqual([
       "Base current: 0.6 A",
       "Base for: 10 s",
@@ -90,7 +91,7 @@ describe("listSetPoints", () => {
 
 describe("formatTolerances", () => {
   it("says once where the tolerances come from when they share a source", () => {
-    const resolution = resolve({ procedure: ratedCapacityAt20cTemplate, cellSpecification: typicalNmcCell });
+    const resolution = resolve({ procedure: ratedCapacityAt20cTemplate, cellSpecification: inventedCell });
     expect(formatTolerances(resolution.steps[0]!.tolerances)).toEqual({
       text: "U ±1 %, I ±1 %, T ±2 °C, t ±0.1 %",
       source: "from IEC 61960-3 clause 4",
@@ -101,7 +102,7 @@ describe("formatTolerances", () => {
     const procedure = structuredClone(ratedCapacityAt20cTemplate);
     procedure.header.tolerances = { currentPercent: 2 };
     procedure.steps[0] = { ...procedure.steps[0]!, tolerances: { voltagePercent: 0.5 } };
-    const tolerances = resolve({ procedure, cellSpecification: typicalNmcCell }).steps[0]!.tolerances;
+    const tolerances = resolve({ procedure, cellSpecification: inventedCell }).steps[0]!.tolerances;
     expect(formatTolerances(tolerances)).toEqual({
       text: "U ±0.5 %, I ±2 %, T ±2 °C, t ±0.1 %",
       source: "U: set on the step; I: set on the procedure; T: IEC 61960-3 clause 4; t: IEC 61960-3 clause 4",

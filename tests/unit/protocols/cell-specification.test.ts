@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { validateCellSpecification, type CellSpecification } from '@/protocols';
-import { omitFields, prismaticLcoCell, typicalNmcCell } from './cell-fixtures';
+import { omitFields } from './cell-fixtures';
+import { inventedCell, prismaticLcoCell } from '@/scenarios/invented-cells';
 
 function problemsOf(input: unknown) {
   const result = validateCellSpecification(input);
@@ -13,52 +14,52 @@ function pathsOf(input: unknown) {
 
 describe('cell specification schema', () => {
   it('accepts the cylindrical and the prismatic fixture', () => {
-    expect(validateCellSpecification(typicalNmcCell)).toEqual({ ok: true, value: typicalNmcCell });
+    expect(validateCellSpecification(inventedCell)).toEqual({ ok: true, value: inventedCell });
     expect(validateCellSpecification(prismaticLcoCell).ok).toBe(true);
   });
 
   it('requires positive numbers', () => {
-    expect(problemsOf({ ...typicalNmcCell, ratedCapacityMah: 0 })).toEqual([
+    expect(problemsOf({ ...inventedCell, ratedCapacityMah: 0 })).toEqual([
       { path: 'ratedCapacityMah', message: 'the rated capacity must be greater than 0' },
     ]);
-    expect(pathsOf({ ...typicalNmcCell, maxMassG: -3 })).toEqual(['maxMassG']);
+    expect(pathsOf({ ...inventedCell, maxMassG: -3 })).toEqual(['maxMassG']);
   });
 
   it('says "required" for a missing field', () => {
-    expect(problemsOf(omitFields(typicalNmcCell, 'chargeVoltageV'))).toEqual([{ path: 'chargeVoltageV', message: 'required' }]);
+    expect(problemsOf(omitFields(inventedCell, 'chargeVoltageV'))).toEqual([{ path: 'chargeVoltageV', message: 'required' }]);
   });
 
   it('needs end-of-discharge < nominal < charge voltage', () => {
-    expect(pathsOf({ ...typicalNmcCell, endOfDischargeVoltageV: 3.6 })).toEqual(['endOfDischargeVoltageV']);
-    expect(pathsOf({ ...typicalNmcCell, nominalVoltageV: 4.2 })).toEqual(['chargeVoltageV']);
+    expect(pathsOf({ ...inventedCell, endOfDischargeVoltageV: 3.6 })).toEqual(['endOfDischargeVoltageV']);
+    expect(pathsOf({ ...inventedCell, nominalVoltageV: 4.2 })).toEqual(['chargeVoltageV']);
   });
 
   it('needs minimum capacity ≤ rated capacity, termination < standard ≤ maximum charge current', () => {
-    expect(pathsOf({ ...typicalNmcCell, minimumCapacityMah: 3001 })).toEqual(['minimumCapacityMah']);
-    expect(validateCellSpecification({ ...typicalNmcCell, minimumCapacityMah: 3000 }).ok).toBe(true);
-    expect(pathsOf({ ...typicalNmcCell, chargeTerminationCurrentA: 1.5 })).toEqual(['chargeTerminationCurrentA']);
-    expect(pathsOf({ ...typicalNmcCell, maxChargeCurrentA: 1 })).toEqual(['maxChargeCurrentA']);
+    expect(pathsOf({ ...inventedCell, minimumCapacityMah: 3001 })).toEqual(['minimumCapacityMah']);
+    expect(validateCellSpecification({ ...inventedCell, minimumCapacityMah: 3000 }).ok).toBe(true);
+    expect(pathsOf({ ...inventedCell, chargeTerminationCurrentA: 1.5 })).toEqual(['chargeTerminationCurrentA']);
+    expect(pathsOf({ ...inventedCell, maxChargeCurrentA: 1 })).toEqual(['maxChargeCurrentA']);
   });
 
   it('asks for the dimensions that fit the shape', () => {
-    expect(pathsOf(omitFields(typicalNmcCell, 'maxDiameterMm'))).toEqual(['maxDiameterMm']);
-    expect(pathsOf({ ...typicalNmcCell, maxWidthMm: 30 })).toEqual(['maxWidthMm']);
+    expect(pathsOf(omitFields(inventedCell, 'maxDiameterMm'))).toEqual(['maxDiameterMm']);
+    expect(pathsOf({ ...inventedCell, maxWidthMm: 30 })).toEqual(['maxWidthMm']);
     const prismaticWithDiameter: CellSpecification = { ...prismaticLcoCell, maxDiameterMm: 10 };
     expect(pathsOf(prismaticWithDiameter)).toEqual(['maxDiameterMm']);
   });
 
   it('refuses a designation that does not match chemistry, shape and dimensions', () => {
-    const problems = problemsOf({ ...typicalNmcCell, designation: 'INR21/70' });
+    const problems = problemsOf({ ...inventedCell, designation: 'INR21/70' });
     expect(problems.map((problem) => problem.path)).toEqual(['designation']);
     expect(problems[0]?.message).toContain('INR22/71');
-    expect(validateCellSpecification({ ...typicalNmcCell, designation: 'inr22/71' }).ok).toBe(true);
+    expect(validateCellSpecification({ ...inventedCell, designation: 'inr22/71' }).ok).toBe(true);
   });
 
   it('accepts only the IEC 61960 and IECEE CTL positive-electrode letters and refuses unknown fields', () => {
-    expect(pathsOf({ ...typicalNmcCell, chemistry: { positiveElectrode: 'Q', label: 'NMC' } })).toEqual([
+    expect(pathsOf({ ...inventedCell, chemistry: { positiveElectrode: 'Q', label: 'NMC' } })).toEqual([
       'chemistry.positiveElectrode',
     ]);
-    expect(problemsOf({ ...typicalNmcCell, colour: 'blue' })).toEqual([{ path: '', message: 'unexpected field: colour' }]);
+    expect(problemsOf({ ...inventedCell, colour: 'blue' })).toEqual([{ path: '', message: 'unexpected field: colour' }]);
   });
 
   it('gives a typed result, not a throw, for input that is not an object', () => {

@@ -10,7 +10,7 @@ import {
   validateProcedure,
   type Procedure,
 } from '@/protocols';
-import { typicalNmcCell } from './cell-fixtures';
+import { inventedCell } from '@/scenarios/invented-cells';
 
 /** A definition as stored before procedures named their decision rule. */
 function storedWithoutRule(): Procedure {
@@ -20,7 +20,7 @@ function storedWithoutRule(): Procedure {
 }
 
 function resolutionOf(procedure: Procedure) {
-  const result = resolveProcedure({ procedure, cellSpecification: typicalNmcCell });
+  const result = resolveProcedure({ procedure, cellSpecification: inventedCell });
   if (!result.ok) throw new Error(JSON.stringify(result));
   return result.resolution;
 }

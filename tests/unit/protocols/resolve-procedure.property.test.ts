@@ -10,7 +10,7 @@ import {
   type Step,
 } from '@/protocols';
 import { cellSpecificationArbitrary, currentReferenceArbitrary, durationArbitrary, procedureArbitrary } from './arbitraries';
-import { typicalNmcCell } from './cell-fixtures';
+import { inventedCell } from '@/scenarios/invented-cells';
 
 // A fixed seed keeps the suite deterministic; change it locally to explore other cases.
 const runs = { numRuns: 150, seed: 61960 };
@@ -49,8 +49,8 @@ describe('resolution properties', () => {
   it('mA and A give the same current in SI', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 1_000_000 }), (milliamperes) => {
-        const inMilli = resolvedValue(resolveCurrent({ value: milliamperes, unit: 'mA' }, typicalNmcCell));
-        const inUnits = resolvedValue(resolveCurrent({ value: milliamperes / 1000, unit: 'A' }, typicalNmcCell));
+        const inMilli = resolvedValue(resolveCurrent({ value: milliamperes, unit: 'mA' }, inventedCell));
+        const inUnits = resolvedValue(resolveCurrent({ value: milliamperes / 1000, unit: 'A' }, inventedCell));
         expect(inMilli).toBe(inUnits);
       }),
       runs,

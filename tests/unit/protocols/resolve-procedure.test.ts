@@ -8,7 +8,8 @@ import {
   type ResolvedStep,
   type Step,
 } from '@/protocols';
-import { omitFields, typicalNmcCell } from './cell-fixtures';
+import { omitFields } from './cell-fixtures';
+import { inventedCell } from '@/scenarios/invented-cells';
 
 function procedureOf(steps: Step[], extra: Partial<Procedure> = {}): Procedure {
   return {
@@ -28,7 +29,7 @@ function procedureOf(steps: Step[], extra: Partial<Procedure> = {}): Procedure {
 
 function resolve(
   procedure: Procedure,
-  { cell = typicalNmcCell, acknowledged }: { cell?: CellSpecification; acknowledged?: string[] } = {},
+  { cell = inventedCell, acknowledged }: { cell?: CellSpecification; acknowledged?: string[] } = {},
 ): ProcedureResolution {
   const result = resolveProcedure({ procedure, cellSpecification: cell, acknowledgedCautions: acknowledged });
   if (!result.ok) throw new Error(`unexpected invalid input: ${JSON.stringify(result)}`);
@@ -165,7 +166,7 @@ describe('resolveProcedure: set-points and their trace', () => {
 
 describe('resolveProcedure: errors', () => {
   it('names a set-point the specification cannot supply', () => {
-    const cell = omitFields(typicalNmcCell, 'chargeTerminationCurrentA');
+    const cell = omitFields(inventedCell, 'chargeTerminationCurrentA');
     const resolution = resolve(procedureOf([charge()]), { cell });
     expect(stepOf(resolution, 0, 'charge').termination).toEqual({ kind: 'current', current: null });
     expect(resolution.errors).toEqual([
@@ -182,7 +183,7 @@ describe('resolveProcedure: errors', () => {
   });
 
   it('names a criterion limit the specification cannot supply', () => {
-    const cell = omitFields(typicalNmcCell, 'maxAcResistanceMOhm', 'minimumCapacityMah');
+    const cell = omitFields(inventedCell, 'maxAcResistanceMOhm', 'minimumCapacityMah');
     const procedure = procedureOf([discharge()], {
       acceptance: [{ kind: 'capacity', id: 'min', stepId: 'discharge', atLeastPercent: 100, of: 'minimum' }],
     });
@@ -241,7 +242,7 @@ describe('resolveProcedure: errors', () => {
   it('returns field problems, not a resolution, for an invalid procedure or specification', () => {
     const result = resolveProcedure({
       procedure: procedureOf([]),
-      cellSpecification: { ...typicalNmcCell, ratedCapacityMah: -1 },
+      cellSpecification: { ...inventedCell, ratedCapacityMah: -1 },
     });
     expect(result).toEqual({
       ok: false,
@@ -308,7 +309,7 @@ describe('resolveProcedure: cautions and their acknowledgement', () => {
   });
 
   it('compares a charge current with the standard charge current when no maximum is stated', () => {
-    const cell = omitFields(typicalNmcCell, 'maxChargeCurrentA');
+    const cell = omitFields(inventedCell, 'maxChargeCurrentA');
     const resolution = resolve(procedureOf([charge({ current: { multipleOfIt: 1 } })]), { cell });
     expect(resolution.cautions.map((caution) => caution.message)).toEqual([
       'Step 1 "Charge": 3 A is above the cell\'s standard charge current (no maximum stated) 1.5 A; outside the rating, acknowledge before running',
@@ -357,7 +358,7 @@ describe('resolveProcedure: plain data', () => {
   it('does not change its input and returns JSON-safe data', () => {
     const procedure = structuredClone(ratedCapacityAt20cTemplate);
     const before = JSON.stringify(procedure);
-    const result = resolveProcedure({ procedure, cellSpecification: typicalNmcCell });
+    const result = resolveProcedure({ procedure, cellSpecification: inventedCell });
     expect(JSON.stringify(procedure)).toBe(before);
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
   });

@@ -6,7 +6,7 @@ import {
   resolveProcedure,
   validateProcedure,
 } from '@/protocols';
-import { prismaticLcoCell, typicalNmcCell } from './cell-fixtures';
+import { inventedCell, prismaticLcoCell } from '@/scenarios/invented-cells';
 
 describe('built-in procedure templates', () => {
   it('has six templates with distinct keys and codes', () => {
@@ -33,7 +33,7 @@ describe('built-in procedure templates', () => {
   it.each(procedureTemplates.map((template) => [template.key, template] as const))(
     '%s resolves without errors against a typical 3 000 mAh NMC cylindrical cell',
     (_key, template) => {
-      const result = resolveProcedure({ procedure: template.procedure, cellSpecification: typicalNmcCell });
+      const result = resolveProcedure({ procedure: template.procedure, cellSpecification: inventedCell });
       expect(result.ok).toBe(true);
       if (!result.ok) return;
       expect(result.resolution.errors).toEqual([]);
@@ -44,7 +44,7 @@ describe('built-in procedure templates', () => {
 
   it('asks for an acknowledgement only for the −20 °C soak', () => {
     const needing = procedureTemplates.flatMap((template) => {
-      const result = resolveProcedure({ procedure: template.procedure, cellSpecification: typicalNmcCell });
+      const result = resolveProcedure({ procedure: template.procedure, cellSpecification: inventedCell });
       return result.ok ? result.resolution.cautionsNeedingAcknowledgement : ['invalid'];
     });
     expect(needing).toEqual(['soak-below-zero-celsius/cold-soak/temperature']);

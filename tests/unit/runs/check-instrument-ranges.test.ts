@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { findSetPointsOutsideRange } from "@/lib/runs/check-instrument-ranges";
-import { resolveOrThrow } from "../../support/rated-capacity-run";
+import { resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 // The invented 3 000 mAh cell of the fixtures: 0.2 It = 0.6 A discharge, charge at its standard current, 4.2 V.
 const resolution = resolveOrThrow({});

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { layOutStepSheet } from "@/components/runs/step-sheet/lay-out-step-sheet";
 import { stepRecordSchema, type StepRecordInput } from "@/lib/conformance";
 import { ratedCapacityAt20cTemplate, type Procedure } from "@/protocols";
-import { inventedCell, resolveOrThrow } from "../../support/rated-capacity-run";
+import { inventedCell, resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 const resolution = resolveOrThrow({});
 const record = (input: Partial<StepRecordInput> & { stepId: string }) => stepRecordSchema.parse({ completed: true, ...input });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { evaluateRun } from "@/lib/conformance";
 import { formatResultsCsv, listResultRows, RESULT_COLUMNS } from "@/lib/runs/list-result-rows";
-import { buildRatedCapacityRun } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun } from "@/scenarios/rated-capacity-run";
 
 describe("results export", () => {
   const built = buildRatedCapacityRun({ sampleIntervalS: 10 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { correctionFormSchema, correctStepRecord, readCorrectionForm } from "@/components/runs/step-sheet/step-correction";
 import { checkAmbient, stepRecordSchema, type StepRecord } from "@/lib/conformance";
-import { resolveOrThrow } from "../../support/rated-capacity-run";
+import { resolveOrThrow } from "@/scenarios/rated-capacity-run";
 import { contextOf } from "../conformance/context-fixtures";
 
 const resolution = resolveOrThrow({});

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { buildStepRecord, readStepForm, stampStepTime, stepFormSchema } from "@/components/runs/step-sheet/step-form";
 import { stepRecordSchema, type StepRecord } from "@/lib/conformance";
-import { resolveOrThrow } from "../../support/rated-capacity-run";
+import { resolveOrThrow } from "@/scenarios/rated-capacity-run";
 
 const resolution = resolveOrThrow({});
 const stepOf = (id: string) => resolution.steps.find((s) => s.id === id)!;

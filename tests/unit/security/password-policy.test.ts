@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { checkPassword } from "@/lib/auth/password-policy";
 import { createUserSchema } from "@/lib/auth/user-admin";
-import { DEMO_USERS } from "../../../scripts/demo-scenario";
+import { DEMO_USERS } from "@/scenarios/demo-lab";
 
 // Issue 11 row 8: "aaaaaaaaaa", "1234567890" and ten spaces were accepted as passwords.
 describe("password policy", () => {

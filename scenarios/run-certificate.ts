@@ -4,11 +4,11 @@ import type { RunCertificatePayload } from "@/lib/certificates/certificate-paylo
 import type { DischargeCurve } from "@/lib/certificates/vq-plot";
 import { accumulateCapacityAh, thinChannels } from "@/lib/runs/plan-series-read";
 import { ratedCapacityAt20cTemplate } from "@/protocols";
-import { buildRatedCapacityRun, inventedCell } from "../../support/rated-capacity-run";
+import { buildRatedCapacityRun, inventedCell } from "./rated-capacity-run";
 
 /**
  * A run certificate of an invented lab, cell and customer (a scenario of our own): the rated-capacity
- * run of tests/support, one rest logged at 26.5 °C (a deviation the reviewer noted), and a cycler
+ * run of scenarios/rated-capacity-run.ts, one rest logged at 26.5 °C (a deviation the reviewer noted), and a cycler
  * channel whose stated accuracy (docs/references.md §6, Example B) gives the evaluation its uncertainty budgets.
  */
 export function buildFixtureRecords(overrides: { uncertainty?: boolean; cycles?: number; deviation?: boolean } = {}): { records: RunCertificateRecords; curves: DischargeCurve[] } {

@@ -8,26 +8,9 @@ import {
   type ProcedureResolution,
   type ResolvedStep,
 } from "@/protocols";
+import { inventedCell } from "./invented-cells";
 
-/**
- * An invented 21700-size NMC cell of 3 000 mAh with typical datasheet values (docs/references.md §12,
- * common practice): CC-CV to 4.20 V at 1.5 A, end at 60 mA, end-of-discharge 2.50 V, 15 A continuous.
- */
-export const inventedCell: CellSpecification = {
-  chemistry: { positiveElectrode: "N", label: "NMC" },
-  shape: "cylindrical",
-  ratedCapacityMah: 3000,
-  minimumCapacityMah: 2900,
-  nominalVoltageV: 3.6,
-  chargeVoltageV: 4.2,
-  standardChargeCurrentA: 1.5,
-  maxChargeCurrentA: 4,
-  chargeTerminationCurrentA: 0.06,
-  maxContinuousDischargeCurrentA: 15,
-  endOfDischargeVoltageV: 2.5,
-  maxDiameterMm: 21.4,
-  maxHeightMm: 70.3,
-};
+export { inventedCell };
 
 export const logStartedAt = "2026-03-02T08:00:00.000Z";
 const logStartMs = Date.parse(logStartedAt);

@@ -1,4 +1,6 @@
-import type { Role } from "../db/schema";
+import type { Role } from "@/db/schema";
+import type { CellSpecification } from "@/protocols";
+import { inventedCell } from "./invented-cells";
 
 /**
  * The demo is set in an invented lab. Every name, address and e-mail here is made up; the e-mail
@@ -22,7 +24,7 @@ export const DEMO_USERS: { email: string; displayName: string; role: Role; passw
  * Invented cell makers and models for the demo library. The dimensions give the IEC 61960
  * designations INR22/71, INR19/66, IMR19/65 and IFpR27/66.
  */
-export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: import("../protocols").CellSpecification }[] = [
+export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: CellSpecification }[] = [
   {
     maker: "Korvel Energy",
     model: "KV-21N48",
@@ -45,21 +47,13 @@ export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: imp
     },
   },
   {
+    // The invented 3 000 mAh cell of the tests (invented-cells.ts) in an 18650 can, sold as NCA: the demo's
+    // logged runs (rated-capacity-run.ts) are modelled on it.
     maker: "Halden Voltaic",
     model: "HV-18N30",
     data: {
+      ...inventedCellRatings(),
       chemistry: { positiveElectrode: "N", label: "NCA" },
-      shape: "cylindrical",
-      ratedCapacityMah: 3000,
-      minimumCapacityMah: 2900,
-      nominalVoltageV: 3.6,
-      chargeVoltageV: 4.2,
-      standardChargeCurrentA: 1.5,
-      maxChargeCurrentA: 4,
-      chargeTerminationCurrentA: 0.06,
-      maxContinuousDischargeCurrentA: 15,
-      endOfDischargeVoltageV: 2.5,
-      maxMassG: 48,
       maxDiameterMm: 18.4,
       maxHeightMm: 65.2,
       maxDcResistanceMOhm: 25,
@@ -107,6 +101,14 @@ export const DEMO_CELL_SPECIFICATIONS: { maker: string; model: string; data: imp
     },
   },
 ];
+
+/** The invented cell's ratings, without what names its can (designation, dimensions) or its AC resistance. */
+function inventedCellRatings(): CellSpecification {
+  const ratings: Partial<CellSpecification> = { ...inventedCell };
+  delete ratings.designation;
+  delete ratings.maxAcResistanceMOhm;
+  return ratings as CellSpecification;
+}
 
 /**
  * The demo lab's instruments: two channels of one invented cycler, a climate chamber and a balance.
