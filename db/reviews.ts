@@ -1,6 +1,7 @@
 import "server-only";
 import { sql } from "kysely";
 import type { SignatureManifestation } from "@/lib/signatures/sign-record";
+import { parseStoredEvaluation } from "@/lib/conformance/stored-evaluation";
 import type { Executor } from "./index";
 import type { ReviewDecision, RunStatus } from "./schema";
 
@@ -24,17 +25,13 @@ export interface RunReviewView {
   signature: SignatureManifestation | null;
 }
 
-interface StoredFinding {
-  id: string;
-  title: string;
-}
-
-/** "Step label: check" by finding id, from a stored evaluation (lib/conformance's RunEvaluation). */
-function findingTitles(evaluation: unknown): Map<string, string> {
-  const e = evaluation as { runFindings?: StoredFinding[]; steps?: { label: string; cycle: number; findings?: StoredFinding[] }[] } | null;
-  const titles = new Map<string, string>((e?.runFindings ?? []).map((f) => [f.id, `The run as a whole: ${f.title}`]));
-  for (const step of e?.steps ?? []) {
-    for (const f of step.findings ?? []) titles.set(f.id, `${step.label}${step.cycle > 1 ? ` (cycle ${step.cycle})` : ""}: ${f.title}`);
+/** "Step label: check" by finding id, from a stored evaluation. */
+function findingTitles(stored: unknown): Map<string, string> {
+  if (stored === null || stored === undefined) return new Map();
+  const e = parseStoredEvaluation(stored);
+  const titles = new Map<string, string>(e.runFindings.map((f) => [f.id, `The run as a whole: ${f.title}`]));
+  for (const step of e.steps) {
+    for (const f of step.findings) titles.set(f.id, `${step.label}${step.cycle > 1 ? ` (cycle ${step.cycle})` : ""}: ${f.title}`);
   }
   return titles;
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { sql } from "kysely";
 import { CHUNK_SAMPLES } from "./run-logs";
+import { parseStoredEvaluation, type StoredEvaluation } from "@/lib/conformance/stored-evaluation";
 import type { Executor } from "./index";
 
 export type LogChannel = "time_s" | "voltage_v" | "current_a" | "temperature_c";
@@ -78,8 +79,8 @@ export interface StoredRunEvaluation {
   id: string;
   runLogId: string | null;
   evaluatedAt: Date;
-  /** A RunEvaluation as lib/conformance produced it. */
-  evaluation: unknown;
+  /** The evaluation in today's shape, whatever format the row was written in (lib/conformance/stored-evaluation.ts). */
+  evaluation: StoredEvaluation;
 }
 
 /** The run's latest evaluation (the one the results page and the exports show). */
@@ -92,5 +93,5 @@ export async function getLatestRunEvaluation(db: Executor, runId: string): Promi
     .orderBy("id")
     .limit(1)
     .executeTakeFirst();
-  return r ? { id: r.id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at, evaluation: r.evaluation } : null;
+  return r ? { id: r.id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at, evaluation: parseStoredEvaluation(r.evaluation) } : null;
 }

@@ -1,5 +1,5 @@
-import { evaluateRun, listFindings, type RunEvaluation, type RunInstrument, type StepRecord, stepRecordSchema } from "@/lib/conformance";
-import { buildRunCertificatePayload, type RunCertificateRecords, type StoredEvaluation } from "@/lib/certificates/build-run-payload";
+import { evaluateRun, listFindings, parseStoredEvaluation, toStoredEvaluation, type RunInstrument, type StepRecord, stepRecordSchema } from "@/lib/conformance";
+import { buildRunCertificatePayload, type RunCertificateRecords } from "@/lib/certificates/build-run-payload";
 import type { RunCertificatePayload } from "@/lib/certificates/certificate-payload";
 import type { DischargeCurve } from "@/lib/certificates/vq-plot";
 import { accumulateCapacityAh, thinChannels } from "@/lib/runs/plan-series-read";
@@ -24,8 +24,10 @@ export function buildFixtureRecords(overrides: { uncertainty?: boolean; cycles?:
   };
   const result = evaluateRun({ ...built.input, ...(overrides.uncertainty !== false && { instruments: [channel] }) });
   if (!result.ok) throw new Error(JSON.stringify(result.problems));
-  const evaluation: StoredEvaluation = structuredClone(result.evaluation);
-  const acknowledged = listFindings(evaluation as RunEvaluation)
+  // As the database hands the row back, and as every reader then sees it.
+  const stored: unknown = JSON.parse(JSON.stringify(toStoredEvaluation(result.evaluation)));
+  const evaluation = parseStoredEvaluation(stored);
+  const acknowledged = listFindings(evaluation)
     .filter((f) => f.outcome === "deviates")
     .map((f) => ({ findingId: f.id, note: "Door of the climate cabinet left open for a minute while loading the next cell; the rest lasted well beyond its minimum." }));
   const stepRecords: StepRecord[] = built.input.stepRecords.map((r) => stepRecordSchema.parse(r));
@@ -56,7 +58,7 @@ export function buildFixtureRecords(overrides: { uncertainty?: boolean; cycles?:
       { identifier: "TH-07", kind: "thermometer", serial: "TK-5521", calibrationCertificate: "CAL-2025-0290", calibratedOn: "2025-10-01", dueOn: "2026-10-01", usedFor: "ambient readings" },
     ],
     stepRecords,
-    evaluation: { evaluatedAt: new Date("2026-03-03T16:02:00.000Z"), value: evaluation, stored: JSON.parse(JSON.stringify(evaluation)) },
+    evaluation: { evaluatedAt: new Date("2026-03-03T16:02:00.000Z"), value: evaluation, stored },
     logs: [{ fileName: "channel-3-SP-0042.csv", sha256: "5d0f4c1e9a8b7c6d5e4f3a2b1c0d9e8f7a6b5c4d3e2f1a0b9c8d7e6f5a4b3c2d", sizeBytes: 1_482_113, samples: built.log.columns.length, uploadedAt: new Date("2026-03-03T15:58:00.000Z") }],
     review: { printedName: "Rhea Okafor", signedAt: new Date("2026-03-04T08:12:00.000Z"), comments: "Records complete; the ambient excursion is noted.", acknowledged },
     approval: { printedName: "Tomas Lindqvist", signedAt: new Date("2026-03-04T09:30:00.000Z") },

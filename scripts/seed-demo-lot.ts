@@ -4,7 +4,7 @@ import { getProcedureIdByCode } from "../db/procedures";
 import { getRun } from "../db/runs";
 import { formatLogCsv } from "../lib/analysis";
 import type { SignedInUser } from "../lib/auth/signed-in-user";
-import { listFindings, type Finding, type RunEvaluation } from "../lib/conformance";
+import { listFindings, parseStoredEvaluation, type Finding, type RunEvaluation } from "../lib/conformance";
 import { addDays } from "../lib/instruments/calendar-date";
 import { readLabToday } from "../lib/instruments/lab-today";
 import { drawLotSample, setLotSamplingPlan } from "../lib/lots";
@@ -165,7 +165,7 @@ async function seedReviewedRun(run: DemoRun): Promise<string> {
   await acceptRun(reviewer, started.id, {
     password,
     evaluationId: evaluation.id,
-    acknowledgements: noteDeviations(evaluation.evaluation as RunEvaluation, started.number),
+    acknowledgements: noteDeviations(parseStoredEvaluation(evaluation.evaluation), started.number),
   });
   return started.number;
 }

@@ -2,7 +2,7 @@ import { formatLogCsv } from "../lib/analysis";
 import { getRun } from "../db/runs";
 import { getLatestRunEvaluation } from "../db/run-series";
 import { issueRunCertificate } from "../lib/certificates/issue-certificate";
-import { listFindings, type RunEvaluation } from "../lib/conformance";
+import { listFindings } from "../lib/conformance";
 import { acceptRun } from "../lib/reviews/accept-run";
 import { listDeviatingFindings } from "../lib/reviews/reviewed-record";
 import { evaluateStoredRun } from "../lib/runs/evaluate-stored-run";
@@ -176,7 +176,7 @@ export async function seedCertifiedRun(): Promise<string[]> {
   const password = DEMO_USERS.find((u) => u.email === reviewer.email)!.password;
   const latest = await getLatestRunEvaluation(getDb(), run.id);
   if (!latest) throw new Error(`run ${run.number} has no evaluation`);
-  const acknowledgements = listDeviatingFindings(latest.evaluation as RunEvaluation).map((f) => ({
+  const acknowledgements = listDeviatingFindings(latest.evaluation).map((f) => ({
     findingId: f.id,
     note: "Reviewed against the run's records; no effect on the delivered capacity (demo note).",
   }));

@@ -2,6 +2,7 @@
 import "server-only";
 import { sql } from "kysely";
 import type { SignatureManifestation } from "@/lib/signatures/sign-record";
+import { parseStoredEvaluation, type StoredEvaluation } from "@/lib/conformance/stored-evaluation";
 import type { Executor } from "../index";
 
 /** A run's latest review, with the signature of an acceptance. */
@@ -36,10 +37,16 @@ export async function getLatestRunReview(db: Executor, runId: string): Promise<R
   };
 }
 
-/** One stored evaluation with the log it was made from. */
-export async function getRunEvaluationRecord(db: Executor, id: string): Promise<{ id: string; runId: string; runLogId: string | null; evaluatedAt: Date; evaluation: unknown } | null> {
+/**
+ * One stored evaluation with the log it was made from: read in today's shape (`evaluation`) and as the
+ * database holds it (`stored`, what a certificate's hash of the evaluation is taken over).
+ */
+export async function getRunEvaluationRecord(
+  db: Executor,
+  id: string,
+): Promise<{ id: string; runId: string; runLogId: string | null; evaluatedAt: Date; evaluation: StoredEvaluation; stored: unknown } | null> {
   const r = await db.selectFrom("run_evaluation").select(["id", "run_id", "run_log_id", "evaluated_at", "evaluation"]).where("id", "=", id).executeTakeFirst();
-  return r ? { id: r.id, runId: r.run_id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at, evaluation: r.evaluation } : null;
+  return r ? { id: r.id, runId: r.run_id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at, evaluation: parseStoredEvaluation(r.evaluation), stored: r.evaluation } : null;
 }
 
 /** Ids of the run's evaluations made after the given one (a newer evaluation than the one reviewed). */

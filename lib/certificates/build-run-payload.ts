@@ -1,5 +1,4 @@
-import type { UncertaintyBudget } from "@/lib/analysis/uncertainty";
-import { formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type RunEvaluation, type StepRecord } from "@/lib/conformance";
+import { formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type StepRecord, type StoredEvaluation } from "@/lib/conformance";
 import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import { formatMomentsInText } from "./certificate-format";
@@ -18,22 +17,12 @@ import {
 } from "./certificate-payload";
 import { listEvaluationFindings, type AcknowledgedDeviation } from "./review-coverage";
 
-/**
- * An evaluation as stored. Evaluations stored before the procedure named its decision rule, or
- * before uncertainty budgets were made, lack those fields: they read as simple acceptance and as
- * "uncertainty not evaluated".
- */
-interface LaterEvaluationFields {
-  decisionRule?: StoredDecisionRule;
-  uncertainty?: { stepId: string; cycle: number; quantity: "capacity" | "energy" | "dc-resistance"; budget: UncertaintyBudget }[];
-  uncertaintyNotEvaluated?: { stepId: string; cycle: number; quantity: string; reason: string }[];
-}
-export type StoredEvaluation = Omit<RunEvaluation, keyof LaterEvaluationFields> & LaterEvaluationFields;
+/** An evaluation as stored, read in today's shape (lib/conformance/stored-evaluation.ts). */
+export type { StoredEvaluation };
 
-/** The decision rule an evaluation applied: its own field, else the one its acceptance results name, else simple acceptance. */
+/** The decision rule an evaluation applied, as its record names it (older records may use an earlier name). */
 export function readDecisionRule(evaluation: StoredEvaluation): StoredDecisionRule {
-  const legacy = (evaluation.settings as { decisionRule?: StoredDecisionRule } | undefined)?.decisionRule;
-  return evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? legacy ?? "simple acceptance";
+  return evaluation.statedDecisionRule;
 }
 
 /** Retention and recovery as the certificate states them: the basis once, each percentage with its statement. */

@@ -13,7 +13,7 @@ import { DomainError } from "@/lib/errors";
 import { formatNumber } from "@/protocols/format-number";
 import { SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 import type { LotCertificateRecords, LotSampledRun } from "./build-lot-payload";
-import { findDatesOfTesting, findTestingSpan, readDecisionRule, type StoredEvaluation } from "./build-run-payload";
+import { findDatesOfTesting, findTestingSpan, readDecisionRule } from "./build-run-payload";
 import { hashCanonicalJson } from "./canonical-json";
 
 /** Everything a lot certificate rests on but the number, the issue time, the approval and what it replaces. */
@@ -92,10 +92,9 @@ async function describeSampledRun(db: Executor, run: NonNullable<Awaited<ReturnT
     runNumber: run.number,
     certificate,
     procedure: { code: run.procedure.code, title: run.procedure.title, version: run.procedure.number, standard: run.procedureSource.standard, clause: run.procedureSource.clause },
-    // Written only by evaluateStoredRun; older evaluations lack the later fields (StoredEvaluation).
-    decisionRule: evaluation ? readDecisionRule(evaluation.evaluation as StoredEvaluation) : "simple acceptance",
+    decisionRule: evaluation ? readDecisionRule(evaluation.evaluation) : "simple acceptance",
     // The data log's own span when the evaluation knows it (issue 12, 7a), else the step sheet's.
-    testing: evaluation ? spanOnly(findDatesOfTesting(evaluation.evaluation as StoredEvaluation, records)) : findTestingSpan(records),
+    testing: evaluation ? spanOnly(findDatesOfTesting(evaluation.evaluation, records)) : findTestingSpan(records),
   };
 }
 

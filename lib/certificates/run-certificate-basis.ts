@@ -62,8 +62,7 @@ async function checkRunMayBeCertified(db: Executor, actor: SignedInUser, runId: 
   if ((await countEvaluationsAfter(db, runId, evaluation)) > 0) {
     throw new DomainError("conflict", `Run ${run.number} was evaluated again after its review; the newer evaluation must be reviewed before a certificate is issued.`);
   }
-  // Written only by evaluateStoredRun; older evaluations lack the later fields (StoredEvaluation).
-  const value = evaluation.evaluation as StoredEvaluation;
+  const value = evaluation.evaluation;
   const acknowledged = readAcknowledgedDeviations(review.acknowledgedDeviations);
   const missing = findUnacknowledgedDeviations(value, acknowledged);
   if (missing.length > 0) {
@@ -139,7 +138,7 @@ export async function gatherRunCertificateBasis(
       cell: { maker: cell.maker, model: cell.model, designation: cell.designation, data: cell.data },
       instruments,
       stepRecords,
-      evaluation: { evaluatedAt: evaluation.evaluatedAt, value: evaluation.value, stored: evaluation.evaluation },
+      evaluation: { evaluatedAt: evaluation.evaluatedAt, value: evaluation.value, stored: evaluation.stored },
       logs: log ? [{ fileName: log.fileName, sha256: log.sha256, sizeBytes: log.sizeBytes, samples: log.samples, uploadedAt: log.uploadedAt }] : [],
       review: { printedName: review.signature.printedName, signedAt: review.signature.signedAt, comments: review.comments, acknowledged },
       meaningWords: SIGNATURE_MEANING_WORDS,

@@ -15,7 +15,7 @@ import type { RunInstrument } from "./run-evaluation-input";
 
 export type UncertaintyQuantity = "capacity" | "energy" | "dc-resistance";
 
-/** The uncertainty budget of one result of one step on one cycle (GUM 8), as RunEvaluation.uncertainty lists them. */
+/** The uncertainty budget of one result of one step on one cycle (GUM 8), listed in RunEvaluation.uncertainty. */
 export interface StepUncertainty {
   stepId: string;
   cycle: number;

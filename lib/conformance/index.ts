@@ -31,3 +31,4 @@ export { formatValue } from "./format-value";
 export { formatBudgetTable, type BudgetTable, type BudgetTableRow } from "./format-budget";
 export { createBand, isInsideBand, type Band } from "./tolerance-band";
 export { findTimeSpan, readRecordTimes } from "./time-span";
+export * from "./stored-evaluation";

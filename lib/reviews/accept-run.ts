@@ -5,7 +5,6 @@ import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation } from "@/db/run-series";
 import { setRunStatus } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
-import type { RunEvaluation } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
 import { confirmSignerPassword, insertSignature, type SignatureManifestation } from "@/lib/signatures/sign-record";
 import { actorLabel, loadRunForReview } from "./review-preconditions";
@@ -29,8 +28,7 @@ async function checkAcceptable(tx: Executor, actor: SignedInUser, runId: string,
   if (input.evaluationId && input.evaluationId !== stored.id) {
     throw new DomainError("conflict", `Run ${run.number} was evaluated again after you opened it. Read the new findings, then sign. Nothing was signed.`);
   }
-  // Written only by lib/runs/evaluate-stored-run.ts.
-  const evaluation = stored.evaluation as RunEvaluation;
+  const evaluation = stored.evaluation;
   const labels = new Map(evaluation.steps.map((s) => [`${s.stepId}#${s.cycle}`, s.label]));
   const matched = matchAcknowledgements(listDeviatingFindings(evaluation), input.acknowledgements, (f) =>
     f.stepId === null ? `${f.title} (the run as a whole)` : `${f.title} (${labels.get(`${f.stepId}#${f.cycle}`) ?? f.stepId})`,

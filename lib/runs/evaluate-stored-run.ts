@@ -6,9 +6,10 @@ import { getInstrument } from "@/db/instruments";
 import { getProcedureVersionById } from "@/db/procedures";
 import { getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
 import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
+import type { RunStatus } from "@/db/schema";
 import type { LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
-import { evaluateRun, type RunEvaluation, type RunInstrument } from "@/lib/conformance";
+import { evaluateRun, toStoredEvaluation, type RunEvaluation, type RunInstrument } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
 import { resolveProcedure, type ProcedureResolution } from "@/protocols";
 
@@ -28,10 +29,7 @@ export async function evaluateStoredRun(
   const db = getDb();
   const run = await getRun(db, runId);
   if (!run) throw new DomainError("not-found", "No such run.");
-  // The reviewer signed for one evaluation; a later one would leave the certificate resting on a stale basis.
-  if (run.status === "accepted" || run.status === "certified") {
-    throw new DomainError("conflict", `Run ${run.number} is ${run.status}: the evaluation its reviewer signed for is final and is not evaluated again.`);
-  }
+  refuseIfFinal(run);
   const against = opts.againstVersionId && opts.againstVersionId !== run.procedureVersionId ? await resolveOtherVersion(run, opts.againstVersionId) : null;
   const [records, log, instruments] = await Promise.all([listStepRecords(db, runId), getCurrentRunLog(db, runId), readRunInstruments(runId)]);
   const columns = opts.columns ?? (log ? await readRunLogColumns(db, log.id) : undefined);
@@ -58,13 +56,19 @@ export async function evaluateStoredRun(
   if (!result.ok) throw new DomainError("invalid", `The run's records cannot be evaluated: ${result.problems.map((p) => `${p.path}: ${p.message}`).join("; ")}`);
   const { evaluation } = result;
   await db.transaction().execute(async (tx) => {
+    // Checked again with the run row locked: an acceptance (which locks the same row) either finished
+    // before this point and is seen here, or waits until this evaluation is stored and then sees it.
+    // The database refuses the insert too (run_evaluation_frozen_with_run, migrations 0008 and 0020).
+    const locked = await getRun(tx, runId, { forUpdate: true });
+    if (!locked) throw new DomainError("not-found", "No such run.");
+    refuseIfFinal(locked);
     await tx
       .insertInto("run_evaluation")
       .values({
         run_id: runId,
         run_log_id: log?.id ?? null,
         procedure_version_id: against?.versionId ?? run.procedureVersionId,
-        evaluation: JSON.stringify(evaluation),
+        evaluation: JSON.stringify(toStoredEvaluation(evaluation)),
         procedure_followed: evaluation.verdict.procedureFollowed,
         specimen_conforms: evaluation.verdict.specimenConforms,
       })
@@ -80,6 +84,13 @@ export async function evaluateStoredRun(
     });
   });
   return evaluation;
+}
+
+/** The reviewer signed for one evaluation; a later one would leave the certificate resting on a stale basis. */
+function refuseIfFinal(run: { number: string; status: RunStatus }): void {
+  if (run.status === "accepted" || run.status === "certified") {
+    throw new DomainError("conflict", `Run ${run.number} is ${run.status}: the evaluation its reviewer signed for is final and is not evaluated again.`);
+  }
 }
 
 async function resolveOtherVersion(

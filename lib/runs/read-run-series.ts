@@ -2,7 +2,6 @@ import "server-only";
 import { getDb } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation, readChannelRange, readChannelSamples, type ChannelArrays, type LogChannel } from "@/db/run-series";
-import type { RunEvaluation } from "@/lib/conformance";
 import { DomainError } from "@/lib/errors";
 import { accumulateCapacityAh, planSeriesRead, thinChannels } from "./plan-series-read";
 import type { CapacitySeriesView, SeriesStepBand, TimeSeriesView } from "./run-series-view";
@@ -24,7 +23,7 @@ async function getLogAndSteps(runId: string) {
   const [log, stored] = await Promise.all([getCurrentRunLog(getDb(), runId), getLatestRunEvaluation(getDb(), runId)]);
   if (!log) throw new DomainError("not-found", "This run has no data log yet.");
   // Written only by evaluateStoredRun; steps are placed on this log only if it was the one evaluated.
-  const evaluation = stored && stored.runLogId === log.id ? (stored.evaluation as RunEvaluation) : null;
+  const evaluation = stored && stored.runLogId === log.id ? stored.evaluation : null;
   return { log, steps: evaluation?.steps ?? [] };
 }
 

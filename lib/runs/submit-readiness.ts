@@ -2,7 +2,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation } from "@/db/run-series";
-import { listFindings, type RunEvaluation } from "@/lib/conformance";
+import { listFindings } from "@/lib/conformance";
 
 export interface SubmitReadiness {
   log: { fileName: string; sampleCount: number } | null;
@@ -37,7 +37,7 @@ export async function readSubmitReadiness(db: Executor, runId: string): Promise<
             id: latest.id,
             evaluatedAt: latest.evaluatedAt,
             // Written only by lib/runs from evaluateRun's output.
-            deviations: listFindings(latest.evaluation as RunEvaluation).filter((f) => f.outcome === "deviates").length,
+            deviations: listFindings(latest.evaluation).filter((f) => f.outcome === "deviates").length,
           }
         : null,
     problems,

@@ -23,7 +23,7 @@ import { issueProducedCertificate, produceRunCertificate } from "@/lib/certifica
 import { gatherRunCertificateBasis } from "@/lib/certificates/run-certificate-basis";
 import { createSelfSignedP12 } from "@/lib/certificates/self-signed-p12";
 import { signPdf } from "@/lib/certificates/sign-pdf";
-import { listFindings, type RunEvaluation } from "@/lib/conformance";
+import { listFindings, parseStoredEvaluation } from "@/lib/conformance";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 import { ingestLog } from "@/lib/runs/ingest-log";
 import { recordStep } from "@/lib/runs/record-step";
@@ -122,7 +122,7 @@ async function runToSubmitted(tag: string, options: { ambientOnRest?: number } =
 async function accept(runId: string, notes: "all" | "none" = "all") {
   const l = await lab();
   const latest = await getDb().selectFrom("run_evaluation").select(["id", "evaluation"]).where("run_id", "=", runId).orderBy("evaluated_at", "desc").executeTakeFirstOrThrow();
-  const deviating = listFindings(latest.evaluation as RunEvaluation).filter((f) => f.outcome === "deviates");
+  const deviating = listFindings(parseStoredEvaluation(latest.evaluation)).filter((f) => f.outcome === "deviates");
   const acknowledged = notes === "all" ? deviating.map((f) => ({ findingId: f.id, note: "Cabinet door open for a minute; the rest lasted far beyond its minimum." })) : [];
   const signature = await getDb()
     .insertInto("electronic_signature")

@@ -5,7 +5,7 @@ import { listDischargeResults } from "@/lib/lots/results/list-discharge-results"
 import { formatLogCsv } from "@/lib/analysis";
 import { hashPassword } from "@/lib/auth/password";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
-import type { RunEvaluation } from "@/lib/conformance";
+import { parseStoredEvaluation } from "@/lib/conformance";
 import { classifyDischarge } from "@/lib/lots/results/capacity-discharge";
 import { EXPORT_COLUMNS, formatResultsCsv, listExportedResults } from "@/lib/lots/results/export-results";
 import { readLotResults } from "@/lib/lots/results/read-results";
@@ -113,7 +113,7 @@ describe("discharge results of reviewed runs", () => {
     const { runId } = runs.accepted[0]!;
     const [before] = await listDischargeResults(getDb(), { specimenId: runs.accepted[0]!.specimenId });
     const signed = await getDb().selectFrom("run_evaluation").selectAll().where("id", "=", before!.evaluationId).executeTakeFirstOrThrow();
-    const altered = structuredClone(signed.evaluation) as RunEvaluation;
+    const altered = parseStoredEvaluation(structuredClone(signed.evaluation));
     for (const step of altered.steps) if (step.results) step.results.capacityAh = 9.999;
     const values = { run_id: runId, run_log_id: signed.run_log_id, procedure_version_id: signed.procedure_version_id, evaluation: JSON.stringify(altered), procedure_followed: signed.procedure_followed, specimen_conforms: signed.specimen_conforms };
     // The database refuses a later evaluation of an accepted run; forged past its trigger, the results still keep the signed-for one.

@@ -6,8 +6,9 @@ import { listReviewQueue, listRunReviews, listRunSignatures } from "@/db/reviews
 import { getRun, listStepRecords } from "@/db/runs";
 import { formatLogCsv, type LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
-import { listFindings, type RunEvaluation } from "@/lib/conformance";
+import { listFindings, parseStoredEvaluation } from "@/lib/conformance";
 import { acceptRun } from "@/lib/reviews/accept-run";
+import { insertSignature } from "@/lib/signatures/sign-record";
 import { returnRun } from "@/lib/reviews/return-run";
 import { hashReviewedRecord } from "@/lib/reviews/reviewed-record";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
@@ -81,7 +82,7 @@ async function latestEvaluation(runId: string) {
     .orderBy("evaluated_at", "desc")
     .orderBy("id")
     .executeTakeFirstOrThrow();
-  return { id: row.id, evaluation: row.evaluation as RunEvaluation };
+  return { id: row.id, evaluation: parseStoredEvaluation(row.evaluation) };
 }
 
 /** What a refused decision must leave exactly as it was. */
@@ -254,5 +255,78 @@ describe("review of submitted runs", () => {
       expect(owner.query(`update electronic_signature set printed_name = 'someone else' where id = $1`, [signature.id])).rejects.toThrow(/never changed or deleted/),
     );
     expect(await reviewTrace(run.id)).toEqual(after);
+  });
+});
+
+describe("an evaluation racing an acceptance", () => {
+  /** Until some statement of this database waits on a row lock (or `ms` pass): then the race is set. */
+  async function waitForALockWait(ms = 5000): Promise<boolean> {
+    for (const until = Date.now() + ms; Date.now() < until; ) {
+      const { rows } = await sql<{ n: number }>`select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'`.execute(getDb());
+      if (rows[0]!.n > 0) return true;
+      await new Promise((resolve) => setTimeout(resolve, 20));
+    }
+    return false;
+  }
+
+  /**
+   * Accepts the run as acceptRun writes it (signature, review, status) in a transaction held open
+   * until `commit` resolves, so something else can be tried while the acceptance is in flight.
+   */
+  function acceptHeldOpen(runId: string, evaluationId: string, commit: Promise<void>): { accepted: Promise<void>; locked: Promise<void> } {
+    let markLocked!: () => void;
+    const locked = new Promise<void>((resolve) => (markLocked = resolve));
+    const accepted = getDb()
+      .transaction()
+      .execute(async (tx) => {
+        await getRun(tx, runId, { forUpdate: true });
+        const signature = await insertSignature(tx, { signer: lab.reviewer, meaning: "reviewed", entityType: "run", entityId: runId, recordSha256: "0".repeat(64) });
+        await tx.insertInto("run_review").values({ run_id: runId, reviewer_id: lab.reviewer.id, decision: "accepted", run_evaluation_id: evaluationId, acknowledged_deviations: "[]", signature_id: signature.id }).execute();
+        await tx.updateTable("run").set({ status: "accepted" }).where("id", "=", runId).execute();
+        markLocked();
+        await commit;
+      });
+    return { accepted, locked };
+  }
+
+  it("makes the database wait for the acceptance in flight, then refuse the evaluation (from the app's role)", async () => {
+    const run = await submittedRun("RACE-DB");
+    const signed = await latestEvaluation(run.id);
+    const row = await getDb().selectFrom("run_evaluation").selectAll().where("id", "=", signed.id).executeTakeFirstOrThrow();
+    let commit!: () => void;
+    const { accepted, locked } = acceptHeldOpen(run.id, signed.id, new Promise<void>((resolve) => (commit = resolve)));
+    await locked;
+    const insert = getDb()
+      .insertInto("run_evaluation")
+      .values({ run_id: run.id, run_log_id: row.run_log_id, procedure_version_id: row.procedure_version_id, evaluation: JSON.stringify(row.evaluation), procedure_followed: row.procedure_followed, specimen_conforms: row.specimen_conforms })
+      .execute()
+      .then(
+        () => "stored",
+        (error: Error) => error.message,
+      );
+    // Without the share lock of migration 0020 the insert read "submitted" and never waited.
+    expect(await waitForALockWait()).toBe(true);
+    commit();
+    await accepted;
+    expect(await insert).toMatch(/has been accepted: .* frozen \(INSERT refused on run_evaluation\)/);
+    expect(await getDb().selectFrom("run_evaluation").select("id").where("run_id", "=", run.id).execute()).toEqual([{ id: signed.id }]);
+  });
+
+  it("makes evaluateStoredRun wait for the acceptance in flight, then refuse in plain words", async () => {
+    const run = await submittedRun("RACE-APP");
+    const signed = await latestEvaluation(run.id);
+    let commit!: () => void;
+    const { accepted, locked } = acceptHeldOpen(run.id, signed.id, new Promise<void>((resolve) => (commit = resolve)));
+    await locked;
+    // Its first read (outside the transaction) still sees "submitted"; the locked read inside sees the acceptance.
+    const evaluating = evaluateStoredRun(lab.operator, run.id, { columns: run.columns }).then(
+      () => "evaluated",
+      (error: Error) => error.message,
+    );
+    expect(await waitForALockWait(15_000)).toBe(true);
+    commit();
+    await accepted;
+    expect(await evaluating).toBe(`Run ${run.number} is accepted: the evaluation its reviewer signed for is final and is not evaluated again.`);
+    expect(await getDb().selectFrom("run_evaluation").select("id").where("run_id", "=", run.id).execute()).toEqual([{ id: signed.id }]);
   });
 });

@@ -4,6 +4,7 @@ import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { getRun } from "@/db/runs";
 import { formatLogCsv } from "@/lib/analysis";
+import { parseStoredEvaluation } from "@/lib/conformance";
 import { releaseVersion, submitForReview } from "@/lib/procedures/lifecycle";
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
@@ -220,6 +221,6 @@ describe("runs", () => {
 
     // Kept with the stored evaluation, as the results page and the certificate read it.
     const stored = await getDb().selectFrom("run_evaluation").select("evaluation").where("run_id", "=", run.id).executeTakeFirstOrThrow();
-    expect((stored.evaluation as { uncertainty: unknown[] }).uncertainty).toHaveLength(evaluation.uncertainty.length);
+    expect(parseStoredEvaluation(stored.evaluation).uncertainty).toHaveLength(evaluation.uncertainty.length);
   });
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { buildRunCertificatePayload, readDecisionRule, type StoredEvaluation } from "@/lib/certificates/build-run-payload";
+import { buildRunCertificatePayload, readDecisionRule} from "@/lib/certificates/build-run-payload";
 import { hashCanonicalJson } from "@/lib/certificates/canonical-json";
-import { evaluateChargeRetention } from "@/lib/conformance";
+import { evaluateChargeRetention, parseStoredEvaluation } from "@/lib/conformance";
 import { findUnacknowledgedDeviations, readAcknowledgedDeviations } from "@/lib/certificates/review-coverage";
 import { buildFixtureRecords } from "@/scenarios/run-certificate";
 
@@ -68,16 +68,20 @@ describe("buildRunCertificatePayload", () => {
 
   it("reads evaluations stored before the decision rule and the budgets were kept: simple acceptance, uncertainty not evaluated", () => {
     const { records } = buildFixtureRecords();
-    const legacy = structuredClone(records.evaluation.value) as StoredEvaluation;
+    // A row as the database hands it back, written before the evaluation had a format.
+    const legacy = JSON.parse(JSON.stringify(records.evaluation.stored));
+    delete legacy.format;
     delete legacy.decisionRule;
     delete legacy.uncertainty;
     delete legacy.uncertaintyNotEvaluated;
     legacy.acceptance = [];
-    expect(readDecisionRule(legacy)).toBe("simple acceptance");
-    const payload = buildRunCertificatePayload({ ...records, evaluation: { ...records.evaluation, value: legacy } });
+    const read = parseStoredEvaluation(legacy);
+    expect(readDecisionRule(read)).toBe("simple acceptance");
+    const payload = buildRunCertificatePayload({ ...records, evaluation: { ...records.evaluation, value: read } });
     expect(payload.uncertainty).toEqual([]);
     expect(payload.uncertaintyNotEvaluated).toEqual([]);
-    const guarded = { ...legacy, acceptance: records.evaluation.value.acceptance.map((a) => ({ ...a, rule: "guarded acceptance" as const })) };
+    const guarded = parseStoredEvaluation({ ...legacy, acceptance: records.evaluation.value.acceptance.map((a) => ({ ...a, rule: "guarded acceptance" })) });
+    expect(guarded.decisionRule).toBe("binary guard band");
     expect(readDecisionRule(guarded)).toBe("guarded acceptance");
   });
 

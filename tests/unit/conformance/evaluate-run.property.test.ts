@@ -121,15 +121,17 @@ describe("evaluateRun properties", () => {
   }, 30_000);
 
   it("refuses junk records with field paths, never an exception", () => {
+    // Junk handed in as if it were an input, the way an unchecked caller would.
+    const pretendInput = (junk: unknown) => junk as Parameters<typeof evaluateRun>[0];
     fc.assert(
       fc.property(fc.array(fc.anything(), { minLength: 1, maxLength: 4 }), fc.anything(), (stepRecords, logStartedAt) => {
-        const input = { resolution: resolutions[0]?.resolution, cellRating: readCellRating(inventedCell), stepRecords, logStartedAt } as unknown as RunEvaluationInput;
+        const input = pretendInput({ resolution: resolutions[0]?.resolution, cellRating: readCellRating(inventedCell), stepRecords, logStartedAt });
         const result = evaluateRun(input);
         if (!result.ok) expect(result.problems.every((problem) => typeof problem.path === "string" && problem.message.length > 0)).toBe(true);
       }),
       { numRuns: 200 },
     );
-    expect(() => evaluateRun(null as unknown as RunEvaluationInput)).not.toThrow();
-    expect(evaluateRun("run" as unknown as RunEvaluationInput).ok).toBe(false);
+    expect(() => evaluateRun(pretendInput(null))).not.toThrow();
+    expect(evaluateRun(pretendInput("run")).ok).toBe(false);
   }, 30_000);
 });

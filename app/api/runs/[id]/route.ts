@@ -25,6 +25,6 @@ export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params })
       submittedAt: run.submittedAt,
     },
     log: log && { id: log.id, fileName: log.fileName, sha256: log.sha256, sizeBytes: log.sizeBytes, sampleCount: log.sampleCount, mapping: log.mapping, uploadedAt: log.uploadedAt },
-    evaluation: evaluation && { id: evaluation.id, runLogId: evaluation.runLogId, evaluatedAt: evaluation.evaluatedAt, ...(evaluation.evaluation as object) },
+    evaluation: evaluation && { id: evaluation.id, runLogId: evaluation.runLogId, evaluatedAt: evaluation.evaluatedAt, ...evaluation.evaluation },
   });
 });

@@ -15,7 +15,6 @@ import { getRun } from "@/db/runs";
 import { getLatestRunEvaluation } from "@/db/run-series";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
-import type { RunEvaluation } from "@/lib/conformance";
 import { listResultRows } from "@/lib/runs/list-result-rows";
 
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
@@ -40,7 +39,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   }
   // Written only by evaluateStoredRun. Evaluations stored before budgets and the procedure's decision
   // rule were recorded lack those fields: they were judged by simple acceptance, without budgets.
-  const evaluation = stored.evaluation as RunEvaluation;
+  const evaluation = stored.evaluation;
   const decisionRule = evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? "simple acceptance";
   const labels = new Map(evaluation.steps.map((s) => [s.stepId, s.label]));
   const findings: FindingRow[] = [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)].map((f) => ({

@@ -10,7 +10,6 @@ import { describeRunParticipation } from "@/db/run-participants";
 import { getRun } from "@/db/runs";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
-import type { RunEvaluation } from "@/lib/conformance";
 import { formatDateTime } from "@/lib/format-date-time";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 import { AcceptedView } from "./accepted-view";
@@ -94,7 +93,7 @@ export default async function RunReviewPage({ params }: { params: Promise<{ id: 
     );
   }
   // Written only by lib/runs/evaluate-stored-run.ts.
-  const evaluation = stored ? { id: stored.id, evaluatedAt: stored.evaluatedAt, onCurrentLog: log === null || stored.runLogId === log.id, data: stored.evaluation as RunEvaluation } : null;
+  const evaluation = stored ? { id: stored.id, evaluatedAt: stored.evaluatedAt, onCurrentLog: log === null || stored.runLogId === log.id, data: stored.evaluation } : null;
   if (run.status === "submitted") {
     return <ReviewWorkspace run={run} user={user} evaluation={evaluation} reviews={reviews} />;
   }
