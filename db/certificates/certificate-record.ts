@@ -41,25 +41,20 @@ export async function getCertificateRecord(db: Executor, number: string, options
 
 /** The certificate of a run that is neither revoked nor replaced, if any. */
 export async function findValidRunCertificate(db: Executor, runId: string): Promise<string | null> {
-  const r = await db
-    .selectFrom("certificate as c")
-    .leftJoin("certificate as next", "next.replaces_id", "c.id")
-    .select("c.number")
-    .where("c.run_id", "=", runId)
-    .where("c.revoked_at", "is", null)
-    .where("next.id", "is", null)
-    .orderBy("c.issued_at", "desc")
-    .executeTakeFirst();
-  return r?.number ?? null;
+  return findValidCertificate(db, "c.run_id", runId);
 }
 
 /** The lot certificate of a lot that is neither revoked nor replaced, if any. */
 export async function findValidLotCertificate(db: Executor, lotId: string): Promise<string | null> {
+  return findValidCertificate(db, "c.lot_id", lotId);
+}
+
+async function findValidCertificate(db: Executor, of: "c.run_id" | "c.lot_id", id: string): Promise<string | null> {
   const r = await db
     .selectFrom("certificate as c")
     .leftJoin("certificate as next", "next.replaces_id", "c.id")
     .select("c.number")
-    .where("c.lot_id", "=", lotId)
+    .where(of, "=", id)
     .where("c.revoked_at", "is", null)
     .where("next.id", "is", null)
     .orderBy("c.issued_at", "desc")
