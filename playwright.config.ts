@@ -53,6 +53,9 @@ export default defineConfig({
       MAIL_FROM: process.env.MAIL_FROM ?? "",
       MAIL_CATCHER_URL: process.env.MAIL_CATCHER_URL ?? "",
       MAIL_DISPATCH_INTERVAL_MS: "2000",
+      // Shared by every app server of an installation (scripts/env.sh makes them; docs/deployment.md).
+      CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY: process.env.CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY ?? "",
+      NEXT_SERVER_ACTIONS_ENCRYPTION_KEY: process.env.NEXT_SERVER_ACTIONS_ENCRYPTION_KEY ?? "",
       NEXT_TELEMETRY_DISABLED: "1",
     },
   },

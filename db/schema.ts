@@ -351,6 +351,7 @@ export interface Database {
   lot_sample_draw: LotSampleDrawTable;
   run_participant: RunParticipantTable;
   refused_request_tally: RefusedRequestTallyTable;
+  lab_signing_key: LabSigningKeyTable;
 }
 
 /** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
@@ -369,4 +370,19 @@ export interface RefusedRequestTallyTable {
   last_path: string;
   count: Generated<number>;
   last_at: DefaultedTimestamp;
+}
+
+/** The lab's signing key, sealed (migration 0021): at most one row, never changed or removed. */
+export interface LabSigningKeyTable {
+  id: string;
+  origin: "generated" | "imported";
+  sealed_p12: Buffer;
+  sealed_passphrase: Buffer;
+  sealing_key_name: string;
+  p12_sha256: string;
+  certificate_sha256: string;
+  subject: string;
+  valid_from: Date;
+  valid_to: Date;
+  created_at: DefaultedTimestamp;
 }

@@ -50,6 +50,8 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   "lot.draw-sample": "drew a lot's sample",
   "storage.integrity-fault": "a stored file was refused: missing, or not the bytes recorded at upload",
   "storage.repair": "a stored file was repaired to the bytes recorded at upload",
+  "signing-key.generate": "created the lab's signing key (self-signed) and stored it, encrypted, in the database",
+  "signing-key.import": "moved the lab's signing key from the server's data folder into the database, encrypted",
 };
 
 /** An action in words; one not in the list is still said in words ("run: something new"), never as its code. */
@@ -71,6 +73,7 @@ export const AUDIT_RECORD_TYPES: Record<string, string> = {
   specimen: "specimen",
   certificate: "certificate",
   "mail-message": "e-mail",
+  "lab-signing-key": "signing key",
 };
 
 /** "procedure TPL-RC20 version 2", "run R-00012"; a record whose name is unknown is named by its kind only. */

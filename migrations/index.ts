@@ -15,6 +15,7 @@ import * as m0014 from "./0014_session_details";
 import * as m0017 from "./0017_run_abandon";
 import * as m0019 from "./0019_release_signature";
 import * as m0020 from "./0020_evaluation_waits_for_acceptance";
+import * as m0021 from "./0021_lab_signing_key";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -37,4 +38,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0017_run_abandon": m0017,
   "0019_release_signature": m0019,
   "0020_evaluation_waits_for_acceptance": m0020,
+  "0021_lab_signing_key": m0021,
 };

@@ -31,6 +31,25 @@ cw_profile() {
   export DATABASE_URL="postgres://cellwright_app:$(cw_urlencode "$DB_APP_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
   export OWNER_DATABASE_URL="postgres://cellwright_owner:$(cw_urlencode "$DB_OWNER_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
   export ADMIN_DATABASE_URL="postgres://postgres:$(cw_urlencode "$DB_SUPERUSER_PASSWORD")@127.0.0.1:$PG_PORT/$PG_DB"
+  cw_app_keys
+}
+
+# Keys every app server of one installation must share (docs/deployment.md): the key that seals the lab's
+# signing key in the database, and the one Next.js encrypts server actions' bound values with, so a form
+# rendered by one server may be posted to another. Configured values win; otherwise 32 random bytes in
+# base64, generated once into .data/secrets (mode 600) like the database passwords.
+cw_app_keys() {
+  (umask 077; mkdir -p "$ROOT/.data/secrets")
+  CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY=$(cw_key signing-key-encryption "${CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY:-}")
+  NEXT_SERVER_ACTIONS_ENCRYPTION_KEY=$(cw_key server-actions-encryption "${NEXT_SERVER_ACTIONS_ENCRYPTION_KEY:-}")
+  export CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY NEXT_SERVER_ACTIONS_ENCRYPTION_KEY
+}
+
+cw_key() {
+  if [ -n "$2" ]; then printf %s "$2"; return; fi
+  local file="$ROOT/.data/secrets/$1.key"
+  [ -s "$file" ] || (umask 077; head -c 32 /dev/urandom | base64 | tr -d '\n' >"$file")
+  cat "$file"
 }
 
 # The three database roles' passwords: configured secrets (CELLWRIGHT_DB_SUPERUSER_PASSWORD,

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { Document, Font, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
-import { CopperRule, QrCode } from "./certificate-figures";
+import { CopperRule, QrCode, VqPlot } from "./certificate-figures";
 import { convertWoffToSfnt } from "./woff-to-sfnt";
 import type { CertificatePayload, LotCertificatePayload, RunCertificatePayload, SignatureStatement } from "./certificate-payload";
 import { ink, inkSoft, rule, styles, Tx } from "./certificate-primitives";
@@ -177,4 +177,43 @@ export function CertificateDocument(input: CertificateDocumentInput) {
 
 export async function renderCertificateDocument(input: CertificateDocumentInput): Promise<Buffer> {
   return renderToBuffer(<CertificateDocument {...input} />);
+}
+
+/** Every character a certificate commonly prints: ASCII, the lab's symbols, and some of the extended Latin subset. */
+const WARM_UP_TEXT = `${Array.from({ length: 95 }, (_, i) => String.fromCharCode(32 + i)).join("")} °±≤≥–—·×µΩ…“”‘’ ŁłÓóŰűŐőČčŠšŽž`;
+const WARM_UP_CURVE: DischargeCurve = {
+  stepId: "warm-up",
+  cycle: 1,
+  label: "warm-up",
+  capacityMAh: Array.from({ length: 400 }, (_, i) => i * 12.5),
+  voltageV: Array.from({ length: 400 }, (_, i) => 4.15 - 1.4 * (i / 400) ** 3 - 0.2 * (i / 400)),
+};
+
+/**
+ * A document of a few pages with what a certificate is made of (every face: both Merriweather subsets, regular
+ * and bold, Courier for hashes; a table of rows, a plot, a QR code), rendered when a server starts so the
+ * fonts are parsed, their common glyphs read and the layout code warm before the first certificate
+ * (preload-certificate-tools.ts). Nothing of it is kept.
+ */
+export async function renderWarmUpDocument(qr: QrModules): Promise<Buffer> {
+  return renderToBuffer(
+    <Document title="warm-up" creator="Cellwright" producer="Cellwright">
+      <Page size="A4" style={styles.page}>
+        <Tx style={styles.heading}>{WARM_UP_TEXT}</Tx>
+        <Tx>{WARM_UP_TEXT}</Tx>
+        <Text style={styles.hash}>{WARM_UP_TEXT.slice(0, 95)}</Text>
+        {Array.from({ length: 90 }, (_, row) => (
+          <View key={row} style={{ flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule }}>
+            <Tx style={{ width: "40%", color: inkSoft }}>{`Discharge step ${row + 1}, cycle ${row}`}</Tx>
+            <Tx style={{ width: "30%", textAlign: "right" }}>{`${(4850 + row * 3.5).toFixed(1)} mAh`}</Tx>
+            <Tx style={{ width: "30%", textAlign: "right", fontWeight: 700, color: ink }}>conforms</Tx>
+          </View>
+        ))}
+        <VqPlot curve={WARM_UP_CURVE} figure={1} />
+        <VqPlot curve={WARM_UP_CURVE} figure={2} />
+        <CopperRule />
+        <QrCode modules={qr} size={60} />
+      </Page>
+    </Document>,
+  );
 }

@@ -28,3 +28,9 @@ export async function renderCertificatePdf(input: {
   const documentInput: CertificateDocumentInput = { ...input, qr: createQrModules(input.checkUrl) };
   return renderCertificateDocument(documentInput);
 }
+
+/** The unsigned warm-up page (certificate-document.tsx): react-pdf loaded, fonts parsed, layout run once. */
+export async function renderWarmUpPdf(): Promise<Buffer> {
+  const { renderWarmUpDocument } = await loadDocumentModule();
+  return renderWarmUpDocument(createQrModules("http://localhost/check/C-00000"));
+}

@@ -187,7 +187,7 @@ describe("the app's database role", () => {
         from pg_class c join pg_namespace n on n.oid = c.relnamespace
        where n.nspname = 'public' and c.relkind = 'r'`.execute(getDb());
     const rights = Object.fromEntries(rows.rows.map((r) => [r.table, r.rights]));
-    for (const table of ["audit_event", "electronic_signature", "run_review", "run_log_chunk", "run_evaluation", "stored_file", "run_instrument", "lot_sample_draw", "procedure"]) {
+    for (const table of ["audit_event", "electronic_signature", "run_review", "run_log_chunk", "run_evaluation", "stored_file", "run_instrument", "lot_sample_draw", "procedure", "lab_signing_key"]) {
       expect(rights[table], table).toBe("S,I");
     }
     for (const table of ["run", "step_record", "run_log", "certificate", "procedure_version"]) expect(rights[table], table).toBe("S,I,U");

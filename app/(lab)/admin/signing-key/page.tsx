@@ -26,10 +26,12 @@ export default async function SigningKeyPage() {
       {key.source === "generated" && (
         <div className="mb-4">
           <Notice tone="caution" title="A key made by this installation">
-            This key was created on first start and its certificate is self-signed, so PDF readers report the issuer as unknown even when the signature is intact. A lab that
+            This key was created on first use and its certificate is self-signed, so PDF readers report the issuer as unknown even when the signature is intact. A lab that
             signs for customers sets <code>CELLWRIGHT_SIGNING_P12</code> and <code>CELLWRIGHT_SIGNING_PASSPHRASE</code> to a key issued by a certification authority it
-            trusts. Keep a copy of the key file: certificates signed with a key that is later replaced still verify byte for byte, but the check page no longer calls
+            trusts. Certificates signed with a key that is later replaced still verify byte for byte, but the check page no longer calls
             them signed with the lab&apos;s current key.
+            It is kept in the database, encrypted with the key in the server setting <code>CELLWRIGHT_SIGNING_KEY_ENCRYPTION_KEY</code>: keep a copy of that key
+            safe and apart from the database backups, as a restore without it cannot sign with this key again.
           </Notice>
         </div>
       )}
@@ -57,7 +59,7 @@ export default async function SigningKeyPage() {
         <dd className="py-1.5">
           {key.source === "configured"
             ? "configured by the lab: the key file named in the server's settings"
-            : "created by this installation on first start, kept in its data folder beside the database (back that folder up)"}
+            : "created by this installation on first use, kept in the database and shared by every app server, encrypted with the key in the servers' settings"}
         </dd>
       </dl>
     </>
