@@ -1,5 +1,6 @@
 import "server-only";
 import { sql } from "kysely";
+import { currentAuditContext } from "./audit-context";
 import type { Executor } from "./index";
 
 export interface AuditEntry {
@@ -16,7 +17,10 @@ export interface AuditEntry {
   address?: string | null;
 }
 
-/** Appends to the audit trail. Call it with the same transaction as the change it records. */
+/**
+ * Appends to the audit trail. Call it with the same transaction as the change it records. Without an
+ * address of its own, the event takes the one of the server action it runs in (db/audit-context.ts).
+ */
 export async function recordAuditEvent(db: Executor, entry: AuditEntry): Promise<void> {
   await db
     .insertInto("audit_event")
@@ -29,7 +33,7 @@ export async function recordAuditEvent(db: Executor, entry: AuditEntry): Promise
       before: toJson(entry.before),
       after: toJson(entry.after),
       detail: toJson(entry.detail),
-      address: entry.address ?? null,
+      address: entry.address ?? currentAuditContext()?.address ?? null,
     })
     .execute();
 }

@@ -3,7 +3,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listProceduresAwaitingRelease, listRunsInStates } from "@/db/queues";
 import { listReviewQueue } from "@/db/reviews";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can, ROLE_LABELS } from "@/lib/auth/permissions";
 import { ReleaseQueue, RunQueue } from "./home-queues";
 import { ReviewQueue } from "./review-queue";
@@ -11,7 +11,7 @@ import { ROLE_OVERVIEW } from "./role-overview";
 
 /** Home: what waits for you, queue by queue for your role, then your part in the lab. */
 export default async function HomePage() {
-  const user = await requirePagePermission("workbench.enter");
+  const user = await requirePageAccess("/");
   const overview = ROLE_OVERVIEW[user.role];
   const db = getDb();
   const [release, review, toCertify, returned, open] = await Promise.all([

@@ -4,14 +4,31 @@ import { forbidden, redirect } from "next/navigation";
 import { DomainError } from "@/lib/errors";
 import { toErrorResponse } from "@/lib/api/error-response";
 import { readUnstorableHeader, UNSTORABLE_HEADER } from "@/lib/security/unstorable-text";
-import { can, type Permission } from "./permissions";
 import { getRequestPath } from "./request-info";
+import {
+  admits,
+  areaAccess,
+  routeAccess,
+  type Access,
+  type AccessOf,
+  type ApiPattern,
+  type MethodOf,
+  type PagePattern,
+} from "./route-access";
 import { getCurrentSession } from "./session";
 import type { SignedInUser } from "./signed-in-user";
 
-// The only ways into the server: pages call requirePageUser / requirePagePermission, route handlers
-// are wrapped by apiRoute, server actions call requireActionPermission first.
+// The only ways into the server, each reading its access from ROUTE_ACCESS (lib/auth/route-access.ts):
+// pages call requirePageAccess("/pattern"), layouts requireAreaAccess("/area"), route handlers are
+// wrapped by apiRoute("/api/pattern", "GET", …), server actions by serverAction (lib/forms/server-action.ts).
 
+/** Who a guard hands on: nobody may be signed in on a public route. */
+export type CallerOf<A> = A extends "public" ? SignedInUser | null : SignedInUser;
+
+/** The dynamic segments of a route pattern as the handler's params: "/api/runs/[id]" → { id: string }. */
+export type ParamsOf<R extends string> = R extends `${string}[${infer K}]${infer Rest}` ? { [P in K]: string } & ParamsOf<Rest> : unknown;
+
+/** Signed in (and active), or sent to the sign-in page with a way back. */
 export async function requirePageUser(): Promise<SignedInUser> {
   const session = await getCurrentSession();
   if (!session) {
@@ -21,43 +38,68 @@ export async function requirePageUser(): Promise<SignedInUser> {
   return session.user;
 }
 
-export async function requirePagePermission(permission: Permission): Promise<SignedInUser> {
+async function requirePageAccessOf(access: Access | undefined, route: string): Promise<SignedInUser | null> {
+  if (access === undefined) throw new Error(`No access is declared for ${route} in lib/auth/route-access.ts.`);
+  if (access === "public") return (await getCurrentSession())?.user ?? null;
   const user = await requirePageUser();
-  if (!can(user.role, permission)) forbidden();
+  if (!admits(access, user.role)) forbidden();
   return user;
 }
 
-export async function requireActionPermission(permission: Permission): Promise<SignedInUser> {
-  const session = await getCurrentSession();
-  if (!session) throw new DomainError("unauthenticated", "Your session has ended. Sign in again.");
-  if (!can(session.user.role, permission)) {
-    throw new DomainError("forbidden", "Your role does not allow this action.");
-  }
-  // The proxy found text that cannot be stored in this action's form (proxy.ts): refuse before anything is written.
-  const unstorable = readUnstorableHeader((await headers()).get(UNSTORABLE_HEADER));
-  if (unstorable) throw new DomainError("invalid", unstorable.message, { field: unstorable.field });
-  return session.user;
+/** The first line of every page: the access ROUTE_ACCESS declares for the page's own route pattern. */
+export async function requirePageAccess<R extends PagePattern>(route: R): Promise<CallerOf<AccessOf<R>>> {
+  return (await requirePageAccessOf(routeAccess(route), route)) as CallerOf<AccessOf<R>>;
 }
 
-type Access = Permission | "signed-in";
-type RouteContext<P> = { params: Promise<P> };
+/**
+ * The first line of an area's layout (outside its loading.tsx, so a refusal is a real 403): admits whoever
+ * may open some page at or under the area; each page then checks its own access.
+ */
+export async function requireAreaAccess(area: string): Promise<SignedInUser> {
+  return (await requirePageAccessOf(areaAccess(area), area)) as SignedInUser;
+}
 
 /**
- * Wraps a route handler: establishes the caller, checks the permission, and sends every error
- * through the one error handler. `"signed-in"` admits any active user.
+ * The caller of a server action, refused in plain words when the access does not admit them, and
+ * refused again when the proxy found text in the form that cannot be stored (proxy.ts).
+ * Used by serverAction; call that, not this.
  */
-export function apiRoute<P = Record<string, string>>(
-  access: Access,
-  handler: (req: Request, ctx: { user: SignedInUser; params: P }) => Promise<Response>,
-): (req: Request, ctx: RouteContext<P>) => Promise<Response> {
+export async function requireActionAccess(access: Access): Promise<SignedInUser | null> {
+  const session = await getCurrentSession();
+  if (access !== "public") {
+    if (!session) throw new DomainError("unauthenticated", "Your session has ended. Sign in again.");
+    if (!admits(access, session.user.role)) throw new DomainError("forbidden", "Your role does not allow this action.");
+  }
+  const unstorable = readUnstorableHeader((await headers()).get(UNSTORABLE_HEADER));
+  if (unstorable) throw new DomainError("invalid", unstorable.message, { field: unstorable.field });
+  return session?.user ?? null;
+}
+
+type RouteContext = { params: Promise<Record<string, string | string[]>> };
+
+/**
+ * Wraps a route handler: reads the access ROUTE_ACCESS declares for this route and method, establishes
+ * the caller (none on a public route), refuses with 401/403, and sends every error through the one
+ * error handler. The handler never checks roles itself.
+ */
+export function apiRoute<R extends ApiPattern, M extends MethodOf<R>>(
+  route: R,
+  method: M,
+  handler: (req: Request, ctx: { user: CallerOf<AccessOf<R, M>>; params: ParamsOf<R> }) => Promise<Response>,
+): (req: Request, ctx: RouteContext) => Promise<Response> {
+  const access = routeAccess(route, method);
+  if (access === undefined) throw new Error(`No access is declared for ${method} ${route} in lib/auth/route-access.ts.`);
   return async (req, ctx) => {
     try {
-      const session = await getCurrentSession();
-      if (!session) throw new DomainError("unauthenticated", "Sign in first.");
-      if (access !== "signed-in" && !can(session.user.role, access)) {
-        throw new DomainError("forbidden", "Your role does not allow this.");
+      let user: SignedInUser | null = null;
+      if (access !== "public") {
+        const session = await getCurrentSession();
+        if (!session) throw new DomainError("unauthenticated", "Sign in first.");
+        if (!admits(access, session.user.role)) throw new DomainError("forbidden", "Your role does not allow this.");
+        user = session.user;
       }
-      return await handler(req, { user: session.user, params: await ctx.params });
+      const params = (ctx?.params ? await ctx.params : {}) as ParamsOf<R>;
+      return await handler(req, { user: user as CallerOf<AccessOf<R, M>>, params });
     } catch (error) {
       return toErrorResponse(error);
     }

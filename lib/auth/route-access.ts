@@ -1,16 +1,19 @@
-import type { Permission } from "./permissions";
+import { can, type Permission, type Role } from "./permissions";
 
 /** A list admits a caller holding any one of its permissions. */
 export type Access = Permission | readonly Permission[] | "public" | "signed-in";
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
 /**
- * Who may open each route, as the route itself checks it. The route × role matrix test walks app/
- * and fails for any route missing here, then checks every role gets the answer this table implies.
+ * Who may open each route: the one place access is written. Pages read it through
+ * `requirePageAccess("/pattern")`, layouts through `requireAreaAccess`, route handlers through
+ * `apiRoute("/api/pattern", "GET", …)`, server actions through `serverAction({ access: "/pattern" })`.
+ * tests/unit/route-access.test.ts checks every page and handler names its own pattern; the route × role
+ * matrix checks every role gets the answer this table implies.
  * Pages have one access; route handlers one per exported method.
  * `public`: no sign-in; `signed-in`: any active user.
  */
-export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Access>>> = {
+export const ROUTE_ACCESS = {
   "/": "workbench.enter",
   "/sign-in": "public",
   "/audit": "audit.read",
@@ -88,4 +91,54 @@ export const ROUTE_ACCESS: Record<string, Access | Partial<Record<HttpMethod, Ac
   "/api/compare/results.csv": { GET: "run.read" },
   "/account": "workbench.enter",
   "/admin/security": "user.manage",
-};
+} as const satisfies Record<string, Access | Partial<Record<HttpMethod, Access>>>;
+
+type Table = typeof ROUTE_ACCESS;
+export type RoutePattern = keyof Table;
+/** Routes with one access: pages. */
+export type PagePattern = { [R in RoutePattern]: Table[R] extends Access ? R : never }[RoutePattern];
+/** Routes with an access per method: route handlers. */
+export type ApiPattern = Exclude<RoutePattern, PagePattern>;
+export type MethodOf<R extends ApiPattern> = keyof Table[R] & HttpMethod;
+export type AccessOf<R extends RoutePattern, M extends HttpMethod = "GET"> = R extends PagePattern
+  ? Table[R]
+  : R extends ApiPattern
+    ? M extends keyof Table[R]
+      ? Table[R][M]
+      : never
+    : never;
+
+/** The access the table declares for a route (and, for a route handler, one method); undefined if none. */
+export function routeAccess(route: string, method: HttpMethod = "GET"): Access | undefined {
+  const entry = (ROUTE_ACCESS as Record<string, Access | Partial<Record<HttpMethod, Access>>>)[route];
+  if (entry === undefined || typeof entry === "string" || Array.isArray(entry)) return entry as Access | undefined;
+  return (entry as Partial<Record<HttpMethod, Access>>)[method];
+}
+
+/** Whether a caller (null: signed out) is admitted by an access. */
+export function admits(access: Access, role: Role | null): boolean {
+  if (access === "public") return true;
+  if (role === null) return false;
+  if (access === "signed-in") return true;
+  if (typeof access === "string") return can(role, access as Permission);
+  return access.some((p) => can(role, p));
+}
+
+/**
+ * An area (a layout's folder) admits whoever may open at least one signed-in page at or under it:
+ * each page then checks its own access. Public pages do not open an area.
+ */
+export function areaAccess(area: string): Access | undefined {
+  const within = (Object.entries(ROUTE_ACCESS) as [string, Access | object][]).filter(
+    ([route, access]) => (route === area || route.startsWith(area === "/" ? "/" : `${area}/`)) && isPageAccess(access) && access !== "public",
+  );
+  if (within.length === 0) return undefined;
+  const accesses = within.map(([, a]) => a as Access);
+  if (accesses.includes("signed-in")) return "signed-in";
+  const permissions = [...new Set(accesses.flatMap((a) => (typeof a === "string" ? [a as Permission] : [...(a as readonly Permission[])])))];
+  return permissions.length === 1 ? permissions[0]! : permissions;
+}
+
+function isPageAccess(value: unknown): value is Access {
+  return typeof value === "string" || Array.isArray(value);
+}

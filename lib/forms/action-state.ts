@@ -1,6 +1,7 @@
 import { ZodError } from "zod";
 import { isDomainError } from "@/lib/errors";
 import { translateConstraintError } from "@/db/constraint-errors";
+import { isZodDefaultMessage, plainZodMessage } from "./plain-zod-message";
 
 /** What a server action answers to its form: a message, and errors per field where they apply. */
 export interface ActionState {
@@ -17,7 +18,8 @@ export function toActionState(error: unknown, log: (e: unknown) => void = consol
     const fieldErrors: Record<string, string[]> = {};
     for (const issue of error.issues) {
       const key = issue.path.map(String).join(".") || "form";
-      (fieldErrors[key] ??= []).push(issue.message);
+      // Schemas parsed deeper in the domain may still carry zod's own wording: say it plainly.
+      (fieldErrors[key] ??= []).push(isZodDefaultMessage(issue.message) ? plainZodMessage(issue) : issue.message);
     }
     return { ok: false, message: "Some fields need attention.", fieldErrors };
   }

@@ -1,7 +1,7 @@
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
-import { ROUTE_ACCESS, type Access, type HttpMethod } from "../../lib/auth/route-access";
+import { routeAccess, type Access, type HttpMethod } from "../../lib/auth/route-access";
 
 // The routes on disk and real sample records for their dynamic segments, shared by the route × role
 // matrix and the plain-words scan (both walk every page).
@@ -31,9 +31,7 @@ export function discoverRoutes(dir = path.join(process.cwd(), "app"), segments: 
 }
 
 export function accessOf(route: string, method: HttpMethod): Access | undefined {
-  const a = ROUTE_ACCESS[route];
-  if (a === undefined || typeof a === "string" || Array.isArray(a)) return a as Access | undefined;
-  return (a as Partial<Record<HttpMethod, Access>>)[method];
+  return routeAccess(route, method);
 }
 
 /** Real records from the seeded e2e database, so dynamic routes answer for real. */

@@ -6,8 +6,8 @@ import pg from "pg";
 import { formatLogCsv } from "../../lib/analysis";
 import { readPdfSignature } from "../../lib/certificates/verify-pdf-signature";
 import type { ProcedureResolution } from "../../protocols";
-import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "../../scripts/demo-scenario";
-import { buildRatedCapacityRun } from "../support/rated-capacity-run";
+import { DEMO_CELL_SPECIFICATIONS, DEMO_USERS } from "@/scenarios/demo-lab";
+import { buildRatedCapacityRun } from "@/scenarios/rated-capacity-run";
 import { signInAs, signInAsUser } from "./fixtures";
 
 // Two app servers on one database, one object store and one set of secrets (docs/deployment.md): the

@@ -1,14 +1,14 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { Notice } from "@/components/ui/notice";
-import { getCurrentSession } from "@/lib/auth/session";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string; ended?: string }> }) {
-  const [{ next, ended }, session] = await Promise.all([searchParams, getCurrentSession()]);
-  if (session) redirect("/");
+  const [{ next, ended }, signedIn] = await Promise.all([searchParams, requirePageAccess("/sign-in")]);
+  if (signedIn) redirect("/");
   return (
     <section className="rounded border border-rule bg-white p-6 shadow-sm">
       <h1 className="mb-1 text-xl font-bold">Sign in to the workbench</h1>

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
 import { listMySessions } from "@/lib/auth/account-security";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { getCurrentSession } from "@/lib/auth/session";
 import { formatDateTime } from "@/lib/format-date-time";
 import { ChangePasswordForm } from "./change-password-form";
@@ -10,7 +10,7 @@ import { SignOutEverywhereForm } from "./sign-out-everywhere-form";
 export const metadata: Metadata = { title: "Your account" };
 
 export default async function AccountPage() {
-  const me = await requirePagePermission("workbench.enter");
+  const me = await requirePageAccess("/account");
   const session = (await getCurrentSession())!;
   const sessions = await listMySessions(session);
   return (

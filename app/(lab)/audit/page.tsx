@@ -3,7 +3,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listAuditActors, listAuditEvents } from "@/db/audit";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { AUDIT_ACTION_LABELS, AUDIT_RECORD_TYPES, describeAuditAction, describeAuditRecord, summariseAuditChange } from "@/lib/audit-labels";
 import { auditTrailSearchSchema, toAuditFilter, toAuditSearchParams } from "@/lib/audit-trail-filter";
 
@@ -28,7 +28,7 @@ const AREAS: [string, string][] = [
 const control = "rounded border border-rule bg-white px-2 py-1.5";
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePagePermission("audit.read");
+  await requirePageAccess("/audit");
   const search = auditTrailSearchSchema.parse(await searchParams);
   const [events, actors] = await Promise.all([listAuditEvents(getDb(), { ...toAuditFilter(search), limit: PAGE_SIZE }), listAuditActors(getDb())]);
   const last = events.at(-1);

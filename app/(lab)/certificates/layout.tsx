@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function CertificatesLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("certificate.read");
+  await requireAreaAccess("/certificates");
   return children;
 }

@@ -9,7 +9,7 @@ import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
 import { listDischargeResults } from "@/lib/lots/results/list-discharge-results";
 import { listLots } from "@/db/lots";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { formatDischargeKey, isAtMultiple, readCompareQuery } from "@/lib/lots/results/compare-selection";
 import { pickOverlayStyle, type OverlayStyle } from "@/lib/lots/results/overlay-style";
 import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
@@ -17,7 +17,7 @@ import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
 export const metadata: Metadata = { title: "Compare discharges" };
 
 export default async function ComparePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePagePermission("run.read");
+  await requirePageAccess("/compare");
   const query = readCompareQuery(await searchParams);
   const [specifications, lots, pool, chosen] = await Promise.all([
     listCellSpecifications(getDb()),

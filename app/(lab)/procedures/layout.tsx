@@ -1,9 +1,9 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 // Every procedure page needs procedure.read; pages that change things check more in their own layout.
 // Loading boundaries sit in route groups below, so these checks finish before the response starts.
 export default async function ProceduresLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("procedure.read");
+  await requireAreaAccess("/procedures");
   return children;
 }

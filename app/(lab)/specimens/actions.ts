@@ -3,16 +3,14 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { z } from "zod";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 import { readSpecimenForm } from "@/lib/specimens/record-forms";
 import { createSpecimen, editSpecimen, specimenInputSchema } from "@/lib/specimens/specimens";
 
-export async function saveSpecimenAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  let id: string;
-  try {
-    const user = await requireActionPermission("specimen.manage");
-    const input = specimenInputSchema.parse(readSpecimenForm(form));
+export const saveSpecimenAction = serverAction(
+  { access: "specimen.manage", input: specimenInputSchema, read: readSpecimenForm },
+  async ({ user, input, form }) => {
+    let id: string;
     const existing = z.uuid().optional().parse(form.get("id") || undefined);
     if (existing) {
       await editSpecimen(user, existing, input);
@@ -22,8 +20,6 @@ export async function saveSpecimenAction(_prev: ActionState, form: FormData): Pr
     }
     revalidatePath("/specimens", "layout");
     revalidatePath("/lots", "layout");
-  } catch (error) {
-    return toActionState(error);
-  }
-  redirect(`/specimens/${id}`);
-}
+    redirect(`/specimens/${id}`);
+  },
+);

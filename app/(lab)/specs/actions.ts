@@ -3,17 +3,15 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { z } from "zod";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 import { createCellSpecification, editCellSpecification } from "@/lib/specs/cell-specifications";
 import { cellSpecificationInputSchema } from "@/lib/specs/cell-specifications-input";
 import { readSpecificationForm } from "@/lib/specs/spec-form";
 
-export async function saveSpecificationAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  let id: string;
-  try {
-    const user = await requireActionPermission("spec.manage");
-    const input = cellSpecificationInputSchema.parse(readSpecificationForm(form));
+export const saveSpecificationAction = serverAction(
+  { access: "spec.manage", input: cellSpecificationInputSchema, read: readSpecificationForm },
+  async ({ user, input, form }) => {
+    let id: string;
     const existing = z.uuid().optional().parse(form.get("id") || undefined);
     if (existing) {
       await editCellSpecification(user, existing, input);
@@ -22,8 +20,6 @@ export async function saveSpecificationAction(_prev: ActionState, form: FormData
       id = await createCellSpecification(user, input);
     }
     revalidatePath("/specs", "layout");
-  } catch (error) {
-    return toActionState(error);
-  }
-  redirect(`/specs/${id}`);
-}
+    redirect(`/specs/${id}`);
+  },
+);

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function SpecsLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("spec.read");
+  await requireAreaAccess("/specs");
   return children;
 }

@@ -5,7 +5,7 @@ import { parseCertificateFilter, toCertificateQuery } from "@/lib/certificate-li
 import { toCertificateJson } from "@/lib/certificate-list/certificate-json";
 
 /** Issued certificates, newest first; ?lot=&spec=&from=YYYY-MM-DD&to=&verdict= as on the list page. */
-export const GET = apiRoute("certificate.read", async (req) => {
+export const GET = apiRoute("/api/certificates", "GET", async (req) => {
   const filter = parseCertificateFilter(new URL(req.url).searchParams);
   const certificates = await listCertificates(getDb(), toCertificateQuery(filter));
   return Response.json({ certificates: certificates.map(toCertificateJson) });

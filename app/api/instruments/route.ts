@@ -12,7 +12,7 @@ const querySchema = z.object({
 });
 
 /** The register with each instrument's calibration status as of today, those in use first; `?inuse=1` leaves out the rest. */
-export const GET = apiRoute("run.read", async (req) => {
+export const GET = apiRoute("/api/instruments", "GET", async (req) => {
   const { kind, inuse } = querySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   const today = readLabToday();
   const instruments = await listInstruments(getDb(), { kind, inUseOnly: inuse === "1" });

@@ -8,7 +8,7 @@ import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 
 const STATUSES: ProcedureStatus[] = ["draft", "in_review", "released", "withdrawn"];
 
-export const GET = apiRoute("procedure.read", async (req, { user }) => {
+export const GET = apiRoute("/api/procedures", "GET", async (req, { user }) => {
   const url = new URL(req.url);
   const status = STATUSES.find((s) => s === url.searchParams.get("status"));
   const procedures = await listProcedures(getDb(), {
@@ -19,7 +19,7 @@ export const GET = apiRoute("procedure.read", async (req, { user }) => {
   return Response.json({ procedures });
 });
 
-export const POST = apiRoute("procedure.author", async (req, { user }) => {
+export const POST = apiRoute("/api/procedures", "POST", async (req, { user }) => {
   const input = await readJson(req, procedureDraftSchema);
   const created = await createProcedure(user, input);
   return Response.json(created, { status: 201 });

@@ -8,7 +8,7 @@ const filterSchema = z.object({
   specimen: z.uuid("Not a specimen id.").optional(),
 });
 
-export const GET = apiRoute("run.read", async (req) => {
+export const GET = apiRoute("/api/runs", "GET", async (req) => {
   const url = new URL(req.url);
   const filter = filterSchema.parse({ status: url.searchParams.get("status") ?? undefined, specimen: url.searchParams.get("specimen") ?? undefined });
   const runs = await listRuns(getDb(), { status: filter.status, specimenId: filter.specimen });

@@ -10,12 +10,12 @@ const querySchema = z.object({
   lot: z.uuid({ error: "lot is a lot's id" }).optional(),
 });
 
-export const GET = apiRoute("run.read", async (req) => {
+export const GET = apiRoute("/api/specimens", "GET", async (req) => {
   const { q, lot } = querySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   return Response.json({ specimens: await listSpecimens(getDb(), { q: q || undefined, lotId: lot }) });
 });
 
-export const POST = apiRoute("specimen.manage", async (req, { user }) => {
+export const POST = apiRoute("/api/specimens", "POST", async (req, { user }) => {
   const input = await readJson(req, specimenInputSchema);
   const id = await createSpecimen(user, input);
   return Response.json({ id }, { status: 201 });

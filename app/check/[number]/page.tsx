@@ -6,6 +6,7 @@ import { VerdictWords } from "@/components/certificates/verdict-words";
 import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
 import { getCertificateByNumber } from "@/db/certificates";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { certificateNumberSchema } from "@/lib/certificate-list/certificate-number";
 import { toPublicCertificate } from "@/lib/certificate-list/public-certificate";
 import { formatDate, formatDateTime } from "@/lib/format-date-time";
@@ -20,6 +21,7 @@ export async function generateMetadata({ params }: { params: Promise<{ number: s
 const rowClass = "border-b border-rule py-1.5";
 
 export default async function CheckCertificatePage({ params }: { params: Promise<{ number: string }> }) {
+  await requirePageAccess("/check/[number]");
   const parsed = certificateNumberSchema.safeParse((await params).number);
   const found = parsed.success ? await getCertificateByNumber(getDb(), parsed.data) : null;
   if (!found) notFound();

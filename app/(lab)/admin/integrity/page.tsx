@@ -3,7 +3,7 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { INTEGRITY_FAULT_ACTION } from "@/lib/integrity/read-verified-file";
 import { describeChainBreak, verifyAuditChain } from "@/lib/integrity/verify-audit-chain";
 import { verifyStoredFiles } from "@/lib/integrity/verify-stored-files";
@@ -30,7 +30,7 @@ async function runCheck() {
  * missing), and can run the same check `npm run verify` runs: the audit chain and every stored file.
  */
 export default async function IntegrityPage({ searchParams }: { searchParams: Promise<{ check?: string }> }) {
-  await requirePagePermission("lab.manage");
+  await requirePageAccess("/admin/integrity");
   const { check } = await searchParams;
   const [faults, result] = await Promise.all([
     listAuditEvents(getDb(), { action: INTEGRITY_FAULT_ACTION, limit: FAULTS_SHOWN }),

@@ -3,7 +3,7 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { countOutbox, listOutbox } from "@/db/mail-messages";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { getMailCatcherUrl, readCatcherInbox } from "@/lib/mail/read-catcher-inbox";
 import { MAX_SEND_ATTEMPTS } from "@/lib/mail/retry-backoff";
 import { CatcherInbox } from "./catcher-inbox";
@@ -15,7 +15,7 @@ export const metadata: Metadata = { title: "E-mail" };
 const OUTBOX_SHOWN = 100;
 
 export default async function MailPage() {
-  await requirePagePermission("mail.read");
+  await requirePageAccess("/admin/mail");
   const catcherUrl = getMailCatcherUrl();
   const [messages, counts, inbox] = await Promise.all([
     listOutbox(getDb(), { limit: OUTBOX_SHOWN }),

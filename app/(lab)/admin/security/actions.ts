@@ -1,18 +1,11 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { getRequestAddress } from "@/lib/auth/request-info";
 import { clearSignInLimit } from "@/lib/auth/sign-in-limits";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 
-export async function clearLimitAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const forgotten = await clearSignInLimit(actor, { email: String(form.get("email") ?? ""), address: String(form.get("address") ?? "") }, await getRequestAddress());
-    revalidatePath("/admin/security");
-    return { ok: true, message: `Cleared: ${forgotten} failed ${forgotten === 1 ? "attempt" : "attempts"} forgotten.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const clearLimitAction = serverAction({ access: "/admin/security" }, async ({ user: actor, form, origin }) => {
+  const forgotten = await clearSignInLimit(actor, { email: String(form.get("email") ?? ""), address: String(form.get("address") ?? "") }, origin.address);
+  revalidatePath("/admin/security");
+  return { ok: true, message: `Cleared: ${forgotten} failed ${forgotten === 1 ? "attempt" : "attempts"} forgotten.` };
+});

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { SIGN_IN_LIMITS } from "@/lib/auth/sign-in";
 import { listRefusedRequests, listSignInLimits } from "@/lib/auth/sign-in-limits";
 import { formatDateTime } from "@/lib/format-date-time";
@@ -9,7 +9,7 @@ import { ClearLimitButton } from "./clear-limit-button";
 export const metadata: Metadata = { title: "Sign-in security" };
 
 export default async function SignInSecurityPage() {
-  await requirePagePermission("user.manage");
+  await requirePageAccess("/admin/security");
   const limits = await listSignInLimits();
   const refused = await listRefusedRequests();
   const rows = [

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { describeLabSigningKey } from "@/lib/certificates/lab-signing-key";
 import { formatDate } from "@/lib/format-date-time";
 import { addDays } from "@/lib/instruments/calendar-date";
@@ -13,7 +13,7 @@ const rowClass = "border-b border-rule py-1.5";
 
 /** The key every certificate is signed with: what an assessor's PDF tool will show as the signer. */
 export default async function SigningKeyPage() {
-  await requirePagePermission("signing-key.manage");
+  await requirePageAccess("/admin/signing-key");
   const key = await describeLabSigningKey();
   // Dates as YYYY-MM-DD compare as text.
   const expiresSoon = formatDate(key.validTo) < addDays(readLabToday(), 60);

@@ -1,8 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { getRequestAddress } from "@/lib/auth/request-info";
+import { endSessionsAsAdmin, setPasswordAsAdmin } from "@/lib/auth/account-security";
 import {
   changeRoleSchema,
   changeUserRole,
@@ -11,66 +10,37 @@ import {
   setActiveSchema,
   setUserActive,
 } from "@/lib/auth/user-admin";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
-import { endSessionsAsAdmin, setPasswordAsAdmin } from "@/lib/auth/account-security";
+import { serverAction } from "@/lib/forms/server-action";
 
-export async function createUserAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const input = createUserSchema.parse(Object.fromEntries(form));
-    const user = await createUser(actor, input, await getRequestAddress());
-    revalidatePath("/admin/users");
-    return { ok: true, message: `${user.displayName} can now sign in as ${user.email}.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const createUserAction = serverAction({ access: "/admin/users", input: createUserSchema }, async ({ user: actor, input, origin }) => {
+  const user = await createUser(actor, input, origin.address);
+  revalidatePath("/admin/users");
+  return { ok: true, message: `${user.displayName} can now sign in as ${user.email}.` };
+});
 
-export async function changeRoleAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const input = changeRoleSchema.parse(Object.fromEntries(form));
-    const user = await changeUserRole(actor, input, await getRequestAddress());
-    revalidatePath("/admin/users");
-    return { ok: true, message: `${user.displayName} is now ${user.role}.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const changeRoleAction = serverAction({ access: "/admin/users", input: changeRoleSchema }, async ({ user: actor, input, origin }) => {
+  const user = await changeUserRole(actor, input, origin.address);
+  revalidatePath("/admin/users");
+  return { ok: true, message: `${user.displayName} is now ${user.role}.` };
+});
 
-export async function setActiveAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const input = setActiveSchema.parse(Object.fromEntries(form));
-    const user = await setUserActive(actor, input, await getRequestAddress());
-    revalidatePath("/admin/users");
-    return {
-      ok: true,
-      message: user.active ? `${user.displayName} can sign in again.` : `${user.displayName} is deactivated and signed out everywhere.`,
-    };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const setActiveAction = serverAction({ access: "/admin/users", input: setActiveSchema }, async ({ user: actor, input, origin }) => {
+  const user = await setUserActive(actor, input, origin.address);
+  revalidatePath("/admin/users");
+  return {
+    ok: true,
+    message: user.active ? `${user.displayName} can sign in again.` : `${user.displayName} is deactivated and signed out everywhere.`,
+  };
+});
 
-export async function setPasswordAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const result = await setPasswordAsAdmin(actor, { userId: String(form.get("userId") ?? ""), password: String(form.get("password") ?? "") }, await getRequestAddress());
-    revalidatePath("/admin/users");
-    return { ok: true, message: `${result.displayName} has a new password; ${result.endedSessions} ${result.endedSessions === 1 ? "session was" : "sessions were"} signed out. Hand the password over in person.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const setPasswordAction = serverAction({ access: "/admin/users" }, async ({ user: actor, form, origin }) => {
+  const result = await setPasswordAsAdmin(actor, { userId: String(form.get("userId") ?? ""), password: String(form.get("password") ?? "") }, origin.address);
+  revalidatePath("/admin/users");
+  return { ok: true, message: `${result.displayName} has a new password; ${result.endedSessions} ${result.endedSessions === 1 ? "session was" : "sessions were"} signed out. Hand the password over in person.` };
+});
 
-export async function endSessionsAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("user.manage");
-    const ended = await endSessionsAsAdmin(actor, String(form.get("userId") ?? ""), await getRequestAddress());
-    revalidatePath("/admin/users");
-    return { ok: true, message: `${ended} ${ended === 1 ? "session" : "sessions"} signed out.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const endSessionsAction = serverAction({ access: "/admin/users" }, async ({ user: actor, form, origin }) => {
+  const ended = await endSessionsAsAdmin(actor, String(form.get("userId") ?? ""), origin.address);
+  revalidatePath("/admin/users");
+  return { ok: true, message: `${ended} ${ended === 1 ? "session" : "sessions"} signed out.` };
+});

@@ -4,7 +4,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { countUserSessions } from "@/db/sessions";
 import { listUsers } from "@/db/users";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { CreateUserForm } from "./create-user-form";
 import { UserAccessControls } from "./user-access-controls";
@@ -13,7 +13,7 @@ import { UserRowControls } from "./user-row-controls";
 export const metadata: Metadata = { title: "Users" };
 
 export default async function UsersPage() {
-  const me = await requirePagePermission("user.manage");
+  const me = await requirePageAccess("/admin/users");
   const users = await listUsers(getDb());
   const sessions = await Promise.all(users.map((u) => countUserSessions(getDb(), u.id)));
   return (

@@ -7,7 +7,7 @@ import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
 import { listCertificates } from "@/db/certificates";
 import { listLots } from "@/db/lots";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { parseCertificateFilter, toCertificateQuery } from "@/lib/certificate-list/certificate-filter";
 import { formatDateTime } from "@/lib/format-date-time";
 
@@ -16,7 +16,7 @@ export const metadata: Metadata = { title: "Certificates" };
 const selectClass = "rounded border border-rule bg-white px-2 py-1.5 text-sm";
 
 export default async function CertificatesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePagePermission("certificate.read");
+  await requirePageAccess("/certificates");
   const filter = parseCertificateFilter(await searchParams);
   const db = getDb();
   const [certificates, lots, specs] = await Promise.all([listCertificates(db, toCertificateQuery(filter)), listLots(db), listCellSpecifications(db)]);

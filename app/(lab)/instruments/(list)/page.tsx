@@ -6,7 +6,7 @@ import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listInstruments } from "@/db/instruments";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { DUE_SOON_DAYS } from "@/lib/instruments/calibration-status";
 import { INSTRUMENT_KIND_LABELS, INSTRUMENT_KINDS } from "@/lib/instruments/instrument-kind";
@@ -22,7 +22,7 @@ const searchSchema = z.object({
 });
 
 export default async function InstrumentsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/instruments");
   const { kind, inuse } = searchSchema.parse(await searchParams);
   const today = readLabToday();
   const instruments = rankInstruments(await listInstruments(getDb(), { kind, inUseOnly: inuse === "1" }), today);

@@ -6,14 +6,14 @@ import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listLots } from "@/db/lots";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { formatNumber } from "@/protocols";
 
 export const metadata: Metadata = { title: "Lots" };
 
 export default async function LotsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/lots");
   const q = z.string().trim().max(100).optional().catch(undefined).parse((await searchParams).q);
   const lots = await listLots(getDb(), { q: q || undefined });
   return (

@@ -6,7 +6,7 @@ import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listProcedures } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Procedures" };
@@ -17,7 +17,7 @@ const searchSchema = z.object({
 });
 
 export default async function ProceduresPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("procedure.read");
+  const user = await requirePageAccess("/procedures");
   const { q, status } = searchSchema.parse(await searchParams);
   const author = can(user.role, "procedure.author");
   const procedures = await listProcedures(getDb(), { q: q || undefined, status: author ? status : undefined, releasedOnly: !author });

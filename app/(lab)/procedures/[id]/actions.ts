@@ -5,8 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { getProcedureVersionById } from "@/db/procedures";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 import { reasonSchema } from "@/lib/procedures/procedure-input";
 import { signAndReleaseVersion, returnToDraft, startNewDraft, submitForReview, withdrawVersion } from "@/lib/procedures/lifecycle";
 
@@ -17,63 +16,40 @@ async function procedurePathOf(versionId: string): Promise<string> {
   return v ? `/procedures/${v.procedureId}` : "/procedures";
 }
 
-export async function submitForReviewAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const user = await requireActionPermission("procedure.author");
-    const { versionId } = versionIdSchema.parse(Object.fromEntries(form));
-    await submitForReview(user, versionId);
-    revalidatePath(await procedurePathOf(versionId), "layout");
-    return { ok: true, message: "Submitted for review. Another engineer can now release it." };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+export const submitForReviewAction = serverAction({ access: "procedure.author", input: versionIdSchema }, async ({ user, input: { versionId } }) => {
+  await submitForReview(user, versionId);
+  revalidatePath(await procedurePathOf(versionId), "layout");
+  return { ok: true, message: "Submitted for review. Another engineer can now release it." };
+});
 
-export async function returnToDraftAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const user = await requireActionPermission("procedure.author");
-    const { versionId, comment } = versionIdSchema.extend({ comment: reasonSchema }).parse(Object.fromEntries(form));
+export const returnToDraftAction = serverAction(
+  { access: "procedure.author", input: versionIdSchema.extend({ comment: reasonSchema }) },
+  async ({ user, input: { versionId, comment } }) => {
     await returnToDraft(user, versionId, comment);
     revalidatePath(await procedurePathOf(versionId), "layout");
     return { ok: true, message: "Returned to draft with your comment." };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+  },
+);
 
-export async function releaseAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const user = await requireActionPermission("procedure.release");
-    const { versionId, password } = versionIdSchema.extend({ password: z.string().min(1, { error: "enter your password to sign" }).max(1000) }).parse(Object.fromEntries(form));
+export const releaseAction = serverAction(
+  { access: "procedure.release", input: versionIdSchema.extend({ password: z.string().min(1, { error: "enter your password to sign" }).max(1000) }) },
+  async ({ user, input: { versionId, password } }) => {
     await signAndReleaseVersion(user, versionId, password);
     revalidatePath(await procedurePathOf(versionId), "layout");
     return { ok: true, message: "Released with your signature (approved for use). Operators can now run this version; it can no longer change." };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+  },
+);
 
-export async function withdrawAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  try {
-    const user = await requireActionPermission("procedure.release");
-    const { versionId, reason } = versionIdSchema.extend({ reason: reasonSchema }).parse(Object.fromEntries(form));
+export const withdrawAction = serverAction(
+  { access: "procedure.release", input: versionIdSchema.extend({ reason: reasonSchema }) },
+  async ({ user, input: { versionId, reason } }) => {
     await withdrawVersion(user, versionId, reason);
     revalidatePath(await procedurePathOf(versionId), "layout");
     return { ok: true, message: "Withdrawn. No new runs can start on it." };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+  },
+);
 
-export async function startNewDraftAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  let target: string;
-  try {
-    const user = await requireActionPermission("procedure.author");
-    const { versionId } = versionIdSchema.parse(Object.fromEntries(form));
-    const { number } = await startNewDraft(user, versionId);
-    target = `${await procedurePathOf(versionId)}/versions/${number}/edit`;
-  } catch (error) {
-    return toActionState(error);
-  }
-  redirect(target);
-}
+export const startNewDraftAction = serverAction({ access: "procedure.author", input: versionIdSchema }, async ({ user, input: { versionId } }) => {
+  const { number } = await startNewDraft(user, versionId);
+  redirect(`${await procedurePathOf(versionId)}/versions/${number}/edit`);
+});

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listProcedures } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { procedureTemplates } from "@/protocols";
 import { NewProcedureForm, type StartOption } from "./new-procedure-form";
 import { BLANK_START } from "./start-procedure";
@@ -11,7 +11,7 @@ import { BLANK_START } from "./start-procedure";
 export const metadata: Metadata = { title: "New procedure" };
 
 export default async function NewProcedurePage() {
-  await requirePagePermission("procedure.author");
+  await requirePageAccess("/procedures/new");
   const existingCodes = (await listProcedures(getDb())).map((p) => p.code);
   const options: StartOption[] = [
     ...procedureTemplates.map(({ key, procedure: { header, steps } }) => ({

@@ -6,7 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listRuns } from "@/db/runs";
 import type { RunStatus } from "@/db/schema";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 
@@ -19,7 +19,7 @@ const filterSchema = z.object({
 });
 
 export default async function RunsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/runs");
   const filter = filterSchema.parse(await searchParams);
   const runs = await listRuns(getDb(), { status: filter.status, operatorId: filter.mine ? user.id : undefined });
   return (

@@ -8,13 +8,13 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listRunSignatures } from "@/db/reviews";
 import { getRun } from "@/db/runs";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 
 /** The run's header with its signatures, and its views; loading boundaries sit inside each view. */
 export default async function RunLayout({ children, params }: { children: ReactNode; params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requireAreaAccess("/runs/[id]");
   const id = z.uuid().safeParse((await params).id);
   const [run, signatures] = id.success ? await Promise.all([getRun(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
   if (!run) notFound();

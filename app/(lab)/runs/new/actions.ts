@@ -2,24 +2,18 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { requireActionPermission } from "@/lib/auth/guards";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 import { readLabToday } from "@/lib/instruments/lab-today";
 import { startRun, startRunSchema } from "@/lib/runs/start-run";
 
-export async function startRunAction(_prev: ActionState, form: FormData): Promise<ActionState> {
-  let runId: string;
-  try {
-    const user = await requireActionPermission("run.operate");
-    const input = startRunSchema.parse({
-      procedureVersionId: form.get("procedureVersionId"),
-      specimenId: form.get("specimenId"),
-      instrumentIds: form.getAll("instrumentIds"),
-    });
-    ({ id: runId } = await startRun(user, input, readLabToday()));
-  } catch (error) {
-    return toActionState(error);
-  }
+const readStartForm = (form: FormData) => ({
+  procedureVersionId: form.get("procedureVersionId"),
+  specimenId: form.get("specimenId"),
+  instrumentIds: form.getAll("instrumentIds"),
+});
+
+export const startRunAction = serverAction({ access: "/runs/new", input: startRunSchema, read: readStartForm }, async ({ user, input }) => {
+  const { id: runId } = await startRun(user, input, readLabToday());
   revalidatePath("/runs");
   redirect(`/runs/${runId}`);
-}
+});

@@ -4,7 +4,7 @@ import { getDb } from "@/db";
 import { listInstruments } from "@/db/instruments";
 import { getProcedureVersion, listProcedures } from "@/db/procedures";
 import { listSpecimens } from "@/db/specimens";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { INSTRUMENT_KIND_LABELS } from "@/lib/instruments/instrument-kind";
 import { readLabToday } from "@/lib/instruments/lab-today";
 import { rankInstruments } from "@/lib/instruments/rank-instruments";
@@ -15,7 +15,7 @@ import { StartRunForm } from "./start-run-form";
 export const metadata: Metadata = { title: "Start a run" };
 
 export default async function StartRunPage() {
-  await requirePagePermission("run.operate");
+  await requirePageAccess("/runs/new");
   const db = getDb();
   const today = readLabToday();
   const [procedures, specimens, instruments] = await Promise.all([listProcedures(db, { releasedOnly: true }), listSpecimens(db), listInstruments(db)]);

@@ -6,13 +6,13 @@ import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listSpecimens } from "@/db/specimens";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Specimens" };
 
 export default async function SpecimensPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/specimens");
   const q = z.string().trim().max(100).optional().catch(undefined).parse((await searchParams).q);
   const specimens = await listSpecimens(getDb(), { q: q || undefined });
   return (

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { z } from "zod";
 import { SpecimenForm } from "@/components/specimens/specimen-form";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { loadLotOptions, loadSpecificationOptions } from "@/lib/specimens/form-options";
 import { saveSpecimenAction } from "../actions";
 
@@ -10,7 +10,7 @@ export const metadata: Metadata = { title: "Register a specimen" };
 
 /** `?lot=<id>` (from a lot's page) starts the form in that lot; `&position=137` at that tray position (a drawn cell). */
 export default async function NewSpecimenPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePagePermission("specimen.manage");
+  await requirePageAccess("/specimens/new");
   const query = await searchParams;
   const lotId = z.uuid().optional().catch(undefined).parse(query.lot);
   const position = z.coerce.number().int().min(1).optional().catch(undefined).parse(query.position);

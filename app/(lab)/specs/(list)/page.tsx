@@ -6,14 +6,14 @@ import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { formatNumber } from "@/protocols";
 
 export const metadata: Metadata = { title: "Cell specifications" };
 
 export default async function SpecsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  const user = await requirePagePermission("spec.read");
+  const user = await requirePageAccess("/specs");
   const q = z.string().trim().max(100).optional().catch(undefined).parse((await searchParams).q);
   const specs = await listCellSpecifications(getDb(), { q: q || undefined });
   return (

@@ -5,7 +5,7 @@ import { certificateNumberSchema } from "@/lib/certificate-list/certificate-numb
 import { toCertificateJson } from "@/lib/certificate-list/certificate-json";
 import { DomainError } from "@/lib/errors";
 
-export const GET = apiRoute<{ number: string }>("certificate.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/certificates/[number]", "GET", async (_req, { params }) => {
   const number = certificateNumberSchema.parse(params.number);
   const certificate = await getCertificateByNumber(getDb(), number);
   if (!certificate) throw new DomainError("not-found", `No certificate ${number}.`);

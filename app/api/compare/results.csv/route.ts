@@ -4,7 +4,7 @@ import { formatResultsCsv, listExportedResults } from "@/lib/lots/results/export
 import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
 
 /** The numbers of the chosen discharges (`d`, repeated), one line each, in the order chosen. */
-export const GET = apiRoute("run.read", async (req) => {
+export const GET = apiRoute("/api/compare/results.csv", "GET", async (req) => {
   const keys = chosenDischargesSchema.parse(new URL(req.url).searchParams.getAll("d"));
   const { found } = keys.length === 0 ? { found: [] } : await findChosenDischarges(keys);
   // Each row carries its own cell's rating: the chosen discharges may be of several specifications.

@@ -11,7 +11,7 @@ const pointsSchema = z.coerce.number<unknown>().int(pointsMessage).min(MIN_POINT
  * V against Q of each chosen reviewed discharge (`d`, repeated: R-00014.discharge.1), thinned on the
  * server to about `points` each. No `d`: no curves.
  */
-export const GET = apiRoute("run.read", async (req) => {
+export const GET = apiRoute("/api/compare/series", "GET", async (req) => {
   const url = new URL(req.url);
   const keys = chosenDischargesSchema.parse(url.searchParams.getAll("d"));
   const points = pointsSchema.parse(url.searchParams.get("points") ?? undefined);

@@ -11,7 +11,7 @@ const previewSchema = z.object({
 });
 
 /** Resolves unsaved editor content, so the engineer sees set-points and cautions while writing. */
-export const POST = apiRoute("procedure.author", async (req) => {
+export const POST = apiRoute("/api/procedures/preview", "POST", async (req) => {
   const { specId, definition, acknowledgedCautions } = await readJson(req, previewSchema);
   return Response.json(await resolveAgainstSpecification({ procedure: definition, specId, acknowledgedCautions }));
 });

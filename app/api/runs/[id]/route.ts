@@ -7,7 +7,7 @@ import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
 
 /** The run, its current log and its latest evaluation (findings, results, verdict). */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/runs/[id]", "GET", async (_req, { params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const [run, log, evaluation] = await Promise.all([getRun(getDb(), id), getCurrentRunLog(getDb(), id), getLatestRunEvaluation(getDb(), id)]);
   if (!run) throw new DomainError("not-found", "No such run.");

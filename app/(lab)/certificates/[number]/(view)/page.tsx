@@ -8,7 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getCertificateByNumber } from "@/db/certificates";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { certificateNumberSchema } from "@/lib/certificate-list/certificate-number";
 import { formatDateTime } from "@/lib/format-date-time";
@@ -22,7 +22,7 @@ export async function generateMetadata({ params }: { params: Promise<{ number: s
 const rowClass = "border-b border-rule py-1";
 
 export default async function CertificatePage({ params }: { params: Promise<{ number: string }> }) {
-  const user = await requirePagePermission("certificate.read");
+  const user = await requirePageAccess("/certificates/[number]");
   const number = certificateNumberSchema.safeParse((await params).number);
   const c = number.success ? await getCertificateByNumber(getDb(), number.data) : null;
   if (!c) notFound();

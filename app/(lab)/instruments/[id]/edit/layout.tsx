@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function ManageInstrumentLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("instrument.manage");
+  await requireAreaAccess("/instruments/[id]/edit");
   return children;
 }

@@ -5,13 +5,13 @@ import { InstrumentForm } from "@/components/instruments/instrument-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getInstrument } from "@/db/instruments";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { saveInstrumentAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Edit instrument" };
 
 export default async function EditInstrumentPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("instrument.manage");
+  await requirePageAccess("/instruments/[id]/edit");
   const id = z.uuid().safeParse((await params).id);
   const instrument = id.success ? await getInstrument(getDb(), id.data) : null;
   if (!instrument) notFound();

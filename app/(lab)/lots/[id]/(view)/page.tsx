@@ -12,7 +12,7 @@ import { getLotSampling } from "@/lib/lots/sampling/read-lot-sampling";
 import { getLot } from "@/db/lots";
 import { listProcedures } from "@/db/procedures";
 import { listSpecimens } from "@/db/specimens";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { findSampledRunsOperatedBy } from "@/lib/certificates/lot-certificate-basis";
 import { offeredAqlColumns } from "@/lib/lots/sampling";
@@ -25,7 +25,7 @@ export const metadata: Metadata = { title: "Lot" };
 const linkClass = "rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper";
 
 export default async function LotPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/lots/[id]");
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const db = getDb();

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function ManageLotLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("specimen.manage");
+  await requireAreaAccess("/lots/[id]/edit");
   return children;
 }

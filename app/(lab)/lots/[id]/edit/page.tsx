@@ -5,14 +5,14 @@ import { LotForm } from "@/components/specimens/lot-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getLot } from "@/db/lots";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { loadSpecificationOptions } from "@/lib/specimens/form-options";
 import { saveLotAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Edit lot" };
 
 export default async function EditLotPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("specimen.manage");
+  await requirePageAccess("/lots/[id]/edit");
   const id = z.uuid().safeParse((await params).id);
   const [lot, specifications] = await Promise.all([id.success ? getLot(getDb(), id.data) : null, loadSpecificationOptions()]);
   if (!lot) notFound();

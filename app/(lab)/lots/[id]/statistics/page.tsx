@@ -4,7 +4,7 @@ import { RateCapabilityTableView } from "@/components/lot-results/rate-capabilit
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
 import { readLotResults } from "@/lib/lots/results/read-results";
@@ -12,7 +12,7 @@ import { readLotResults } from "@/lib/lots/results/read-results";
 export const metadata: Metadata = { title: "Lot statistics" };
 
 export default async function LotStatisticsPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("run.read");
+  await requirePageAccess("/lots/[id]/statistics");
   const { lot, specification, results, statistics, rateCapability } = await readOrNotFound((await params).id, readLotResults);
   const exportLink = "text-copper-deep underline";
   return (

@@ -8,7 +8,7 @@ import { VersionActionForm } from "@/components/procedures/version-actions";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listProcedureVersions, type ProcedureVersionView } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { canSeeVersion } from "@/lib/procedures/read-access";
@@ -21,7 +21,7 @@ export const metadata: Metadata = { title: "Procedure" };
 const fmt = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
 
 export default async function ProcedurePage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("procedure.read");
+  const user = await requirePageAccess("/procedures/[id]");
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const versions = (await listProcedureVersions(getDb(), id.data)).filter((v) => canSeeVersion(user, v.status));

@@ -6,7 +6,7 @@ import { VersionComparison } from "@/components/procedures/version-comparison";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getProcedureVersion } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { canSeeVersion } from "@/lib/procedures/read-access";
 
 export const metadata: Metadata = { title: "Compare versions" };
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Compare versions" };
 const querySchema = z.object({ a: z.coerce.number<string>().int().min(1), b: z.coerce.number<string>().int().min(1) });
 
 export default async function ComparePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | undefined>> }) {
-  const user = await requirePagePermission("procedure.read");
+  const user = await requirePageAccess("/procedures/[id]/compare");
   const id = z.uuid().safeParse((await params).id);
   const q = querySchema.safeParse(await searchParams);
   if (!id.success) notFound();

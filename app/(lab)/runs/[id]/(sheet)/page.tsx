@@ -9,7 +9,7 @@ import { getInstrument } from "@/db/instruments";
 import { getProcedureVersionById } from "@/db/procedures";
 import { getLatestRunReview } from "@/db/reviews";
 import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { formatDateTime } from "@/lib/format-date-time";
 import { INSTRUMENT_KIND_LABELS } from "@/lib/instruments/instrument-kind";
@@ -26,7 +26,7 @@ export default async function StepSheetPage({
   params: Promise<{ id: string }>;
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/runs/[id]");
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const cycles = z.coerce.number<unknown>().int().min(1).max(100).catch(1).parse((await searchParams).cycles);

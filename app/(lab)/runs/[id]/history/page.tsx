@@ -5,7 +5,7 @@ import { SignatureManifestation } from "@/components/signatures/signature-manife
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { listRunReviews, type RunReviewView } from "@/db/reviews";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { describeAuditAction, summariseAuditChange } from "@/lib/audit-labels";
 import { formatDateTime } from "@/lib/format-date-time";
 
@@ -16,7 +16,7 @@ const DECISION_WORDS: Record<RunReviewView["decision"], string> = { returned: "R
 
 /** Everything that happened to the run, read-only: its reviews with their signatures, then its audit trail. */
 export default async function RunHistoryPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("run.read");
+  await requirePageAccess("/runs/[id]/history");
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const [reviews, newestFirst] = await Promise.all([

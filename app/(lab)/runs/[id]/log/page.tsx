@@ -4,13 +4,13 @@ import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getRun } from "@/db/runs";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { getRememberedLogMapping } from "@/lib/runs/remember-log-mapping";
 import { isRunOpen } from "@/lib/runs/run-status";
 
 export default async function RunLogPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/runs/[id]/log");
   const runId = z.uuid().parse((await params).id);
   const [run, log] = await Promise.all([getRun(getDb(), runId), getCurrentRunLog(getDb(), runId)]);
   const mayUpload = run !== null && isRunOpen(run.status) && can(user.role, "run.operate");

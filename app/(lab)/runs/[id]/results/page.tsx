@@ -13,12 +13,12 @@ import { listProcedureVersions } from "@/db/procedures";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getRun } from "@/db/runs";
 import { getLatestRunEvaluation } from "@/db/run-series";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { listResultRows } from "@/lib/runs/list-result-rows";
 
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/runs/[id]/results");
   const runId = z.uuid().parse((await params).id);
   const [stored, log, run] = await Promise.all([getLatestRunEvaluation(getDb(), runId), getCurrentRunLog(getDb(), runId), getRun(getDb(), runId)]);
   const mayEvaluate = can(user.role, "run.operate") || can(user.role, "run.review");

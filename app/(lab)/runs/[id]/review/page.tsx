@@ -8,7 +8,7 @@ import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation } from "@/db/run-series";
 import { describeRunParticipation } from "@/db/run-participants";
 import { getRun } from "@/db/runs";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { formatDateTime } from "@/lib/format-date-time";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
@@ -18,7 +18,7 @@ import { ReviewWorkspace } from "./review-workspace";
 export const metadata: Metadata = { title: "Review" };
 
 export default async function RunReviewPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/runs/[id]/review");
   const id = z.uuid().safeParse((await params).id);
   if (!id.success) notFound();
   const db = getDb();

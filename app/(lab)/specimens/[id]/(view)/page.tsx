@@ -7,13 +7,13 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listRuns } from "@/db/runs";
 import { getSpecimen } from "@/db/specimens";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Specimen" };
 
 export default async function SpecimenPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("run.read");
+  const user = await requirePageAccess("/specimens/[id]");
   const id = z.uuid().safeParse((await params).id);
   const specimen = id.success ? await getSpecimen(getDb(), id.data) : null;
   if (!specimen) notFound();

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function ManageSpecimenLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("specimen.manage");
+  await requireAreaAccess("/specimens/[id]/edit");
   return children;
 }

@@ -5,14 +5,14 @@ import { SpecimenForm } from "@/components/specimens/specimen-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getSpecimen } from "@/db/specimens";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { loadLotOptions, loadSpecificationOptions } from "@/lib/specimens/form-options";
 import { saveSpecimenAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Edit specimen" };
 
 export default async function EditSpecimenPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("specimen.manage");
+  await requirePageAccess("/specimens/[id]/edit");
   const id = z.uuid().safeParse((await params).id);
   const [specimen, specifications, lots] = await Promise.all([
     id.success ? getSpecimen(getDb(), id.data) : null,

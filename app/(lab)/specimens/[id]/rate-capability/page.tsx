@@ -3,7 +3,7 @@ import Link from "next/link";
 import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
 import { readSpecimenResults } from "@/lib/lots/results/read-results";
@@ -12,7 +12,7 @@ import { formatNumber } from "@/protocols";
 export const metadata: Metadata = { title: "Rate capability" };
 
 export default async function SpecimenRateCapabilityPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("run.read");
+  await requirePageAccess("/specimens/[id]/rate-capability");
   const { specimen, specification, results, rateCapability } = await readOrNotFound((await params).id, readSpecimenResults);
   const overlay = pickOneSpecimenAtSeveralCurrents(results, specimen.id);
   return (

@@ -7,14 +7,14 @@ import { SPEC_NUMBER_FIELDS } from "@/components/specs/spec-fields";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { computeItAmperes, formatNumber, positiveElectrodeNames } from "@/protocols";
 
 export const metadata: Metadata = { title: "Cell specification" };
 
 export default async function SpecPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await requirePagePermission("spec.read");
+  const user = await requirePageAccess("/specs/[id]");
   const id = z.uuid().safeParse((await params).id);
   const spec = id.success ? await getCellSpecification(getDb(), id.data) : null;
   if (!spec) notFound();

@@ -5,13 +5,13 @@ import { SpecForm } from "@/components/specs/spec-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { saveSpecificationAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Edit cell specification" };
 
 export default async function EditSpecPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("spec.manage");
+  await requirePageAccess("/specs/[id]/edit");
   const id = z.uuid().safeParse((await params).id);
   const spec = id.success ? await getCellSpecification(getDb(), id.data) : null;
   if (!spec) notFound();

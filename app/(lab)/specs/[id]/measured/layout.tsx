@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 
 export default async function SpecMeasuredLayout({ children }: { children: ReactNode }) {
-  await requirePagePermission("run.read");
+  await requireAreaAccess("/specs/[id]/measured");
   return children;
 }

@@ -4,7 +4,7 @@ import { DatasheetComparisonTable } from "@/components/lot-results/datasheet-com
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
 import { readSpecificationResults } from "@/lib/lots/results/read-results";
@@ -12,7 +12,7 @@ import { readSpecificationResults } from "@/lib/lots/results/read-results";
 export const metadata: Metadata = { title: "Measured against the datasheet" };
 
 export default async function SpecMeasuredPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePagePermission("run.read");
+  await requirePageAccess("/specs/[id]/measured");
   const { specification, results, statistics, comparison } = await readOrNotFound((await params).id, readSpecificationResults);
   const lots = new Set(results.flatMap((r) => (r.lotIdentifier ? [r.lotIdentifier] : []))).size;
   return (

@@ -5,7 +5,7 @@ import { DomainError } from "@/lib/errors";
 import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
 /** The certificate's PDF exactly as issued and signed (checked against its recorded SHA-256 first). */
-export const GET = apiRoute<{ number: string }>("certificate.read", withFileRefusalPage(async (_req, { user, params }) => {
+export const GET = apiRoute("/api/certificates/[number]/pdf", "GET", withFileRefusalPage(async (_req, { user, params }) => {
   const number = certificateNumberSchema.parse(params.number);
   const pdf = await readCertificatePdf(number, user);
   if (!pdf) throw new DomainError("not-found", `No certificate ${number}.`);

@@ -4,7 +4,7 @@ import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lots/re
 import { readLotResults } from "@/lib/lots/results/read-results";
 
 /** The lot's reviewed discharge results, one line each: the numbers behind its statistics. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/lots/[id]/results.csv", "GET", async (_req, { params }) => {
   const { lot, specification, results } = await readLotResults(z.uuid("Not a lot id.").parse(params.id));
   return new Response(formatResultsCsv(listExportedResults(results, specification.data)), {
     headers: {

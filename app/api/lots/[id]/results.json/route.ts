@@ -5,7 +5,7 @@ import { readLotResults } from "@/lib/lots/results/read-results";
 import { toSummaryJson } from "@/lib/lots/results/summary-json";
 
 /** The lot's reviewed discharge results with the statistics and rate table made from them, as data. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/lots/[id]/results.json", "GET", async (_req, { params }) => {
   const lotResults = await readLotResults(z.uuid("Not a lot id.").parse(params.id));
   const { lot, specification, results } = lotResults;
   const body = {

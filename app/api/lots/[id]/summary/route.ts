@@ -6,7 +6,7 @@ import { toSummaryJson } from "@/lib/lots/results/summary-json";
 import { readLotResults } from "@/lib/lots/results/read-results";
 
 /** A lot at a glance: its sampling plan, draw and decision, statistics per current and rate capability. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/lots/[id]/summary", "GET", async (_req, { params }) => {
   const lotId = z.uuid("Not a lot id.").parse(params.id);
   const [results, sampling] = await Promise.all([readLotResults(lotId), getLotSampling(getDb(), lotId)]);
   const { lot, specification } = results;

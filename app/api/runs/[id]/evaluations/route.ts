@@ -2,7 +2,6 @@ import { z } from "zod";
 import { getDb } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { apiRoute } from "@/lib/auth/guards";
-import { can } from "@/lib/auth/permissions";
 import { DomainError } from "@/lib/errors";
 import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
 
@@ -13,9 +12,8 @@ const bodySchema = z.strictObject({
   againstVersionId: z.uuid("Not a procedure version id.").optional(),
 });
 
-/** Evaluates the run again from what is stored (operator or reviewer). */
-export const POST = apiRoute<{ id: string }>("run.read", async (req, { user, params }) => {
-  if (!can(user.role, "run.operate") && !can(user.role, "run.review")) throw new DomainError("forbidden", "Only the operator or a reviewer may evaluate a run.");
+/** Evaluates the run again from what is stored (operator or reviewer: ROUTE_ACCESS admits either). */
+export const POST = apiRoute("/api/runs/[id]/evaluations", "POST", async (req, { user, params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const body = bodySchema.parse(await req.json().catch(() => null));
   const log = await getCurrentRunLog(getDb(), id);

@@ -30,7 +30,7 @@ const querySchema = z.object({
  * arrives. The answer is NDJSON (lib/runs/upload-progress): parse progress, then "stored" with the
  * verdict, or "refused" with the line and column, after which nothing of the upload is kept.
  */
-const upload = apiRoute<{ id: string }>("run.operate", async (req, { user, params }) => {
+const upload = apiRoute("/api/runs/[id]/logs", "POST", async (req, { user, params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const url = new URL(req.url);
   const q = querySchema.parse({ name: url.searchParams.get("name") ?? undefined, mapping: url.searchParams.get("mapping") ?? undefined, remember: url.searchParams.get("remember") ?? undefined });

@@ -4,7 +4,7 @@ import { listResultRows } from "@/lib/runs/list-result-rows";
 import { readRunResults } from "@/lib/runs/read-run-results";
 
 /** The latest evaluation as data: verdict, findings, and the results in report units. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/runs/[id]/results.json", "GET", async (_req, { params }) => {
   const { run, stored, evaluation } = await readRunResults(z.uuid("Not a run id.").parse(params.id));
   const body = {
     run: { id: run.id, number: run.number, procedure: run.procedure, specimen: run.specimen.identifier },

@@ -13,7 +13,7 @@ const querySchema = z.object({
  * A plot's data, thinned on the server: without `step`, V, I and T against time with the steps'
  * stretches; with `step` (and `cycle`), V against the capacity that step delivered. 404 without a log.
  */
-export const GET = apiRoute<{ id: string }>("run.read", async (req, { params }) => {
+export const GET = apiRoute("/api/runs/[id]/series", "GET", async (req, { params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const url = new URL(req.url);
   const q = querySchema.parse({

@@ -10,7 +10,7 @@ import { DATASHEET_MAX_BYTES, datasheetTooLargeMessage } from "@/lib/specs/datas
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
-export const GET = apiRoute<{ id: string }>("spec.read", withFileRefusalPage(async (_req, { user, params }) => {
+export const GET = apiRoute("/api/specs/[id]/datasheet", "GET", withFileRefusalPage(async (_req, { user, params }) => {
   const id = z.uuid("Not a specification id.").parse(params.id);
   const spec = await getCellSpecification(getDb(), id);
   if (!spec?.datasheet) throw new DomainError("not-found", "This specification has no datasheet.");
@@ -30,7 +30,7 @@ export const GET = apiRoute<{ id: string }>("spec.read", withFileRefusalPage(asy
  * limit; parsed as a PDF before it is stored with its SHA-256. The proxy leaves this route out (it would
  * cut the body at its own buffer size), so the origin check is made here first.
  */
-const upload = apiRoute<{ id: string }>("spec.manage", async (req, { user, params }) => {
+const upload = apiRoute("/api/specs/[id]/datasheet", "POST", async (req, { user, params }) => {
   const id = z.uuid("Not a specification id.").parse(params.id);
   const declared = Number(req.headers.get("content-length") ?? "0");
   const tooLarge = () => datasheetTooLargeMessage(declared > DATASHEET_MAX_BYTES ? declared : undefined);

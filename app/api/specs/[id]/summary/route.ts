@@ -4,7 +4,7 @@ import { readSpecificationResults } from "@/lib/lots/results/read-results";
 import { toSummaryJson } from "@/lib/lots/results/summary-json";
 
 /** A cell specification's reviewed results: statistics per current and each datasheet claim beside them. */
-export const GET = apiRoute<{ id: string }>("run.read", async (_req, { params }) => {
+export const GET = apiRoute("/api/specs/[id]/summary", "GET", async (_req, { params }) => {
   const results = await readSpecificationResults(z.uuid("Not a cell specification id.").parse(params.id));
   const { specification, comparison } = results;
   return Response.json(

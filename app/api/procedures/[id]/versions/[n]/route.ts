@@ -5,7 +5,7 @@ import { DomainError } from "@/lib/errors";
 import { canSeeVersion } from "@/lib/procedures/read-access";
 import { versionParamsSchema } from "@/lib/procedures/version-params";
 
-export const GET = apiRoute<{ id: string; n: string }>("procedure.read", async (_req, { user, params }) => {
+export const GET = apiRoute("/api/procedures/[id]/versions/[n]", "GET", async (_req, { user, params }) => {
   const { id, n } = versionParamsSchema.parse(params);
   const version = await getProcedureVersion(getDb(), id, n);
   if (!version || !canSeeVersion(user, version.status)) throw new DomainError("not-found", "No such procedure version.");

@@ -7,7 +7,7 @@ import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { withFileRefusalPage } from "@/lib/integrity/file-refusal-page";
 
 /** The current log's file exactly as uploaded (checked against its recorded SHA-256 first), with that hash. */
-export const GET = apiRoute<{ id: string }>("run.read", withFileRefusalPage(async (_req, { user, params }) => {
+export const GET = apiRoute("/api/runs/[id]/logs/current", "GET", withFileRefusalPage(async (_req, { user, params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const log = await getCurrentRunLog(getDb(), id);
   if (!log) throw new DomainError("not-found", "This run has no data log yet.");

@@ -6,7 +6,7 @@ import { StatusBadge } from "@/components/procedures/status-badge";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getProcedureVersion } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { canSeeVersion } from "@/lib/procedures/read-access";
 import { versionParamsSchema } from "@/lib/procedures/version-params";
 import { VersionPreview } from "./version-preview";
@@ -14,7 +14,7 @@ import { VersionPreview } from "./version-preview";
 export const metadata: Metadata = { title: "Procedure version" };
 
 export default async function ProcedureVersionPage({ params }: { params: Promise<{ id: string; n: string }> }) {
-  const user = await requirePagePermission("procedure.read");
+  const user = await requirePageAccess("/procedures/[id]/versions/[n]");
   const parsed = versionParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
   const v = await getProcedureVersion(getDb(), parsed.data.id, parsed.data.n);

@@ -2,13 +2,12 @@
 
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import type { SaveDraftRequest } from "@/components/procedure-editor";
 import { listSchemaProblems } from "@/components/procedure-editor/schema-problems";
 import { getDb } from "@/db";
 import { getProcedureVersion } from "@/db/procedures";
-import { requireActionPermission } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
-import { toActionState, type ActionState } from "@/lib/forms/action-state";
+import type { ActionState } from "@/lib/forms/action-state";
+import { serverAction } from "@/lib/forms/server-action";
 import { saveDraft } from "@/lib/procedures/lifecycle";
 import { procedureDraftSchema } from "@/lib/procedures/procedure-input";
 
@@ -31,10 +30,9 @@ function refuse(error: z.ZodError): ActionState {
  * ("definition.steps.2.current.value") and the editor shows each beside its field. The save is one
  * transaction: either all of it is stored or nothing.
  */
-export async function saveDraftAction(request: SaveDraftRequest): Promise<ActionState> {
-  try {
-    const actor = await requireActionPermission("procedure.author");
-    const { procedureId, number, draft } = versionRefSchema.parse(request);
+export const saveDraftAction = serverAction.withArgument(
+  { access: "/procedures/[id]/versions/[n]/edit", input: versionRefSchema },
+  async ({ user: actor, input: { procedureId, number, draft } }): Promise<ActionState> => {
     const checked = procedureDraftSchema.safeParse(draft);
     if (!checked.success) return refuse(checked.error);
     const input = checked.data;
@@ -45,7 +43,5 @@ export async function saveDraftAction(request: SaveDraftRequest): Promise<Action
     revalidatePath(`/procedures/${procedureId}/versions/${number}`);
     revalidatePath(`/procedures/${procedureId}/versions/${number}/edit`);
     return { ok: true, message: `Version ${number} saved as a draft.` };
-  } catch (error) {
-    return toActionState(error);
-  }
-}
+  },
+);

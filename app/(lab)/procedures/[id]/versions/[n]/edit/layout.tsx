@@ -1,12 +1,12 @@
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requireAreaAccess } from "@/lib/auth/guards";
 import { loadVersionForEdit } from "./load-version";
 
 // Checked here, outside this page's loading boundary, so a refusal is a real 403 and a missing
 // version a real 404.
 export default async function EditVersionLayout({ children, params }: { children: ReactNode; params: Promise<{ id: string; n: string }> }) {
-  await requirePagePermission("procedure.author");
+  await requireAreaAccess("/procedures/[id]/versions/[n]/edit");
   const { id, n } = await params;
   if (!(await loadVersionForEdit(id, n))) notFound();
   return children;

@@ -4,14 +4,14 @@ import { notFound } from "next/navigation";
 import { ProcedureEditor } from "@/components/procedure-editor";
 import { PageHeader } from "@/components/ui/page-header";
 import { describeStatus } from "@/lib/procedures/lifecycle";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { saveDraftAction } from "./actions";
 import { loadVersionForEdit } from "./load-version";
 
 export const metadata: Metadata = { title: "Edit procedure" };
 
 export default async function EditVersionPage({ params }: { params: Promise<{ id: string; n: string }> }) {
-  await requirePagePermission("procedure.author");
+  await requirePageAccess("/procedures/[id]/versions/[n]/edit");
   const { id, n } = await params;
   const v = await loadVersionForEdit(id, n);
   if (!v) notFound();

@@ -7,7 +7,7 @@ import { SignatureManifestation } from "@/components/signatures/signature-manife
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { getProcedureVersion, listProcedureVersions } from "@/db/procedures";
-import { requirePagePermission } from "@/lib/auth/guards";
+import { requirePageAccess } from "@/lib/auth/guards";
 import { versionParamsSchema } from "@/lib/procedures/version-params";
 import { listReleaseSignatures, SIGNATURE_MEANING_WORDS } from "@/lib/signatures/sign-record";
 import { describeCautionCode } from "@/protocols";
@@ -24,7 +24,7 @@ const fmt = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ");
  * since the version before.
  */
 export default async function ReleaseVersionPage({ params }: { params: Promise<{ id: string; n: string }> }) {
-  const user = await requirePagePermission("procedure.release");
+  const user = await requirePageAccess("/procedures/[id]/versions/[n]/release");
   const parsed = versionParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
   const v = await getProcedureVersion(getDb(), parsed.data.id, parsed.data.n);

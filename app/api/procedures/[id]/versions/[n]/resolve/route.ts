@@ -7,7 +7,7 @@ import { resolveAgainstSpecification, resolveRequestSchema } from "@/lib/procedu
 import { canSeeVersion } from "@/lib/procedures/read-access";
 import { versionParamsSchema } from "@/lib/procedures/version-params";
 
-export const POST = apiRoute<{ id: string; n: string }>("procedure.read", async (req, { user, params }) => {
+export const POST = apiRoute("/api/procedures/[id]/versions/[n]/resolve", "POST", async (req, { user, params }) => {
   const { id, n } = versionParamsSchema.parse(params);
   const { specId } = await readJson(req, resolveRequestSchema);
   const version = await getProcedureVersion(getDb(), id, n);
