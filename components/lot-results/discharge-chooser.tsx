@@ -1,4 +1,5 @@
-import Link from "next/link";
+import { Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { CellSpecificationView } from "@/db/cell-specifications";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import type { LotView } from "@/db/lots";
@@ -98,56 +99,52 @@ export function DischargeChooser({
             Overlay the ticked discharges
           </button>
           <span className="text-sm text-ink-soft">The filters apply too. At most {MAX_OVERLAID} at once.</span>
-          <Link href="/compare" className="text-sm text-copper-deep underline">
+          <TextLink href="/compare" className="text-sm">
             Start again
-          </Link>
+          </TextLink>
         </div>
         {shown.length === 0 ? (
           <p className="text-sm text-ink-soft">No reviewed discharges match these filters.</p>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full min-w-[44rem] border-collapse text-sm" data-testid="discharge-list">
-              <caption className="mb-1 text-left text-ink-soft">
-                {listed.length > MAX_LISTED ? `The first ${MAX_LISTED} of ${listed.length} reviewed discharges; narrow the filters to see the rest.` : `${listed.length} reviewed discharges.`}
-              </caption>
-              <thead>
-                <tr className="border-b border-rule text-left">
-                  {["Overlay", "Run", "Specimen", "Lot", "Step", "Current", "Capacity (mAh)"].map((h) => (
-                    <th key={h} scope="col" className="px-2 py-1">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {shown.map((r) => {
-                  const key = formatDischargeKey(r);
-                  const id = `d-${key}`;
-                  return (
-                    <tr key={key} className="border-b border-rule">
-                      <td className="px-2 py-1">
-                        <input id={id} type="checkbox" name="d" value={key} defaultChecked={chosen.has(key)} className="h-4 w-4 accent-copper" />
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">
-                        <label htmlFor={id}>{r.runNumber}</label>
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">{r.specimenIdentifier}</td>
-                      <td className="px-2 py-1 whitespace-nowrap">{r.lotIdentifier ?? "none"}</td>
-                      <td className="px-2 py-1">
-                        {r.stepLabel}
-                        {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">
-                        {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
-                        {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) ? " ⚠ above the rating" : ""}
-                      </td>
-                      <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
+          <Table data-testid="discharge-list" className="min-w-[44rem]">
+            <caption className="mb-1 text-left text-ink-soft">
+              {listed.length > MAX_LISTED ? `The first ${MAX_LISTED} of ${listed.length} reviewed discharges; narrow the filters to see the rest.` : `${listed.length} reviewed discharges.`}
+            </caption>
+            <TableHead>
+              {["Overlay", "Run", "Specimen", "Lot", "Step", "Current", "Capacity (mAh)"].map((h) => (
+                <th key={h} scope="col" className="px-2 py-1">
+                  {h}
+                </th>
+              ))}
+            </TableHead>
+            <tbody>
+              {shown.map((r) => {
+                const key = formatDischargeKey(r);
+                const id = `d-${key}`;
+                return (
+                  <Row key={key}>
+                    <td className="px-2 py-1">
+                      <input id={id} type="checkbox" name="d" value={key} defaultChecked={chosen.has(key)} className="h-4 w-4 accent-copper" />
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">
+                      <label htmlFor={id}>{r.runNumber}</label>
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">{r.specimenIdentifier}</td>
+                    <td className="px-2 py-1 whitespace-nowrap">{r.lotIdentifier ?? "none"}</td>
+                    <td className="px-2 py-1">
+                      {r.stepLabel}
+                      {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">
+                      {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
+                      {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) ? " ⚠ above the rating" : ""}
+                    </td>
+                    <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
+                  </Row>
+                );
+              })}
+            </tbody>
+          </Table>
         )}
       </form>
     </section>

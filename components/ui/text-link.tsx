@@ -9,7 +9,7 @@ export function TextLink({ className, ...props }: ComponentProps<typeof Link>) {
   return <Link {...props} className={clsx(TEXT_LINK, className)} />;
 }
 
-/** The same look for a file the server hands out (a PDF, a CSV): a plain anchor, never prefetched. */
-export function FileLink({ className, ...props }: AnchorHTMLAttributes<HTMLAnchorElement> & { href: string }) {
+/** The same look as a plain anchor: a file the server hands out (a PDF, a CSV) or a jump within the page; never prefetched. */
+export function PlainLink({ className, ...props }: AnchorHTMLAttributes<HTMLAnchorElement> & { href: string }) {
   return <a {...props} className={clsx(TEXT_LINK, className)} />;
 }

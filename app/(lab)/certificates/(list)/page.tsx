@@ -4,7 +4,7 @@ import { VerdictWords } from "@/components/certificates/verdict-words";
 import { DataTable, type DataColumn } from "@/components/ui/data-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
-import { FileLink, TextLink } from "@/components/ui/text-link";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
 import { CERTIFICATE_SORTS, listCertificatesPage, type CertificateSort, type CertificateView } from "@/db/certificates";
@@ -59,7 +59,7 @@ const COLUMNS: DataColumn<CertificateView, CertificateSort>[] = [
       </>
     ),
   },
-  { header: "PDF", cell: (c) => <FileLink href={`/api/certificates/${c.number}/pdf`}>Download</FileLink> },
+  { header: "PDF", cell: (c) => <PlainLink href={`/api/certificates/${c.number}/pdf`}>Download</PlainLink> },
 ];
 
 export default async function CertificatesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

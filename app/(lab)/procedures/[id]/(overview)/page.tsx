@@ -6,6 +6,7 @@ import { StatusBadge } from "@/components/procedures/status-badge";
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { VersionActionForm } from "@/components/procedures/version-actions";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProcedureVersions, type ProcedureVersionView } from "@/db/procedures";
 import { requirePagePermission } from "@/lib/auth/guards";
@@ -44,9 +45,9 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
         {versions.map((v) => (
           <li key={v.id} className="rounded border border-rule bg-paper p-4" data-testid={`version-${v.number}`}>
             <div className="flex flex-wrap items-baseline gap-3">
-              <Link href={`/procedures/${v.procedureId}/versions/${v.number}`} className="font-serif text-lg font-bold text-copper-deep underline">
+              <TextLink href={`/procedures/${v.procedureId}/versions/${v.number}`} className="font-serif text-lg font-bold">
                 Version {v.number}
-              </Link>
+              </TextLink>
               <StatusBadge status={v.status} />
               <span className="text-sm text-ink-soft">{v.title}</span>
             </div>
