@@ -6,11 +6,11 @@ import type { LotView } from "@/db/lots";
 import { computeMultipleOfIt, formatDischargeKey, listMultiplesOfIt, MAX_OVERLAID, type CompareQuery } from "@/lib/lot-results/compare-selection";
 import { isAboveRating } from "@/lib/lot-results/summarise-results";
 import { formatNumber } from "@/protocols";
+import { SelectField } from "@/components/ui/select-field";
 
 /** Most rows the list shows at once; the filters narrow it. */
 const MAX_LISTED = 200;
 
-const selectClass = "mt-1 block w-full rounded border border-rule bg-white px-2 py-1.5 text-sm";
 
 /**
  * The list to choose from: filters by cell specification, lot, specimen and current, and a tick per
@@ -44,50 +44,38 @@ export function DischargeChooser({
       <form action="/compare" method="get" className="flex flex-col gap-3">
         <fieldset className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           <legend className="sr-only">Filters</legend>
-          <label className="text-sm">
-            Cell specification
-            <select name="spec" defaultValue={query.specificationId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {specifications.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.maker} {s.model}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Lot
-            <select name="lot" defaultValue={query.lotId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {lots.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {l.identifier}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Specimen
-            <select name="specimen" defaultValue={query.specimenId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {specimens.map(([id, identifier]) => (
-                <option key={id} value={id}>
-                  {identifier}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Current
-            <select name="current" defaultValue={query.multipleOfIt === undefined ? "" : String(query.multipleOfIt)} className={selectClass}>
-              <option value="">any</option>
-              {multiples.map((m) => (
-                <option key={m} value={String(m)}>
-                  {formatNumber(m, { maxDecimals: 2 })} It
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField filter label="Cell specification" name="spec" defaultValue={query.specificationId ?? ""}>
+            <option value="">any</option>
+            {specifications.map((s) => (
+              <option key={s.id} value={s.id}>
+                {s.maker} {s.model}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Lot" name="lot" defaultValue={query.lotId ?? ""}>
+            <option value="">any</option>
+            {lots.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.identifier}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Specimen" name="specimen" defaultValue={query.specimenId ?? ""}>
+            <option value="">any</option>
+            {specimens.map(([id, identifier]) => (
+              <option key={id} value={id}>
+                {identifier}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Current" name="current" defaultValue={query.multipleOfIt === undefined ? "" : String(query.multipleOfIt)}>
+            <option value="">any</option>
+            {multiples.map((m) => (
+              <option key={m} value={String(m)}>
+                {formatNumber(m, { maxDecimals: 2 })} It
+              </option>
+            ))}
+          </SelectField>
         </fieldset>
         {chosenKeys
           .filter((k) => !shownKeys.has(k))

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
 import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
@@ -45,44 +46,35 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         }
       />
       <form className="mb-4 grid gap-3 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit trail">
-        <label className="flex flex-col text-sm">
-          What happened
-          <select name="action" defaultValue={search.action ?? ""} className={control}>
-            <option value="">everything</option>
-            {AREAS.map(([code, words]) => (
-              <option key={code} value={code}>
-                {words}
-              </option>
-            ))}
-            {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
-              <option key={code} value={code}>
-                only: {label}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col text-sm">
-          Who
-          <select name="person" defaultValue={search.person ?? ""} className={control}>
-            <option value="">anyone</option>
-            {actors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.label}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col text-sm">
-          Kind of record
-          <select name="kind" defaultValue={search.kind ?? ""} className={control}>
-            <option value="">any</option>
-            {Object.entries(AUDIT_RECORD_TYPES).map(([code, words]) => (
-              <option key={code} value={code}>
-                {words}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField filter label="What happened" name="action" defaultValue={search.action ?? ""}>
+          <option value="">everything</option>
+          {AREAS.map(([code, words]) => (
+            <option key={code} value={code}>
+              {words}
+            </option>
+          ))}
+          {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
+            <option key={code} value={code}>
+              only: {label}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField filter label="Who" name="person" defaultValue={search.person ?? ""}>
+          <option value="">anyone</option>
+          {actors.map((a) => (
+            <option key={a.id} value={a.id}>
+              {a.label}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField filter label="Kind of record" name="kind" defaultValue={search.kind ?? ""}>
+          <option value="">any</option>
+          {Object.entries(AUDIT_RECORD_TYPES).map(([code, words]) => (
+            <option key={code} value={code}>
+              {words}
+            </option>
+          ))}
+        </SelectField>
         <label className="flex flex-col text-sm">
           Record name contains
           <input name="record" defaultValue={search.record ?? ""} placeholder="e.g. R-00012, TPL-RC20, KV48" className={control} />

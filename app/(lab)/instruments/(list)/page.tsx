@@ -4,6 +4,7 @@ import { InstrumentRow } from "@/components/instruments/instrument-row";
 import { Notice } from "@/components/ui/notice";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
 import { EmptyState, HeaderCell, Table, TableHead } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listInstruments } from "@/db/instruments";
@@ -57,17 +58,14 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
         )}
       </div>
       <form className="mb-4 flex flex-wrap items-end gap-3" role="search">
-        <label className="flex flex-col text-sm">
-          Kind
-          <select name="kind" defaultValue={kind ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
-            <option value="">every kind</option>
-            {INSTRUMENT_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {INSTRUMENT_KIND_LABELS[k]}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField filter label="Kind" name="kind" defaultValue={kind ?? ""}>
+          <option value="">every kind</option>
+          {INSTRUMENT_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {INSTRUMENT_KIND_LABELS[k]}
+            </option>
+          ))}
+        </SelectField>
         <label className="flex items-center gap-2 py-1.5 text-sm">
           <input type="checkbox" name="inuse" value="1" defaultChecked={inuse === "1"} />
           Only instruments in use

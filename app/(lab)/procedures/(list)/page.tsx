@@ -3,6 +3,7 @@ import { z } from "zod";
 import { StatusBadge } from "@/components/procedures/status-badge";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
 import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
@@ -45,16 +46,13 @@ export default async function ProceduresPage({ searchParams }: { searchParams: P
           <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
         </label>
         {author && (
-          <label className="flex flex-col text-sm">
-            Newest version is
-            <select name="status" defaultValue={status ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
-              <option value="">any status</option>
-              <option value="draft">a draft</option>
-              <option value="in_review">in review</option>
-              <option value="released">released</option>
-              <option value="withdrawn">withdrawn</option>
-            </select>
-          </label>
+          <SelectField filter label="Newest version is" name="status" defaultValue={status ?? ""}>
+            <option value="">any status</option>
+            <option value="draft">a draft</option>
+            <option value="in_review">in review</option>
+            <option value="released">released</option>
+            <option value="withdrawn">withdrawn</option>
+          </SelectField>
         )}
         <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
           Show

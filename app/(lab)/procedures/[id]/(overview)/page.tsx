@@ -16,6 +16,7 @@ import { canSeeVersion } from "@/lib/procedures/read-access";
 import { listReleaseSignatures } from "@/lib/signatures/sign-record";
 import { describeStatus } from "@/lib/procedures/lifecycle";
 import { returnToDraftAction, startNewDraftAction, submitForReviewAction, withdrawAction } from "../actions";
+import { SelectField } from "@/components/ui/select-field";
 
 export const metadata: Metadata = { title: "Procedure" };
 
@@ -129,15 +130,12 @@ function LifecycleControls({ user, v, hasOpen }: { user: SignedInUser; v: Proced
 
 function VersionSelect({ name, label, versions, defaultValue }: { name: string; label: string; versions: ProcedureVersionView[]; defaultValue: number }) {
   return (
-    <label className="flex flex-col text-sm">
-      {label}
-      <select name={name} defaultValue={defaultValue} className="rounded border border-rule bg-white px-2 py-1.5">
-        {versions.map((v) => (
-          <option key={v.id} value={v.number}>
-            version {v.number} ({describeStatus(v.status)})
-          </option>
-        ))}
-      </select>
-    </label>
+    <SelectField filter label={label} name={name} defaultValue={defaultValue}>
+      {versions.map((v) => (
+        <option key={v.id} value={v.number}>
+          version {v.number} ({describeStatus(v.status)})
+        </option>
+      ))}
+    </SelectField>
   );
 }
