@@ -1,4 +1,5 @@
 import type { ReactNode, TextareaHTMLAttributes } from "react";
+import { describeControl, FieldFrame } from "./field-frame";
 
 /** A labelled text area (notes, reasons, comments) with its error announced next to it, like `Field`. */
 export function NotesField({
@@ -10,31 +11,17 @@ export function NotesField({
   ...textarea
 }: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: ReactNode; name: string; errors?: string[]; hint?: ReactNode }) {
   const id = textarea.id ?? `field-${name}`;
-  const errorId = `${id}-error`;
-  const hintId = `${id}-hint`;
-  const describedBy = [hint ? hintId : null, errors?.length ? errorId : null].filter(Boolean).join(" ") || undefined;
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-      </label>
+    <FieldFrame id={id} label={label} hint={hint} errors={errors}>
       <textarea
         id={id}
         name={name}
         rows={rows}
         aria-invalid={errors?.length ? true : undefined}
-        aria-describedby={describedBy}
+        aria-describedby={describeControl(id, hint, errors)}
         className="rounded border border-rule bg-white px-2 py-1.5 text-ink aria-[invalid=true]:border-deviates"
         {...textarea}
       />
-      {hint && (
-        <p id={hintId} className="text-xs text-ink-soft">
-          {hint}
-        </p>
-      )}
-      <p id={errorId} aria-live="polite" className="text-sm text-deviates">
-        {errors?.join(" ")}
-      </p>
-    </div>
+    </FieldFrame>
   );
 }

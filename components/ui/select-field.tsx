@@ -1,5 +1,6 @@
 import clsx from "clsx";
 import type { ReactNode, SelectHTMLAttributes } from "react";
+import { describeControl, FieldFrame } from "./field-frame";
 
 export interface SelectOption {
   value: string;
@@ -31,15 +32,12 @@ export function SelectField({
   filter?: boolean;
 }) {
   const id = select.id ?? `field-${name}`;
-  const errorId = `${id}-error`;
-  const hintId = `${id}-hint`;
-  const describedBy = [hint ? hintId : null, errors?.length ? errorId : null].filter(Boolean).join(" ") || undefined;
   const control = (
     <select
       id={id}
       name={name}
       aria-invalid={errors?.length ? true : undefined}
-      aria-describedby={describedBy}
+      aria-describedby={describeControl(id, hint, errors)}
       {...select}
       className={clsx(SELECT_CLASS, className)}
     >
@@ -60,19 +58,8 @@ export function SelectField({
     );
   }
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
-        {label}
-      </label>
+    <FieldFrame id={id} label={label} hint={hint} errors={errors}>
       {control}
-      {hint && (
-        <p id={hintId} className="text-xs text-ink-soft">
-          {hint}
-        </p>
-      )}
-      <p id={errorId} aria-live="polite" className="text-sm text-deviates">
-        {errors?.join(" ")}
-      </p>
-    </div>
+    </FieldFrame>
   );
 }
