@@ -10,6 +10,7 @@ export interface DataColumn<T, S extends string = string> {
   sort?: S;
   /** The first way a click on this header sorts: dates and counts read best newest/largest first. */
   firstDirection?: SortDirection;
+  /** Classes for the column's cells (the header keeps the table's own type). */
   className?: string;
 }
 
@@ -88,13 +89,13 @@ function SortableHeader<T, S extends string>({
   kept: Record<string, string>;
   sort?: { key: S; direction: SortDirection };
 }) {
-  if (!column.sort) return <HeaderCell className={column.className}>{column.header}</HeaderCell>;
+  if (!column.sort) return <HeaderCell>{column.header}</HeaderCell>;
   const active = sort?.key === column.sort;
   const first = column.firstDirection ?? "asc";
   const next: SortDirection = active ? (sort.direction === "asc" ? "desc" : "asc") : first;
   const href = listHref(path, kept, { sort: column.sort, dir: next, page: undefined });
   return (
-    <HeaderCell className={column.className} aria-sort={active ? (sort.direction === "asc" ? "ascending" : "descending") : "none"}>
+    <HeaderCell aria-sort={active ? (sort.direction === "asc" ? "ascending" : "descending") : "none"}>
       <Link href={href} className="inline-flex items-center gap-1 hover:text-copper-deep hover:underline">
         {column.header}
         <span aria-hidden="true" className={active ? "text-copper-deep" : "text-rule"}>

@@ -23,7 +23,7 @@ const filterSchema = z.object({
 });
 
 const COLUMNS: DataColumn<RunView, RunSort>[] = [
-  { header: "Run", sort: "number", cell: (r) => <TextLink href={`/runs/${r.id}`} className="font-medium">{r.number}</TextLink> },
+  { header: "Run", sort: "number", className: "whitespace-nowrap", cell: (r) => <TextLink href={`/runs/${r.id}`} className="font-medium">{r.number}</TextLink> },
   {
     header: "Procedure",
     sort: "procedure",
