@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function Forbidden() {
   return (
@@ -8,9 +8,9 @@ export default function Forbidden() {
         This page belongs to another role in the lab. If your work needs it, ask your lab&apos;s administrator to
         change your role.
       </p>
-      <Link href="/" className="text-copper-deep underline">
+      <TextLink href="/">
         Back to your workbench
-      </Link>
+      </TextLink>
     </main>
   );
 }

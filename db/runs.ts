@@ -1,7 +1,9 @@
 import "server-only";
 import type { CellRating, StepRecord } from "@/lib/conformance";
 import type { ProcedureResolution } from "@/protocols";
+import type { SortDirection } from "@/lib/lists/list-params";
 import type { Executor } from "./index";
+import { readPage, type Page } from "./paginate";
 import type { RunStatus } from "./schema";
 
 export type { RunStatus };
@@ -100,6 +102,30 @@ export async function listRuns(
   if (filter.status) q = q.where("r.status", "=", filter.status);
   if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
   return (await q.execute()).map(toView);
+}
+
+/** The columns the run list sorts by, and the column each stands for. */
+export const RUN_SORTS = ["number", "procedure", "specimen", "operator", "status", "planned"] as const;
+export type RunSort = (typeof RUN_SORTS)[number];
+const RUN_SORT_COLUMNS = {
+  number: "r.number",
+  procedure: "p.code",
+  specimen: "s.identifier",
+  operator: "o.display_name",
+  status: "r.status",
+  planned: "r.created_at",
+} as const satisfies Record<RunSort, string>;
+
+/** One page of the run list, sorted in SQL; ties fall back to the newest first, then the id. */
+export async function listRunsPage(
+  db: Executor,
+  filter: { status?: RunStatus; operatorId?: string },
+  list: { page: number; pageSize: number; sort: RunSort; direction: SortDirection },
+): Promise<Page<RunView>> {
+  let q = runQuery(db).orderBy(RUN_SORT_COLUMNS[list.sort], list.direction).orderBy("r.created_at", "desc").orderBy("r.id");
+  if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
+  if (filter.status) q = q.where("r.status", "=", filter.status);
+  return readPage(db, q, list, toView);
 }
 
 export async function insertRun(

@@ -1,5 +1,6 @@
-import Link from "next/link";
 import type { ReactNode } from "react";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { ReleaseQueueEntry, RunQueueEntry } from "@/db/queues";
 import { formatDateTime } from "@/lib/format-date-time";
 
@@ -15,38 +16,33 @@ function QueueSection({ id, title, empty, count, children }: { id: string; title
   );
 }
 
-const th = "py-2 pr-3";
-const td = "py-2 pr-3";
-
 export function ReleaseQueue({ entries }: { entries: ReleaseQueueEntry[] }) {
   return (
     <QueueSection id="release-queue" title="Procedures waiting for your release" empty="No procedure version waits for your release." count={entries.length}>
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th scope="col" className={th}>Procedure</th>
-            <th scope="col" className={th}>Submitted by</th>
-            <th scope="col" className={th}>Submitted</th>
-            <th scope="col" className="py-2">Release</th>
-          </tr>
-        </thead>
+      <Table>
+        <TableHead>
+          <HeaderCell>Procedure</HeaderCell>
+          <HeaderCell>Submitted by</HeaderCell>
+          <HeaderCell>Submitted</HeaderCell>
+          <HeaderCell>Release</HeaderCell>
+        </TableHead>
         <tbody>
           {entries.map((e) => (
-            <tr key={`${e.procedureId}-${e.number}`} className="border-b border-rule align-top">
-              <td className={td}>
+            <Row key={`${e.procedureId}-${e.number}`} top>
+              <Cell>
                 <span className="font-mono">{e.code}</span> version {e.number}: {e.title}
-              </td>
-              <td className={td}>{e.submittedBy}</td>
-              <td className={`figures whitespace-nowrap ${td}`}>{e.submittedAt ? formatDateTime(e.submittedAt) : "—"}</td>
-              <td className="py-2">
-                <Link href={`/procedures/${e.procedureId}/versions/${e.number}/release`} className="text-copper-deep underline">
+              </Cell>
+              <Cell>{e.submittedBy}</Cell>
+              <Cell className="figures whitespace-nowrap">{e.submittedAt ? formatDateTime(e.submittedAt) : "—"}</Cell>
+              <Cell>
+                <TextLink href={`/procedures/${e.procedureId}/versions/${e.number}/release`}>
                   Read and release {e.code} version {e.number}
-                </Link>
-              </td>
-            </tr>
+                </TextLink>
+              </Cell>
+            </Row>
           ))}
         </tbody>
-      </table>
+      </Table>
     </QueueSection>
   );
 }
@@ -72,37 +68,35 @@ export function RunQueue({
 }) {
   return (
     <QueueSection id={id} title={title} empty={empty} count={entries.length}>
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th scope="col" className={th}>Run</th>
-            <th scope="col" className={th}>Specimen</th>
-            <th scope="col" className={th}>Procedure</th>
-            {showOperator && <th scope="col" className={th}>Operator</th>}
-            <th scope="col" className={th}>{since}</th>
-            <th scope="col" className="py-2">Next</th>
-          </tr>
-        </thead>
+      <Table>
+        <TableHead>
+          <HeaderCell>Run</HeaderCell>
+          <HeaderCell>Specimen</HeaderCell>
+          <HeaderCell>Procedure</HeaderCell>
+          {showOperator && <HeaderCell>Operator</HeaderCell>}
+          <HeaderCell>{since}</HeaderCell>
+          <HeaderCell>Next</HeaderCell>
+        </TableHead>
         <tbody>
           {entries.map((e) => {
             const next = act(e);
             return (
-              <tr key={e.runId} className="border-b border-rule align-top">
-                <td className={`whitespace-nowrap font-mono ${td}`}>{e.runNumber}</td>
-                <td className={`whitespace-nowrap ${td}`}>{e.specimen}</td>
-                <td className={td}>{e.procedure}</td>
-                {showOperator && <td className={td}>{e.operatorName}</td>}
-                <td className={`figures whitespace-nowrap ${td}`}>{formatDateTime(e.changedAt)}</td>
-                <td className="py-2">
-                  <Link href={next.href} className="text-copper-deep underline">
+              <Row key={e.runId} top>
+                <Cell className="whitespace-nowrap font-mono">{e.runNumber}</Cell>
+                <Cell className="whitespace-nowrap">{e.specimen}</Cell>
+                <Cell>{e.procedure}</Cell>
+                {showOperator && <Cell>{e.operatorName}</Cell>}
+                <Cell className="figures whitespace-nowrap">{formatDateTime(e.changedAt)}</Cell>
+                <Cell>
+                  <TextLink href={next.href}>
                     {next.label}
-                  </Link>
-                </td>
-              </tr>
+                  </TextLink>
+                </Cell>
+              </Row>
             );
           })}
         </tbody>
-      </table>
+      </Table>
     </QueueSection>
   );
 }

@@ -1,5 +1,5 @@
-import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProceduresAwaitingRelease, listRunsInStates } from "@/db/queues";
 import { listReviewQueue } from "@/db/reviews";
@@ -68,9 +68,9 @@ export default async function HomePage() {
             <ul className="list-inside list-disc">
               {overview.now.map((n) => (
                 <li key={n.href}>
-                  <Link href={n.href} className="text-copper-deep underline">
+                  <TextLink href={n.href}>
                     {n.label}
-                  </Link>
+                  </TextLink>
                 </li>
               ))}
             </ul>

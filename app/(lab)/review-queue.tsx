@@ -1,4 +1,5 @@
-import Link from "next/link";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { ReviewQueueEntry } from "@/db/reviews";
 import { formatDateTime } from "@/lib/format-date-time";
 
@@ -12,40 +13,36 @@ export function ReviewQueue({ entries }: { entries: ReviewQueueEntry[] }) {
       {entries.length === 0 ? (
         <p className="text-sm text-ink-soft">No run is waiting for review.</p>
       ) : (
-        <div className="overflow-x-auto">
-          <table className="w-full border-collapse text-sm" data-testid="review-queue">
-            <thead>
-              <tr className="border-b border-rule text-left">
-                <th scope="col" className="py-2 pr-3">Run</th>
-                <th scope="col" className="py-2 pr-3">Specimen</th>
-                <th scope="col" className="py-2 pr-3">Procedure</th>
-                <th scope="col" className="py-2 pr-3">Operator</th>
-                <th scope="col" className="py-2 pr-3">Submitted</th>
-                <th scope="col" className="py-2">Review</th>
-              </tr>
-            </thead>
-            <tbody>
-              {entries.map((e) => (
-                <tr key={e.runId} className="border-b border-rule align-top">
-                  <td className="whitespace-nowrap py-2 pr-3 font-mono">{e.runNumber}</td>
-                  <td className="whitespace-nowrap py-2 pr-3">{e.specimen}</td>
-                  <td className="py-2 pr-3">{e.procedure}</td>
-                  <td className="py-2 pr-3">{e.operatorName}</td>
-                  <td className="figures whitespace-nowrap py-2 pr-3">{e.submittedAt ? formatDateTime(e.submittedAt) : "—"}</td>
-                  <td className="py-2">
-                    {e.operatedByYou ? (
-                      <span className="text-ink-soft">you operated this run — another engineer reviews it</span>
-                    ) : (
-                      <Link href={`/runs/${e.runId}/review`} className="text-copper-deep underline">
-                        Review run {e.runNumber}
-                      </Link>
-                    )}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <Table data-testid="review-queue">
+          <TableHead>
+            <HeaderCell>Run</HeaderCell>
+            <HeaderCell>Specimen</HeaderCell>
+            <HeaderCell>Procedure</HeaderCell>
+            <HeaderCell>Operator</HeaderCell>
+            <HeaderCell>Submitted</HeaderCell>
+            <HeaderCell>Review</HeaderCell>
+          </TableHead>
+          <tbody>
+            {entries.map((e) => (
+              <Row key={e.runId} top>
+                <Cell className="whitespace-nowrap font-mono">{e.runNumber}</Cell>
+                <Cell className="whitespace-nowrap">{e.specimen}</Cell>
+                <Cell>{e.procedure}</Cell>
+                <Cell>{e.operatorName}</Cell>
+                <Cell className="figures whitespace-nowrap">{e.submittedAt ? formatDateTime(e.submittedAt) : "—"}</Cell>
+                <Cell>
+                  {e.operatedByYou ? (
+                    <span className="text-ink-soft">you operated this run — another engineer reviews it</span>
+                  ) : (
+                    <TextLink href={`/runs/${e.runId}/review`}>
+                      Review run {e.runNumber}
+                    </TextLink>
+                  )}
+                </Cell>
+              </Row>
+            ))}
+          </tbody>
+        </Table>
       )}
     </section>
   );

@@ -2,6 +2,7 @@
 
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { NotesField } from "@/components/ui/notes-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -19,16 +20,7 @@ function ChangeForm({ number, action, kind }: { number: string; action: Action; 
           {state.message}
         </Notice>
       )}
-      <Field label={amend ? "Why it is amended" : "Why it is revoked"} name="reason" errors={state.fieldErrors?.reason} id={`${kind}-reason`}>
-        <textarea
-          id={`${kind}-reason`}
-          name="reason"
-          rows={3}
-          required
-          className="rounded border border-rule bg-white px-2 py-1.5"
-          aria-invalid={state.fieldErrors?.reason ? true : undefined}
-        />
-      </Field>
+      <NotesField label={amend ? "Why it is amended" : "Why it is revoked"} name="reason" errors={state.fieldErrors?.reason} id={`${kind}-reason`} required />
       <Field
         label="Your password, to sign"
         name="password"

@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { SelectField } from "@/components/ui/select-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -41,22 +42,13 @@ export function InstrumentForm({ action, initial }: { action: Action; initial?: 
       {initial && <input type="hidden" name="id" value={initial.id} />}
       <fieldset className="grid gap-3 sm:grid-cols-2">
         <legend className="mb-2 font-serif text-lg font-bold">Instrument</legend>
-        <Field label="Kind" name="kind" errors={err("kind")}>
-          <select
-            id="field-kind"
-            name="kind"
-            value={kind}
-            onChange={(e) => setKind(e.target.value as InstrumentKind)}
-            aria-describedby="field-kind-error"
-            className="rounded border border-rule bg-white px-2 py-1.5"
-          >
-            {INSTRUMENT_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {INSTRUMENT_KIND_LABELS[k]}
-              </option>
-            ))}
-          </select>
-        </Field>
+        <SelectField label="Kind" name="kind" errors={err("kind")} value={kind} onChange={(e) => setKind(e.target.value as InstrumentKind)}>
+          {INSTRUMENT_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {INSTRUMENT_KIND_LABELS[k]}
+            </option>
+          ))}
+        </SelectField>
         <Field label="Identifier (the lab's label)" name="identifier" defaultValue={initial?.identifier} errors={err("identifier")} placeholder="e.g. CY1-CH03" />
         <Field label="Serial number" name="serial" defaultValue={initial?.serial} errors={err("serial")} />
         <Field label="Firmware, optional" name="firmware" defaultValue={initial?.firmware ?? undefined} errors={err("firmware")} />

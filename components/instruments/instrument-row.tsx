@@ -1,4 +1,5 @@
-import Link from "next/link";
+import { Cell, Row } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { InstrumentView } from "@/db/instruments";
 import type { ActionState } from "@/lib/forms/action-state";
 import { DUE_SOON_DAYS } from "@/lib/instruments/calibration-status";
@@ -14,41 +15,41 @@ type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
 /** One instrument of the register; `inUseAction` (admins only) adds the controls to change it. */
 export function InstrumentRow({ instrument: i, inUseAction }: { instrument: RankedInstrument; inUseAction: Action | null }) {
   return (
-    <tr className="border-b border-rule align-top" data-testid={`instrument-${i.identifier}`}>
-      <td className="py-2 pr-3">
+    <Row data-testid={`instrument-${i.identifier}`} top>
+      <Cell>
         <div className="flex flex-col items-start gap-1">
           {i.active ? <CalibrationBadge status={i.status} /> : <OutOfUseBadge />}
           <span className="text-xs text-ink-soft">{describeDaysLeft(i)}</span>
         </div>
-      </td>
-      <td className="py-2 pr-3">
+      </Cell>
+      <Cell>
         <span className="font-medium">{i.identifier}</span>
         <br />
         <span className="text-ink-soft">
           {INSTRUMENT_KIND_LABELS[i.kind]} · serial {i.serial}
           {i.firmware ? ` · firmware ${i.firmware}` : ""}
         </span>
-      </td>
-      <td className="py-2 pr-3">
+      </Cell>
+      <Cell>
         <AccuracyList accuracy={i.accuracy} />
-      </td>
-      <td className="py-2 pr-3">
+      </Cell>
+      <Cell>
         <span className="font-mono text-xs">{i.calibrationCertificate}</span>
         <br />
         <span className="whitespace-nowrap">{i.calibratedOn}</span>
-      </td>
-      <td className="py-2 pr-3 whitespace-nowrap">{i.dueOn}</td>
+      </Cell>
+      <Cell className="whitespace-nowrap">{i.dueOn}</Cell>
       {inUseAction && (
-        <td className="py-2">
+        <Cell>
           <div className="flex flex-col items-start gap-2">
-            <Link href={`/instruments/${i.id}/edit`} className="text-copper-deep underline" aria-label={`Edit ${i.identifier}`}>
+            <TextLink href={`/instruments/${i.id}/edit`} aria-label={`Edit ${i.identifier}`}>
               Edit
-            </Link>
+            </TextLink>
             <InstrumentInUseControl action={inUseAction} id={i.id} identifier={i.identifier} active={i.active} />
           </div>
-        </td>
+        </Cell>
       )}
-    </tr>
+    </Row>
   );
 }
 

@@ -1,4 +1,5 @@
 import { Notice } from "@/components/ui/notice";
+import { Row, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { ClaimVerdict, DatasheetComparison } from "@/lib/analysis/datasheet-comparison";
 
@@ -15,42 +16,38 @@ export function DatasheetComparisonTable({ comparison }: { comparison: AnalysisR
   const { lines, decisionRule } = comparison.value;
   return (
     <div>
-      <div className="overflow-x-auto">
-        <table className="w-full min-w-[40rem] border-collapse text-sm" data-testid="datasheet-comparison">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              {["Datasheet claim", "Claimed", "Measured", "Verdict", "Why"].map((h) => (
-                <th key={h} scope="col" className="px-2 py-1">
-                  {h}
+      <Table data-testid="datasheet-comparison" className="min-w-[40rem]">
+        <TableHead>
+          {["Datasheet claim", "Claimed", "Measured", "Verdict", "Why"].map((h) => (
+            <th key={h} scope="col" className="px-2 py-1">
+              {h}
+            </th>
+          ))}
+        </TableHead>
+        <tbody>
+          {lines.map((line) => {
+            const v = VERDICT[line.verdict];
+            return (
+              <Row key={line.key} top>
+                <th scope="row" className="px-2 py-1 text-left font-normal">
+                  {line.claim[0]?.toUpperCase()}
+                  {line.claim.slice(1)}
                 </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {lines.map((line) => {
-              const v = VERDICT[line.verdict];
-              return (
-                <tr key={line.key} className="border-b border-rule align-top">
-                  <th scope="row" className="px-2 py-1 text-left font-normal">
-                    {line.claim[0]?.toUpperCase()}
-                    {line.claim.slice(1)}
-                  </th>
-                  <td className="w-36 px-2 py-1">
-                    <span className="whitespace-nowrap">{line.claimed.text}</span>
-                    {line.claimOrigin === "derived" && <span className="block text-xs text-ink-soft">derived: {line.claimNote}</span>}
-                  </td>
-                  <td className="w-48 px-2 py-1">{line.measured?.text ?? "nothing on record"}</td>
-                  <td className={`px-2 py-1 whitespace-nowrap font-medium ${v.tone}`}>
-                    <span aria-hidden="true">{v.mark} </span>
-                    {line.verdict}
-                  </td>
-                  <td className="px-2 py-1">{line.basis}</td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+                <td className="w-36 px-2 py-1">
+                  <span className="whitespace-nowrap">{line.claimed.text}</span>
+                  {line.claimOrigin === "derived" && <span className="block text-xs text-ink-soft">derived: {line.claimNote}</span>}
+                </td>
+                <td className="w-48 px-2 py-1">{line.measured?.text ?? "nothing on record"}</td>
+                <td className={`px-2 py-1 whitespace-nowrap font-medium ${v.tone}`}>
+                  <span aria-hidden="true">{v.mark} </span>
+                  {line.verdict}
+                </td>
+                <td className="px-2 py-1">{line.basis}</td>
+              </Row>
+            );
+          })}
+        </tbody>
+      </Table>
       <p className="mt-2 text-xs text-ink-soft">{decisionRule} Each specimen answers with its latest reviewed 0.2 It result. The step records hold no mass yet, so mass reads “not measured”.</p>
     </div>
   );

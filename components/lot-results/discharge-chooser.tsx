@@ -1,15 +1,16 @@
-import Link from "next/link";
+import { Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { CellSpecificationView } from "@/db/cell-specifications";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import type { LotView } from "@/db/lots";
 import { computeMultipleOfIt, formatDischargeKey, listMultiplesOfIt, MAX_OVERLAID, type CompareQuery } from "@/lib/lots/results/compare-selection";
 import { isAboveRating } from "@/lib/lots/results/summarise-results";
 import { formatNumber } from "@/protocols";
+import { SelectField } from "@/components/ui/select-field";
 
 /** Most rows the list shows at once; the filters narrow it. */
 const MAX_LISTED = 200;
 
-const selectClass = "mt-1 block w-full rounded border border-rule bg-white px-2 py-1.5 text-sm";
 
 /**
  * The list to choose from: filters by cell specification, lot, specimen and current, and a tick per
@@ -43,50 +44,38 @@ export function DischargeChooser({
       <form action="/compare" method="get" className="flex flex-col gap-3">
         <fieldset className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           <legend className="sr-only">Filters</legend>
-          <label className="text-sm">
-            Cell specification
-            <select name="spec" defaultValue={query.specificationId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {specifications.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.maker} {s.model}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Lot
-            <select name="lot" defaultValue={query.lotId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {lots.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {l.identifier}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Specimen
-            <select name="specimen" defaultValue={query.specimenId ?? ""} className={selectClass}>
-              <option value="">any</option>
-              {specimens.map(([id, identifier]) => (
-                <option key={id} value={id}>
-                  {identifier}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="text-sm">
-            Current
-            <select name="current" defaultValue={query.multipleOfIt === undefined ? "" : String(query.multipleOfIt)} className={selectClass}>
-              <option value="">any</option>
-              {multiples.map((m) => (
-                <option key={m} value={String(m)}>
-                  {formatNumber(m, { maxDecimals: 2 })} It
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField filter label="Cell specification" name="spec" defaultValue={query.specificationId ?? ""}>
+            <option value="">any</option>
+            {specifications.map((s) => (
+              <option key={s.id} value={s.id}>
+                {s.maker} {s.model}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Lot" name="lot" defaultValue={query.lotId ?? ""}>
+            <option value="">any</option>
+            {lots.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.identifier}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Specimen" name="specimen" defaultValue={query.specimenId ?? ""}>
+            <option value="">any</option>
+            {specimens.map(([id, identifier]) => (
+              <option key={id} value={id}>
+                {identifier}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField filter label="Current" name="current" defaultValue={query.multipleOfIt === undefined ? "" : String(query.multipleOfIt)}>
+            <option value="">any</option>
+            {multiples.map((m) => (
+              <option key={m} value={String(m)}>
+                {formatNumber(m, { maxDecimals: 2 })} It
+              </option>
+            ))}
+          </SelectField>
         </fieldset>
         {chosenKeys
           .filter((k) => !shownKeys.has(k))
@@ -98,56 +87,52 @@ export function DischargeChooser({
             Overlay the ticked discharges
           </button>
           <span className="text-sm text-ink-soft">The filters apply too. At most {MAX_OVERLAID} at once.</span>
-          <Link href="/compare" className="text-sm text-copper-deep underline">
+          <TextLink href="/compare" className="text-sm">
             Start again
-          </Link>
+          </TextLink>
         </div>
         {shown.length === 0 ? (
           <p className="text-sm text-ink-soft">No reviewed discharges match these filters.</p>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full min-w-[44rem] border-collapse text-sm" data-testid="discharge-list">
-              <caption className="mb-1 text-left text-ink-soft">
-                {listed.length > MAX_LISTED ? `The first ${MAX_LISTED} of ${listed.length} reviewed discharges; narrow the filters to see the rest.` : `${listed.length} reviewed discharges.`}
-              </caption>
-              <thead>
-                <tr className="border-b border-rule text-left">
-                  {["Overlay", "Run", "Specimen", "Lot", "Step", "Current", "Capacity (mAh)"].map((h) => (
-                    <th key={h} scope="col" className="px-2 py-1">
-                      {h}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {shown.map((r) => {
-                  const key = formatDischargeKey(r);
-                  const id = `d-${key}`;
-                  return (
-                    <tr key={key} className="border-b border-rule">
-                      <td className="px-2 py-1">
-                        <input id={id} type="checkbox" name="d" value={key} defaultChecked={chosen.has(key)} className="h-4 w-4 accent-copper" />
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">
-                        <label htmlFor={id}>{r.runNumber}</label>
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">{r.specimenIdentifier}</td>
-                      <td className="px-2 py-1 whitespace-nowrap">{r.lotIdentifier ?? "none"}</td>
-                      <td className="px-2 py-1">
-                        {r.stepLabel}
-                        {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
-                      </td>
-                      <td className="px-2 py-1 whitespace-nowrap">
-                        {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
-                        {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) ? " ⚠ above the rating" : ""}
-                      </td>
-                      <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
+          <Table data-testid="discharge-list" className="min-w-[44rem]">
+            <caption className="mb-1 text-left text-ink-soft">
+              {listed.length > MAX_LISTED ? `The first ${MAX_LISTED} of ${listed.length} reviewed discharges; narrow the filters to see the rest.` : `${listed.length} reviewed discharges.`}
+            </caption>
+            <TableHead>
+              {["Overlay", "Run", "Specimen", "Lot", "Step", "Current", "Capacity (mAh)"].map((h) => (
+                <th key={h} scope="col" className="px-2 py-1">
+                  {h}
+                </th>
+              ))}
+            </TableHead>
+            <tbody>
+              {shown.map((r) => {
+                const key = formatDischargeKey(r);
+                const id = `d-${key}`;
+                return (
+                  <Row key={key}>
+                    <td className="px-2 py-1">
+                      <input id={id} type="checkbox" name="d" value={key} defaultChecked={chosen.has(key)} className="h-4 w-4 accent-copper" />
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">
+                      <label htmlFor={id}>{r.runNumber}</label>
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">{r.specimenIdentifier}</td>
+                    <td className="px-2 py-1 whitespace-nowrap">{r.lotIdentifier ?? "none"}</td>
+                    <td className="px-2 py-1">
+                      {r.stepLabel}
+                      {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
+                    </td>
+                    <td className="px-2 py-1 whitespace-nowrap">
+                      {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
+                      {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) ? " ⚠ above the rating" : ""}
+                    </td>
+                    <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
+                  </Row>
+                );
+              })}
+            </tbody>
+          </Table>
         )}
       </form>
     </section>

@@ -1,3 +1,5 @@
+import { Row, Table, TableHead } from "@/components/ui/table";
+import { PlainLink } from "@/components/ui/text-link";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import { computeMultipleOfIt, formatDischargeKey } from "@/lib/lots/results/compare-selection";
 import type { OverlayStyle } from "@/lib/lots/results/overlay-style";
@@ -15,50 +17,46 @@ function Swatch({ style }: { style: OverlayStyle }) {
 /** The legend of the overlay: which curve is which run, specimen and current, with its numbers. */
 export function OverlayLegend({ rows, styles }: { rows: DischargeResultRow[]; styles: Record<string, OverlayStyle> }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[46rem] border-collapse text-sm" data-testid="overlay-legend">
-        <caption className="mb-1 text-left font-semibold">Legend</caption>
-        <thead>
-          <tr className="border-b border-rule text-left">
-            {["Curve", "Run", "Specimen", "Cell", "Current", "Capacity (mAh)", "Energy (Wh)", "Mean voltage (V)"].map((h) => (
-              <th key={h} scope="col" className="px-2 py-1">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => {
-            const key = formatDischargeKey(r);
-            const style = styles[key]!;
-            return (
-              <tr key={key} className="border-b border-rule">
-                <td className="px-2 py-1 whitespace-nowrap">
-                  <Swatch style={style} /> <span className="text-xs text-ink-soft">{style.pattern}</span>
-                </td>
-                <td className="px-2 py-1">
-                  <a href={`/runs/${r.runId}/results`} className="text-copper-deep underline">
-                    {r.runNumber}
-                  </a>
-                  <span className="block text-xs text-ink-soft">
-                    {r.procedureCode}: {r.stepLabel}
-                    {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
-                  </span>
-                </td>
-                <td className="px-2 py-1">{r.specimenIdentifier}</td>
-                <td className="px-2 py-1">{r.specificationName}</td>
-                <td className="px-2 py-1 whitespace-nowrap">
-                  {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
-                  {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) && <span className="block text-xs text-deviates">⚠ above the rating</span>}
-                </td>
-                <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
-                <td className="px-2 py-1 text-right">{formatNumber(r.energyWh, { minDecimals: 2, maxDecimals: 2 })}</td>
-                <td className="px-2 py-1 text-right">{formatNumber(r.meanVoltageV, { minDecimals: 3, maxDecimals: 3 })}</td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+    <Table data-testid="overlay-legend" className="min-w-[46rem]">
+      <caption className="mb-1 text-left font-semibold">Legend</caption>
+      <TableHead>
+        {["Curve", "Run", "Specimen", "Cell", "Current", "Capacity (mAh)", "Energy (Wh)", "Mean voltage (V)"].map((h) => (
+          <th key={h} scope="col" className="px-2 py-1">
+            {h}
+          </th>
+        ))}
+      </TableHead>
+      <tbody>
+        {rows.map((r) => {
+          const key = formatDischargeKey(r);
+          const style = styles[key]!;
+          return (
+            <Row key={key}>
+              <td className="px-2 py-1 whitespace-nowrap">
+                <Swatch style={style} /> <span className="text-xs text-ink-soft">{style.pattern}</span>
+              </td>
+              <td className="px-2 py-1">
+                <PlainLink href={`/runs/${r.runId}/results`}>
+                  {r.runNumber}
+                </PlainLink>
+                <span className="block text-xs text-ink-soft">
+                  {r.procedureCode}: {r.stepLabel}
+                  {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
+                </span>
+              </td>
+              <td className="px-2 py-1">{r.specimenIdentifier}</td>
+              <td className="px-2 py-1">{r.specificationName}</td>
+              <td className="px-2 py-1 whitespace-nowrap">
+                {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
+                {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) && <span className="block text-xs text-deviates">⚠ above the rating</span>}
+              </td>
+              <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
+              <td className="px-2 py-1 text-right">{formatNumber(r.energyWh, { minDecimals: 2, maxDecimals: 2 })}</td>
+              <td className="px-2 py-1 text-right">{formatNumber(r.meanVoltageV, { minDecimals: 3, maxDecimals: 3 })}</td>
+            </Row>
+          );
+        })}
+      </tbody>
+    </Table>
   );
 }

@@ -1,5 +1,6 @@
 import { Fragment } from "react";
 import { Notice } from "@/components/ui/notice";
+import { Row, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { RateCapabilityTable } from "@/lib/analysis/rate-capability";
 import { formatNumber } from "@/protocols";
@@ -22,56 +23,52 @@ export function RateCapabilityTableView({ table, emptyWords }: { table: Analysis
           </Notice>
         </div>
       )}
-      <div className="overflow-x-auto">
-        <table className="w-full min-w-[42rem] border-collapse text-sm" data-testid="rate-capability-table">
-          <caption className="sr-only">Rate capability, It = {fmt(itA, 3)} A</caption>
-          <thead>
-            <tr className="border-b border-rule text-left">
-              {["Current (A)", "× It", "Results", "Capacity (mAh)", "% of 0.2 It", "% of rated", "Energy (Wh)", "% of 0.2 It energy", "Mean voltage (V)", "Rating"].map((h) => (
-                <th key={h} scope="col" className={`px-2 py-1 ${h === "Rating" ? "" : "text-right"}`}>
-                  {h}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r) => (
-              <Fragment key={r.currentA}>
-                <tr className={`${r.aboveRating ? "" : "border-b"} border-rule ${r.isReference ? "bg-paper-deep" : ""}`}>
-                  <td className="px-2 py-1 text-right">{fmt(r.currentA, 3)}</td>
-                  <td className="px-2 py-1 text-right">
-                    {formatNumber(r.multipleOfIt, { maxDecimals: 3 })}
-                    {r.isReference ? " (reference)" : ""}
+      <Table data-testid="rate-capability-table" className="min-w-[42rem]">
+        <caption className="sr-only">Rate capability, It = {fmt(itA, 3)} A</caption>
+        <TableHead>
+          {["Current (A)", "× It", "Results", "Capacity (mAh)", "% of 0.2 It", "% of rated", "Energy (Wh)", "% of 0.2 It energy", "Mean voltage (V)", "Rating"].map((h) => (
+            <th key={h} scope="col" className={`px-2 py-1 ${h === "Rating" ? "" : "text-right"}`}>
+              {h}
+            </th>
+          ))}
+        </TableHead>
+        <tbody>
+          {rows.map((r) => (
+            <Fragment key={r.currentA}>
+              <tr className={`${r.aboveRating ? "" : "border-b"} border-rule ${r.isReference ? "bg-paper-deep" : ""}`}>
+                <td className="px-2 py-1 text-right">{fmt(r.currentA, 3)}</td>
+                <td className="px-2 py-1 text-right">
+                  {formatNumber(r.multipleOfIt, { maxDecimals: 3 })}
+                  {r.isReference ? " (reference)" : ""}
+                </td>
+                <td className="px-2 py-1 text-right">{r.count}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.capacityMAh, 0)}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfReference, 1)}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfRated, 1)}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.energyWh, 2)}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.energyPercentOfReference, 1)}</td>
+                <td className="px-2 py-1 text-right">{fmt(r.meanVoltageV, 3)}</td>
+                <td className={`px-2 py-1 ${r.aboveRating ? "font-medium text-deviates" : ""}`}>
+                  {r.aboveRating ? (
+                    <span data-testid="above-rating">
+                      <span aria-hidden="true">⚠ </span>above the rating
+                    </span>
+                  ) : (
+                    "within"
+                  )}
+                </td>
+              </tr>
+              {r.aboveRating && (
+                <Row>
+                  <td colSpan={10} className="px-2 pb-1 text-xs text-deviates">
+                    Above the rating: {r.aboveRatingReason}.
                   </td>
-                  <td className="px-2 py-1 text-right">{r.count}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.capacityMAh, 0)}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfReference, 1)}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfRated, 1)}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.energyWh, 2)}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.energyPercentOfReference, 1)}</td>
-                  <td className="px-2 py-1 text-right">{fmt(r.meanVoltageV, 3)}</td>
-                  <td className={`px-2 py-1 ${r.aboveRating ? "font-medium text-deviates" : ""}`}>
-                    {r.aboveRating ? (
-                      <span data-testid="above-rating">
-                        <span aria-hidden="true">⚠ </span>above the rating
-                      </span>
-                    ) : (
-                      "within"
-                    )}
-                  </td>
-                </tr>
-                {r.aboveRating && (
-                  <tr className="border-b border-rule">
-                    <td colSpan={10} className="px-2 pb-1 text-xs text-deviates">
-                      Above the rating: {r.aboveRatingReason}.
-                    </td>
-                  </tr>
-                )}
-              </Fragment>
-            ))}
-          </tbody>
-        </table>
-      </div>
+                </Row>
+              )}
+            </Fragment>
+          ))}
+        </tbody>
+      </Table>
       <ul className="mt-2 list-disc pl-5 text-xs text-ink-soft">
         {basis.map((b) => (
           <li key={b}>{b}</li>

@@ -1,4 +1,5 @@
 import { Notice } from "@/components/ui/notice";
+import { Row, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { CurrentSummary, StatisticsSummary } from "@/lib/lots/results/summarise-results";
 import { cplFormula, cplSource, type ResultsDescription } from "@/lib/statistics";
@@ -30,19 +31,19 @@ function describeCapability(d: ResultsDescription): string {
 function QuantityRow({ label, result, decimals }: { label: string; result: AnalysisResult<ResultsDescription>; decimals: number }) {
   if (!result.ok) {
     return (
-      <tr className="border-b border-rule">
+      <Row>
         <th scope="row" className="px-2 py-1 text-left font-normal">
           {label}
         </th>
         <td colSpan={7} className="px-2 py-1 text-ink-soft">
           {result.error.message}
         </td>
-      </tr>
+      </Row>
     );
   }
   const d = result.value;
   return (
-    <tr className="border-b border-rule">
+    <Row>
       <th scope="row" className="px-2 py-1 text-left font-normal">
         {label}
       </th>
@@ -53,7 +54,7 @@ function QuantityRow({ label, result, decimals }: { label: string; result: Analy
       <td className="px-2 py-1 text-right">{fmt(d.max, decimals)}</td>
       <td className="px-2 py-1">{describeShare(d, decimals)}</td>
       <td className="px-2 py-1">{describeCapability(d)}</td>
-    </tr>
+    </Row>
   );
 }
 
@@ -84,23 +85,19 @@ function CurrentSection({ group, summary }: { group: CurrentSummary; summary: St
           </Notice>
         </div>
       )}
-      <div className="overflow-x-auto">
-        <table className="w-full min-w-[44rem] border-collapse text-sm" data-testid="statistics-table">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              {["Quantity", "n", "Mean", "s", "Min", "Max", "At or above rated", "Cpl against the minimum"].map((h) => (
-                <th key={h} scope="col" className={`px-2 py-1 ${["n", "Mean", "s", "Min", "Max"].includes(h) ? "text-right" : ""}`}>
-                  {h}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            <QuantityRow label="Capacity (mAh)" result={group.capacity} decimals={0} />
-            <QuantityRow label="Energy (Wh)" result={group.energy} decimals={2} />
-          </tbody>
-        </table>
-      </div>
+      <Table data-testid="statistics-table" className="min-w-[44rem]">
+        <TableHead>
+          {["Quantity", "n", "Mean", "s", "Min", "Max", "At or above rated", "Cpl against the minimum"].map((h) => (
+            <th key={h} scope="col" className={`px-2 py-1 ${["n", "Mean", "s", "Min", "Max"].includes(h) ? "text-right" : ""}`}>
+              {h}
+            </th>
+          ))}
+        </TableHead>
+        <tbody>
+          <QuantityRow label="Capacity (mAh)" result={group.capacity} decimals={0} />
+          <QuantityRow label="Energy (Wh)" result={group.energy} decimals={2} />
+        </tbody>
+      </Table>
       {group.count >= 2 && group.count < MIN_FOR_HISTOGRAM && (
         <p className="mt-2 text-xs text-ink-soft">
           No histogram below {MIN_FOR_HISTOGRAM} results; the capacities are {listValues(group, 0)}.

@@ -1,6 +1,6 @@
-import Link from "next/link";
 import { CertificateStatusWords } from "@/components/certificates/certificate-status";
 import { Notice } from "@/components/ui/notice";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import type { CertificateStatus } from "@/db/certificates";
 import type { ActionState } from "@/lib/forms/action-state";
 import { formatDateTime } from "@/lib/format-date-time";
@@ -34,14 +34,14 @@ export function LotCertificateSection({ lot, verdict, certificates, signer, oper
         <ul className="mb-3 flex flex-col gap-1 text-sm" data-testid="lot-certificates">
           {certificates.map((c) => (
             <li key={c.number} className="flex flex-wrap items-baseline gap-x-3">
-              <Link href={`/certificates/${c.number}`} className="font-mono font-medium text-copper-deep underline">
+              <TextLink href={`/certificates/${c.number}`} className="font-mono font-medium">
                 {c.number}
-              </Link>
+              </TextLink>
               <CertificateStatusWords status={c.status} />
               <span className="text-ink-soft">issued {formatDateTime(c.issuedAt)}</span>
-              <a href={`/api/certificates/${c.number}/pdf`} download className="text-copper-deep underline">
+              <PlainLink href={`/api/certificates/${c.number}/pdf`} download>
                 Download the PDF of {c.number}
-              </a>
+              </PlainLink>
             </li>
           ))}
         </ul>

@@ -1,4 +1,5 @@
-import Link from "next/link";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { SpecimenView } from "@/db/specimens";
 
 /**
@@ -9,55 +10,51 @@ export function LotSpecimensTable({ specimens, drawnPositions }: { specimens: re
   const drawn = drawnPositions ? new Set(drawnPositions) : null;
   if (specimens.length === 0) return <p className="py-4 text-sm text-ink-soft">No specimens registered from this lot yet.</p>;
   return (
-    <div className="overflow-x-auto">
-      <table className="figures w-full border-collapse text-sm" data-testid="lot-specimens">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th scope="col" className="py-2 pr-3">
-              Specimen
-            </th>
-            <th scope="col" className="py-2 pr-3 text-right">
-              Tray position
-            </th>
+    <Table data-testid="lot-specimens">
+      <TableHead>
+        <HeaderCell>
+          Specimen
+        </HeaderCell>
+        <HeaderCell className="text-right">
+          Tray position
+        </HeaderCell>
+        {drawn && (
+          <HeaderCell>
+            In the drawn sample
+          </HeaderCell>
+        )}
+        <HeaderCell>
+          Received on
+        </HeaderCell>
+        <HeaderCell>
+          Condition on receipt
+        </HeaderCell>
+      </TableHead>
+      <tbody>
+        {specimens.map((c) => (
+          <Row key={c.id} top>
+            <Cell className="whitespace-nowrap">
+              <TextLink href={`/specimens/${c.id}`} className="font-medium">
+                {c.identifier}
+              </TextLink>
+            </Cell>
+            <Cell className="text-right">{c.lotPosition ?? <span className="text-ink-soft">not recorded</span>}</Cell>
             {drawn && (
-              <th scope="col" className="py-2 pr-3">
-                In the drawn sample
-              </th>
+              <Cell>
+                {c.lotPosition !== null && drawn.has(c.lotPosition) ? (
+                  "yes"
+                ) : (
+                  <span className="font-medium text-unassessed">
+                    <span aria-hidden="true">○ </span>not in the drawn sample
+                  </span>
+                )}
+              </Cell>
             )}
-            <th scope="col" className="py-2 pr-3">
-              Received on
-            </th>
-            <th scope="col" className="py-2">
-              Condition on receipt
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {specimens.map((c) => (
-            <tr key={c.id} className="border-b border-rule align-top">
-              <td className="py-2 pr-3 whitespace-nowrap">
-                <Link href={`/specimens/${c.id}`} className="font-medium text-copper-deep underline">
-                  {c.identifier}
-                </Link>
-              </td>
-              <td className="py-2 pr-3 text-right">{c.lotPosition ?? <span className="text-ink-soft">not recorded</span>}</td>
-              {drawn && (
-                <td className="py-2 pr-3">
-                  {c.lotPosition !== null && drawn.has(c.lotPosition) ? (
-                    "yes"
-                  ) : (
-                    <span className="font-medium text-unassessed">
-                      <span aria-hidden="true">○ </span>not in the drawn sample
-                    </span>
-                  )}
-                </td>
-              )}
-              <td className="py-2 pr-3 whitespace-nowrap">{c.receivedOn}</td>
-              <td className="py-2">{c.conditionOnReceipt}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+            <Cell className="whitespace-nowrap">{c.receivedOn}</Cell>
+            <Cell>{c.conditionOnReceipt}</Cell>
+          </Row>
+        ))}
+      </tbody>
+    </Table>
   );
 }

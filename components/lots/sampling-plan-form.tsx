@@ -1,7 +1,7 @@
 "use client";
 
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
+import { SelectField } from "@/components/ui/select-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -16,7 +16,6 @@ export interface ProcedureChoice {
   title: string;
 }
 
-const selectClass = "rounded border border-rule bg-white px-2 py-1.5 aria-[invalid=true]:border-deviates";
 
 /** The engineer's choice for a lot's plan: inspection level, AQL and the procedure that decides each cell. */
 export function SamplingPlanForm({
@@ -37,7 +36,6 @@ export function SamplingPlanForm({
 }) {
   const { state, onSubmit, pending } = useFormAction(action);
   const err = (k: string) => state.fieldErrors?.[k];
-  const invalid = (k: string) => (err(k)?.length ? true : undefined);
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Sampling plan" className="flex flex-col gap-4 rounded border border-rule bg-white/60 p-4">
       {state.message && (
@@ -50,64 +48,38 @@ export function SamplingPlanForm({
         The lot size is the quantity received, {formatNumber(lotSize)} cells. Inspection starts at normal severity.
       </p>
       <div className="grid gap-3 md:grid-cols-2">
-        <Field label="Inspection level" name="inspectionLevel" errors={err("inspectionLevel")}>
-          <select
-            id="field-inspectionLevel"
-            name="inspectionLevel"
-            defaultValue={initial?.inspectionLevel ?? "II"}
-            aria-invalid={invalid("inspectionLevel")}
-            aria-describedby="field-inspectionLevel-error"
-            className={selectClass}
-          >
-            {INSPECTION_LEVEL_ORDER.map((level) => (
-              <option key={level} value={level}>
-                {INSPECTION_LEVEL_WORDS[level]}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <Field label="AQL (% nonconforming)" name="aql" errors={err("aql")} hint="As agreed with the customer or set by the lab's quality plan.">
-          <select
-            id="field-aql"
-            name="aql"
-            defaultValue={initial?.aql ?? ""}
-            aria-invalid={invalid("aql")}
-            aria-describedby="field-aql-hint field-aql-error"
-            className={selectClass}
-          >
-            <option value="" disabled>
-              choose…
+        <SelectField label="Inspection level" name="inspectionLevel" errors={err("inspectionLevel")} defaultValue={initial?.inspectionLevel ?? "II"}>
+          {INSPECTION_LEVEL_ORDER.map((level) => (
+            <option key={level} value={level}>
+              {INSPECTION_LEVEL_WORDS[level]}
             </option>
-            {aqlLabels.map((label) => (
-              <option key={label} value={label}>
-                {label} %
-              </option>
-            ))}
-          </select>
-        </Field>
+          ))}
+        </SelectField>
+        <SelectField label="AQL (% nonconforming)" name="aql" errors={err("aql")} hint="As agreed with the customer or set by the lab's quality plan." defaultValue={initial?.aql ?? ""}>
+          <option value="" disabled>
+            choose…
+          </option>
+          {aqlLabels.map((label) => (
+            <option key={label} value={label}>
+              {label} %
+            </option>
+          ))}
+        </SelectField>
         <div className="md:col-span-2">
-          <Field
+          <SelectField
             label="Acceptance procedure"
             name="acceptanceProcedureId"
             errors={err("acceptanceProcedureId")}
             hint="Its statement of conformity decides each drawn cell."
+            defaultValue={initial?.acceptanceProcedureId ?? ""}
           >
-            <select
-              id="field-acceptanceProcedureId"
-              name="acceptanceProcedureId"
-              defaultValue={initial?.acceptanceProcedureId ?? ""}
-              aria-invalid={invalid("acceptanceProcedureId")}
-              aria-describedby="field-acceptanceProcedureId-hint field-acceptanceProcedureId-error"
-              className={selectClass}
-            >
-              <option value="">any procedure: each cell&apos;s latest reviewed run</option>
-              {procedures.map((p) => (
-                <option key={p.id} value={p.id}>
-                  {p.code}: {p.title}
-                </option>
-              ))}
-            </select>
-          </Field>
+            <option value="">any procedure: each cell&apos;s latest reviewed run</option>
+            {procedures.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.code}: {p.title}
+              </option>
+            ))}
+          </SelectField>
         </div>
       </div>
       <Button type="submit" disabled={pending} className="self-start">

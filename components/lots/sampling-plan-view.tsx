@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 import type { SamplingPlan } from "@/lib/lots/sampling";
 import { formatNumber } from "@/protocols/format-number";
 import { INSPECTION_LEVEL_WORDS } from "./inspection-level-words";
@@ -44,9 +44,9 @@ export function SamplingPlanView({
           {acceptanceProcedure ? (
             <>
               the statement of conformity of a reviewed run of{" "}
-              <Link href={`/procedures/${acceptanceProcedure.id}`} className="font-mono text-copper-deep underline">
+              <TextLink href={`/procedures/${acceptanceProcedure.id}`} className="font-mono">
                 {acceptanceProcedure.code}
-              </Link>
+              </TextLink>
             </>
           ) : (
             "the statement of conformity of each cell's latest reviewed run, of any procedure"

@@ -2,6 +2,7 @@
 
 import type { Ref } from "react";
 import { useFormContext, useFormState } from "react-hook-form";
+import { PlainLink } from "@/components/ui/text-link";
 import type { ActionState } from "@/lib/forms/action-state";
 import type { StepValue } from "./draft-values";
 import { describeFieldPath, fieldId, flattenFieldErrors, listPathAncestors } from "./field-paths";
@@ -43,16 +44,16 @@ export function ErrorSummary({ answer, ref }: { answer: ActionState | null; ref:
           <ul className="mt-2 flex flex-col gap-1">
             {problems.map((problem) => (
               <li key={`${problem.path}:${problem.message}`}>
-                <a
+                <PlainLink
                   href={`#${fieldId(problem.path)}`}
                   onClick={(event) => {
                     event.preventDefault();
                     focusPath(problem.path);
                   }}
-                  className="font-medium text-copper-deep underline"
-                >
+                 
+                 className="font-medium">
                   {describeFieldPath(problem.path, labels)}
-                </a>
+                </PlainLink>
                 : {problem.message}
               </li>
             ))}

@@ -2,6 +2,7 @@
 
 import { useEffect, useRef, useState, useTransition } from "react";
 import { FormProvider, useForm, type FieldValues, type UseFormSetError } from "react-hook-form";
+import { PlainLink } from "@/components/ui/text-link";
 import type { ActionState } from "@/lib/forms/action-state";
 import type { ProcedureDraftInput } from "@/lib/procedures/procedure-input";
 import { readDecisionRule } from "@/protocols";
@@ -77,9 +78,9 @@ export function ProcedureEditor({
       >
         <ErrorSummary ref={summaryRef} answer={answer} />
         <p className="mb-4 text-sm">
-          <a href="#preview-heading" className="text-copper-deep underline">
+          <PlainLink href="#preview-heading">
             Go to the preview on a cell
-          </a>{" "}
+          </PlainLink>{" "}
           to see the set-points this draft gives for a chosen cell.
         </p>
         <div className="flex flex-col gap-8">

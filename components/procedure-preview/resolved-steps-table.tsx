@@ -1,4 +1,5 @@
 import clsx from "clsx";
+import { Table } from "@/components/ui/table";
 import type { ResolvedStep } from "@/protocols";
 import { describeResolvedKind, formatTemperatureRange, formatTolerances, listSetPoints } from "./format-resolved";
 
@@ -6,7 +7,7 @@ import { describeResolvedKind, formatTemperatureRange, formatTolerances, listSet
 export function ResolvedStepsTable({ steps, flaggedStepIds }: { steps: readonly ResolvedStep[]; flaggedStepIds: ReadonlySet<string> }) {
   return (
     <div className="overflow-x-auto rounded border border-rule bg-white">
-      <table className="w-full border-collapse text-sm">
+      <Table>
         <caption className="caption-bottom px-2 py-1.5 text-left text-xs text-ink-soft">
           Tolerances: U voltage, I current, T temperature, t time. Each value says where it comes from.
         </caption>
@@ -31,7 +32,7 @@ export function ResolvedStepsTable({ steps, flaggedStepIds }: { steps: readonly 
             <StepRow key={`${step.index}-${step.id}`} step={step} flagged={flaggedStepIds.has(step.id)} />
           ))}
         </tbody>
-      </table>
+      </Table>
     </div>
   );
 }

@@ -2,6 +2,7 @@
 
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { NotesField } from "@/components/ui/notes-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -53,16 +54,7 @@ export function LotForm({ action, specifications, initial }: { action: Action; s
         />
         <Field label="Received on" name="receivedOn" type="date" defaultValue={initial?.receivedOn} errors={err("receivedOn")} />
       </div>
-      <Field label="Notes, optional" name="notes" errors={err("notes")}>
-        <textarea
-          id="field-notes"
-          name="notes"
-          rows={3}
-          defaultValue={initial?.notes ?? ""}
-          aria-describedby="field-notes-error"
-          className="rounded border border-rule bg-white px-2 py-1.5"
-        />
-      </Field>
+      <NotesField label="Notes, optional" name="notes" errors={err("notes")} defaultValue={initial?.notes ?? ""} />
       <Button type="submit" disabled={pending} className="self-start">
         {pending ? "Saving…" : "Save lot"}
       </Button>

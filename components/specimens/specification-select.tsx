@@ -1,5 +1,5 @@
 import type { ChangeEvent } from "react";
-import { Field } from "@/components/ui/field";
+import { SelectField } from "@/components/ui/select-field";
 import type { SpecificationOption } from "@/lib/specimens/form-option-types";
 
 export type { SpecificationOption };
@@ -20,22 +20,13 @@ export function SpecificationSelect({
 }) {
   const controlled = value !== undefined ? { value, onChange: (e: ChangeEvent<HTMLSelectElement>) => onChange?.(e.target.value) } : { defaultValue: defaultValue ?? "" };
   return (
-    <Field label="Cell specification" name="cellSpecificationId" errors={errors}>
-      <select
-        id="field-cellSpecificationId"
-        name="cellSpecificationId"
-        aria-describedby="field-cellSpecificationId-error"
-        aria-invalid={errors?.length ? true : undefined}
-        className="rounded border border-rule bg-white px-2 py-1.5"
-        {...controlled}
-      >
-        <option value="">choose…</option>
-        {specifications.map((s) => (
-          <option key={s.id} value={s.id}>
-            {s.label}
-          </option>
-        ))}
-      </select>
-    </Field>
+    <SelectField label="Cell specification" name="cellSpecificationId" errors={errors} {...controlled}>
+      <option value="">choose…</option>
+      {specifications.map((s) => (
+        <option key={s.id} value={s.id}>
+          {s.label}
+        </option>
+      ))}
+    </SelectField>
   );
 }

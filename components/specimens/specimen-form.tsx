@@ -3,6 +3,8 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { NotesField } from "@/components/ui/notes-field";
+import { SelectField } from "@/components/ui/select-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -66,23 +68,14 @@ export function SpecimenForm({
       {initial?.id && <input type="hidden" name="id" value={initial.id} />}
       <div className="grid gap-3 sm:grid-cols-2">
         <Field label="Specimen identifier" name="identifier" defaultValue={initial?.identifier} errors={err("identifier")} hint="As written on the cell." />
-        <Field label="Lot" name="lotId" errors={err("lotId")}>
-          <select
-            id="field-lotId"
-            name="lotId"
-            value={lotId}
-            onChange={(e) => chooseLot(e.target.value)}
-            aria-describedby="field-lotId-error"
-            className="rounded border border-rule bg-white px-2 py-1.5"
-          >
-            <option value="">none: a loose specimen</option>
-            {lots.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.label}
-              </option>
-            ))}
-          </select>
-        </Field>
+        <SelectField label="Lot" name="lotId" errors={err("lotId")} value={lotId} onChange={(e) => chooseLot(e.target.value)}>
+          <option value="">none: a loose specimen</option>
+          {lots.map((l) => (
+            <option key={l.id} value={l.id}>
+              {l.label}
+            </option>
+          ))}
+        </SelectField>
         <Field
           label="Tray position, optional"
           name="lotPosition"
@@ -112,16 +105,7 @@ export function SpecimenForm({
           <option key={c} value={c} />
         ))}
       </datalist>
-      <Field label="Notes, optional" name="notes" errors={err("notes")}>
-        <textarea
-          id="field-notes"
-          name="notes"
-          rows={3}
-          defaultValue={initial?.notes ?? ""}
-          aria-describedby="field-notes-error"
-          className="rounded border border-rule bg-white px-2 py-1.5"
-        />
-      </Field>
+      <NotesField label="Notes, optional" name="notes" errors={err("notes")} defaultValue={initial?.notes ?? ""} />
       <Button type="submit" disabled={pending} className="self-start">
         {pending ? "Saving…" : "Save specimen"}
       </Button>

@@ -1,49 +1,48 @@
-import Link from "next/link";
+import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import type { SpecimenView } from "@/db/specimens";
 
 /** Specimens with their cell and lot; `showLot` is off on a lot's own page. */
 export function SpecimensTable({ specimens, showLot = true }: { specimens: SpecimenView[]; showLot?: boolean }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="figures w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th className="py-2 pr-3">Specimen</th>
-            <th className="py-2 pr-3">Cell</th>
-            {showLot && <th className="py-2 pr-3">Lot</th>}
-            <th className="py-2 pr-3">Received on</th>
-            <th className="py-2">Condition on receipt</th>
-          </tr>
-        </thead>
+    <>
+      <Table>
+        <TableHead>
+          <HeaderCell>Specimen</HeaderCell>
+          <HeaderCell>Cell</HeaderCell>
+          {showLot && <HeaderCell>Lot</HeaderCell>}
+          <HeaderCell>Received on</HeaderCell>
+          <HeaderCell>Condition on receipt</HeaderCell>
+        </TableHead>
         <tbody>
           {specimens.map((c) => (
-            <tr key={c.id} className="border-b border-rule align-top">
-              <td className="py-2 pr-3">
-                <Link href={`/specimens/${c.id}`} className="font-medium text-copper-deep underline">
+            <Row key={c.id} top>
+              <Cell>
+                <TextLink href={`/specimens/${c.id}`} className="font-medium">
                   {c.identifier}
-                </Link>
-              </td>
-              <td className="py-2 pr-3">
+                </TextLink>
+              </Cell>
+              <Cell>
                 {c.specification.maker} {c.specification.model}
-              </td>
+              </Cell>
               {showLot && (
-                <td className="py-2 pr-3">
+                <Cell>
                   {c.lot ? (
-                    <Link href={`/lots/${c.lot.id}`} className="text-copper-deep underline">
+                    <TextLink href={`/lots/${c.lot.id}`}>
                       {c.lot.identifier}
-                    </Link>
+                    </TextLink>
                   ) : (
                     <span className="text-ink-soft">none</span>
                   )}
-                </td>
+                </Cell>
               )}
-              <td className="py-2 pr-3 whitespace-nowrap">{c.receivedOn}</td>
-              <td className="py-2">{c.conditionOnReceipt}</td>
-            </tr>
+              <Cell className="whitespace-nowrap">{c.receivedOn}</Cell>
+              <Cell>{c.conditionOnReceipt}</Cell>
+            </Row>
           ))}
         </tbody>
-      </table>
-      {specimens.length === 0 && <p className="py-6 text-ink-soft">No specimens match.</p>}
-    </div>
+      </Table>
+      {specimens.length === 0 && <EmptyState>No specimens match.</EmptyState>}
+    </>
   );
 }

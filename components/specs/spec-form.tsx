@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { SelectField } from "@/components/ui/select-field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
@@ -34,25 +35,21 @@ export function SpecForm({ action, initial }: { action: Action; initial?: { id: 
         <legend className="mb-2 font-serif text-lg font-bold">Cell</legend>
         <Field label="Maker" name="maker" defaultValue={initial?.maker} errors={err("maker")} />
         <Field label="Model" name="model" defaultValue={initial?.model} errors={err("model")} />
-        <Field label="Positive electrode (IEC 61960 letter)" name="positiveElectrode" errors={err("data.chemistry.positiveElectrode")}>
-          <select id="field-positiveElectrode" name="positiveElectrode" defaultValue={initial?.data.chemistry.positiveElectrode ?? "N"} className="rounded border border-rule bg-white px-2 py-1.5">
-            {positiveElectrodeLetters.map((l) => (
-              <option key={l} value={l}>
-                {l}: {positiveElectrodeNames[l]}
-              </option>
-            ))}
-          </select>
-        </Field>
+        <SelectField label="Positive electrode (IEC 61960 letter)" name="positiveElectrode" errors={err("data.chemistry.positiveElectrode")} defaultValue={initial?.data.chemistry.positiveElectrode ?? "N"}>
+          {positiveElectrodeLetters.map((l) => (
+            <option key={l} value={l}>
+              {l}: {positiveElectrodeNames[l]}
+            </option>
+          ))}
+        </SelectField>
         <Field label="Chemistry as the maker names it" name="chemistryLabel" placeholder="e.g. NMC" defaultValue={initial?.data.chemistry.label} errors={err("data.chemistry.label")} />
-        <Field label="Shape" name="shape" errors={err("data.shape")}>
-          <select id="field-shape" name="shape" defaultValue={initial?.data.shape ?? "cylindrical"} className="rounded border border-rule bg-white px-2 py-1.5">
-            {cellShapes.map((s) => (
-              <option key={s} value={s}>
-                {s}
-              </option>
-            ))}
-          </select>
-        </Field>
+        <SelectField label="Shape" name="shape" errors={err("data.shape")} defaultValue={initial?.data.shape ?? "cylindrical"}>
+          {cellShapes.map((s) => (
+            <option key={s} value={s}>
+              {s}
+            </option>
+          ))}
+        </SelectField>
         <div className="flex flex-col gap-1">
           <span className="text-sm font-medium">Designation (IEC 61960 5.1, computed)</span>
           <output className="rounded border border-dashed border-rule px-2 py-1.5 font-mono" aria-live="polite" data-testid="designation">

@@ -3,7 +3,9 @@ import "server-only";
 import { sql } from "kysely";
 import type { CertificatePayload } from "@/lib/certificates/certificate-payload";
 import type { SignatureManifestation } from "@/lib/signatures/sign-record";
+import type { SortDirection } from "@/lib/lists/list-params";
 import type { Executor } from "../index";
+import { readPage, type Page } from "../paginate";
 
 /** A certificate's state: valid, replaced by an amendment (7.8.8), or withdrawn with a reason. */
 export type CertificateStatus = "valid" | "superseded" | "revoked";
@@ -137,14 +139,39 @@ function toView(r: Row): CertificateView {
 
 /** Newest first. Every filter narrows; dates are UTC calendar days. */
 export async function listCertificates(db: Executor, filter: CertificateFilter = {}): Promise<CertificateView[]> {
-  let q = base(db).orderBy("c.issued_at", "desc").orderBy("c.number", "desc").limit(500);
+  const q = filteredCertificates(db, filter).orderBy("c.issued_at", "desc").orderBy("c.number", "desc").limit(500);
+  return (await q.execute()).map(toView);
+}
+
+/** The columns the certificate list sorts by, and the column each stands for. */
+export const CERTIFICATE_SORTS = ["number", "issued", "cell", "subject"] as const;
+export type CertificateSort = (typeof CERTIFICATE_SORTS)[number];
+const CERTIFICATE_SORT_COLUMNS = {
+  number: "c.number",
+  issued: "c.issued_at",
+  cell: "cs.maker",
+  subject: sql`coalesce(sp.identifier, l.identifier)`,
+} as const;
+
+/** One page of the certificate list, sorted in SQL; ties fall back to the newest number first. */
+export async function listCertificatesPage(
+  db: Executor,
+  filter: CertificateFilter,
+  list: { page: number; pageSize: number; sort: CertificateSort; direction: SortDirection },
+): Promise<Page<CertificateView>> {
+  const q = filteredCertificates(db, filter).orderBy(CERTIFICATE_SORT_COLUMNS[list.sort], list.direction).orderBy("c.number", "desc");
+  return readPage(db, q, list, toView);
+}
+
+function filteredCertificates(db: Executor, filter: CertificateFilter) {
+  let q = base(db);
   if (filter.lotId) q = q.where(sql<boolean>`coalesce(c.lot_id, sp.lot_id) = ${filter.lotId}::uuid`);
   if (filter.cellSpecificationId) q = q.where("cs.id", "=", filter.cellSpecificationId);
   if (filter.issuedFrom) q = q.where(sql<boolean>`(c.issued_at at time zone 'UTC')::date >= ${filter.issuedFrom}::date`);
   if (filter.issuedTo) q = q.where(sql<boolean>`(c.issued_at at time zone 'UTC')::date <= ${filter.issuedTo}::date`);
   if (filter.verdict) q = q.where(sql<boolean>`c.payload->'conformity'->>'specimenConforms' = ${filter.verdict}`);
   if (filter.runId) q = q.where("c.run_id", "=", filter.runId);
-  return (await q.execute()).map(toView);
+  return q;
 }
 
 export async function getCertificateByNumber(db: Executor, number: string): Promise<CertificateView | null> {

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { listMySessions } from "@/lib/auth/account-security";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { getCurrentSession } from "@/lib/auth/session";
@@ -27,29 +28,27 @@ export default async function AccountPage() {
         <h2 id="sessions" className="mb-2 text-lg font-bold">
           Where you are signed in
         </h2>
-        <table className="mb-3 w-full border-collapse text-sm" data-testid="my-sessions">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Signed in</th>
-              <th className="py-2 pr-3">From address</th>
-              <th className="py-2 pr-3">Browser</th>
-              <th className="py-2">Ends if unused until</th>
-            </tr>
-          </thead>
+        <Table data-testid="my-sessions" className="mb-3">
+          <TableHead>
+            <HeaderCell>Signed in</HeaderCell>
+            <HeaderCell>From address</HeaderCell>
+            <HeaderCell>Browser</HeaderCell>
+            <HeaderCell>Ends if unused until</HeaderCell>
+          </TableHead>
           <tbody>
             {sessions.map((s) => (
-              <tr key={s.handle} className="border-b border-rule align-top">
-                <td className="py-2 pr-3 tabular-nums">
+              <Row key={s.handle} top>
+                <Cell className="tabular-nums">
                   {formatDateTime(s.createdAt)}
                   {s.current && <span className="ml-2 rounded bg-paper-deep px-1 text-xs">this browser</span>}
-                </td>
-                <td className="py-2 pr-3">{s.address ?? "not recorded"}</td>
-                <td className="py-2 pr-3 [overflow-wrap:anywhere]">{s.client ?? "not recorded"}</td>
-                <td className="py-2 tabular-nums">{formatDateTime(s.expiresAt)}</td>
-              </tr>
+                </Cell>
+                <Cell>{s.address ?? "not recorded"}</Cell>
+                <Cell className="[overflow-wrap:anywhere]">{s.client ?? "not recorded"}</Cell>
+                <Cell className="tabular-nums">{formatDateTime(s.expiresAt)}</Cell>
+              </Row>
             ))}
           </tbody>
-        </table>
+        </Table>
         <SignOutEverywhereForm count={sessions.length} />
       </section>
     </>

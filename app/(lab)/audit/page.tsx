@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
+import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listAuditActors, listAuditEvents } from "@/db/audit";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -38,50 +40,41 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         title="Audit trail"
         lead="Every sign-in, change and refusal, newest first. The database accepts new entries only: nothing here can be edited or removed."
         actions={
-          <a href={`/api/audit/trail.csv?${toAuditSearchParams(search)}`} className="text-sm text-copper-deep underline" download>
+          <PlainLink href={`/api/audit/trail.csv?${toAuditSearchParams(search)}`} download className="text-sm">
             Download these entries as CSV
-          </a>
+          </PlainLink>
         }
       />
       <form className="mb-4 grid gap-3 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit trail">
-        <label className="flex flex-col text-sm">
-          What happened
-          <select name="action" defaultValue={search.action ?? ""} className={control}>
-            <option value="">everything</option>
-            {AREAS.map(([code, words]) => (
-              <option key={code} value={code}>
-                {words}
-              </option>
-            ))}
-            {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
-              <option key={code} value={code}>
-                only: {label}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col text-sm">
-          Who
-          <select name="person" defaultValue={search.person ?? ""} className={control}>
-            <option value="">anyone</option>
-            {actors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.label}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col text-sm">
-          Kind of record
-          <select name="kind" defaultValue={search.kind ?? ""} className={control}>
-            <option value="">any</option>
-            {Object.entries(AUDIT_RECORD_TYPES).map(([code, words]) => (
-              <option key={code} value={code}>
-                {words}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField filter label="What happened" name="action" defaultValue={search.action ?? ""}>
+          <option value="">everything</option>
+          {AREAS.map(([code, words]) => (
+            <option key={code} value={code}>
+              {words}
+            </option>
+          ))}
+          {Object.entries(AUDIT_ACTION_LABELS).map(([code, label]) => (
+            <option key={code} value={code}>
+              only: {label}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField filter label="Who" name="person" defaultValue={search.person ?? ""}>
+          <option value="">anyone</option>
+          {actors.map((a) => (
+            <option key={a.id} value={a.id}>
+              {a.label}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField filter label="Kind of record" name="kind" defaultValue={search.kind ?? ""}>
+          <option value="">any</option>
+          {Object.entries(AUDIT_RECORD_TYPES).map(([code, words]) => (
+            <option key={code} value={code}>
+              {words}
+            </option>
+          ))}
+        </SelectField>
         <label className="flex flex-col text-sm">
           Record name contains
           <input name="record" defaultValue={search.record ?? ""} placeholder="e.g. R-00012, TPL-RC20, KV48" className={control} />
@@ -98,50 +91,46 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           <button type="submit" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper">
             Show
           </button>
-          <Link href="/audit" className="text-sm text-copper-deep underline">
+          <TextLink href="/audit" className="text-sm">
             Clear filters
-          </Link>
+          </TextLink>
         </div>
       </form>
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm" data-testid="audit-trail">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th scope="col" className="py-2 pr-3">When (UTC)</th>
-              <th scope="col" className="py-2 pr-3">Who</th>
-              <th scope="col" className="py-2 pr-3">What happened</th>
-              <th scope="col" className="py-2">What changed (was → now)</th>
-            </tr>
-          </thead>
-          <tbody>
-            {events.map((e) => (
-              <tr key={e.id} className="border-b border-rule align-top">
-                <td className="figures py-2 pr-3">
-                  <span className="whitespace-nowrap">{e.at.toISOString().slice(0, 10)}</span>{" "}
-                  <span className="whitespace-nowrap">{e.at.toISOString().slice(11, 19)}</span>
-                </td>
-                <td className="min-w-[9rem] py-2 pr-3 [overflow-wrap:break-word]">
-                  {e.actorLabel}
-                  {e.address && <span className="block text-xs text-ink-soft">from {e.address}</span>}
-                </td>
-                <td className="min-w-[10rem] py-2 pr-3">
-                  {describeAuditAction(e.action)}
-                  {e.entityType && <span className="block text-xs text-ink-soft">{describeAuditRecord(e.entityType, e.entityLabel)}</span>}
-                </td>
-                <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:anywhere]">
-                  <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {events.length === 0 && <p className="py-6 text-ink-soft">No entries match.</p>}
-      </div>
+      <Table data-testid="audit-trail">
+        <TableHead>
+          <HeaderCell>When (UTC)</HeaderCell>
+          <HeaderCell>Who</HeaderCell>
+          <HeaderCell>What happened</HeaderCell>
+          <HeaderCell>What changed (was → now)</HeaderCell>
+        </TableHead>
+        <tbody>
+          {events.map((e) => (
+            <Row key={e.id} top>
+              <Cell className="figures">
+                <span className="whitespace-nowrap">{e.at.toISOString().slice(0, 10)}</span>{" "}
+                <span className="whitespace-nowrap">{e.at.toISOString().slice(11, 19)}</span>
+              </Cell>
+              <Cell className="min-w-[9rem] [overflow-wrap:break-word]">
+                {e.actorLabel}
+                {e.address && <span className="block text-xs text-ink-soft">from {e.address}</span>}
+              </Cell>
+              <Cell className="min-w-[10rem]">
+                {describeAuditAction(e.action)}
+                {e.entityType && <span className="block text-xs text-ink-soft">{describeAuditRecord(e.entityType, e.entityLabel)}</span>}
+              </Cell>
+              <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:anywhere]">
+                <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
+              </td>
+            </Row>
+          ))}
+        </tbody>
+      </Table>
+      {events.length === 0 && <EmptyState>No entries match.</EmptyState>}
       {events.length === PAGE_SIZE && last && (
         <p className="mt-4">
-          <Link href={`/audit?${toAuditSearchParams(search, { before: last.id })}`} className="text-copper-deep underline">
+          <TextLink href={`/audit?${toAuditSearchParams(search, { before: last.id })}`}>
             Older entries
-          </Link>
+          </TextLink>
         </p>
       )}
     </>

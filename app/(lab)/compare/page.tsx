@@ -5,6 +5,7 @@ import { OverlayLegend } from "@/components/lot-results/overlay-legend";
 import { OverlayPresets } from "@/components/lot-results/overlay-presets";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { PlainLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
 import { listDischargeResults } from "@/lib/lots/results/list-discharge-results";
@@ -49,9 +50,9 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
               Overlay
             </h2>
             {rows.length > 0 && (
-              <a href={`/api/compare/results.csv?${csv}`} className="text-sm text-copper-deep underline">
+              <PlainLink href={`/api/compare/results.csv?${csv}`} className="text-sm">
                 These discharges as CSV
-              </a>
+              </PlainLink>
             )}
           </div>
           {chosen.missing.length > 0 && (

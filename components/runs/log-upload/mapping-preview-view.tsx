@@ -4,6 +4,7 @@ import { useMemo } from "react";
 import type uPlot from "uplot";
 import { Notice } from "@/components/ui/notice";
 import { UplotChart } from "@/components/runs/results/uplot-chart";
+import { Row, TableHead } from "@/components/ui/table";
 import type { MappingPreview } from "./read-mapping-preview";
 
 const SHOWN_ROWS = 8;
@@ -37,22 +38,20 @@ export function MappingPreviewView({ preview }: { preview: MappingPreview }) {
         The first {preview.rows.toLocaleString("en-GB")} rows read with this mapping (first {shown} shown; current positive while charging):
       </p>
       <table className="text-sm">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th className="px-2">Time (s)</th>
-            <th className="px-2">Voltage (V)</th>
-            <th className="px-2">Current (A)</th>
-            {c.temperatureC && <th className="px-2">Temperature (°C)</th>}
-          </tr>
-        </thead>
+        <TableHead>
+          <th className="px-2">Time (s)</th>
+          <th className="px-2">Voltage (V)</th>
+          <th className="px-2">Current (A)</th>
+          {c.temperatureC && <th className="px-2">Temperature (°C)</th>}
+        </TableHead>
         <tbody>
           {Array.from({ length: shown }, (_, k) => (
-            <tr key={k} className="border-b border-rule">
+            <Row key={k}>
               <td className="px-2">{c.timeS[k]}</td>
               <td className="px-2">{c.voltageV[k]}</td>
               <td className="px-2">{c.currentA[k]}</td>
               {c.temperatureC && <td className="px-2">{c.temperatureC[k]}</td>}
-            </tr>
+            </Row>
           ))}
         </tbody>
       </table>

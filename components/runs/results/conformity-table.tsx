@@ -1,3 +1,4 @@
+import { Row, Table, TableHead } from "@/components/ui/table";
 import { formatValue, type AcceptanceResult, type ConformityOutcome, type CriterionConformity } from "@/lib/conformance";
 import { explainDecisionRule, nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 
@@ -54,44 +55,40 @@ export function ConformityTable({
         <span className="font-semibold">Decision rule applied: {nameDecisionRule(decisionRule)}</span> (ISO/IEC 17025:2017 7.8.6).{" "}
         <span className="text-ink-soft">{explainDecisionRule(decisionRule)}</span>
       </p>
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm" data-testid="conformity-table">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              {["Criterion", "Cycle", "Limit", "Measured", "Expanded uncertainty U (k = 2)", "Outcome"].map((h) => (
-                <th key={h} scope="col" className="px-2 py-1">
-                  {h}
+      <Table data-testid="conformity-table">
+        <TableHead>
+          {["Criterion", "Cycle", "Limit", "Measured", "Expanded uncertainty U (k = 2)", "Outcome"].map((h) => (
+            <th key={h} scope="col" className="px-2 py-1">
+              {h}
+            </th>
+          ))}
+        </TableHead>
+        <tbody>
+          {conformity.map((entry) => {
+            const result = acceptance.find((candidate) => candidate.criterionId === entry.criterionId && candidate.cycle === entry.cycle);
+            const o = OUTCOME[entry.outcome];
+            const limits = showLimit(result);
+            return (
+              <Row key={entry.criterionId} top>
+                <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+                  {entry.criterionId}
                 </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {conformity.map((entry) => {
-              const result = acceptance.find((candidate) => candidate.criterionId === entry.criterionId && candidate.cycle === entry.cycle);
-              const o = OUTCOME[entry.outcome];
-              const limits = showLimit(result);
-              return (
-                <tr key={entry.criterionId} className="border-b border-rule align-top">
-                  <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
-                    {entry.criterionId}
-                  </th>
-                  <td className="px-2 py-1">{entry.cycle ?? "—"}</td>
-                  <td className="whitespace-nowrap px-2 py-1">
-                    {limits.limit}
-                    {limits.acceptance && <span className="block text-xs text-ink-soft">{limits.acceptance}</span>}
-                  </td>
-                  <td className="whitespace-nowrap px-2 py-1">{result?.measured?.value !== undefined && result.measured.unit ? formatValue(result.measured.value, result.measured.unit) : "—"}</td>
-                  <td className="whitespace-nowrap px-2 py-1">{showExpanded(result)}</td>
-                  <td className={`whitespace-nowrap px-2 py-1 font-semibold ${o.tone}`}>
-                    <span aria-hidden="true">{o.mark} </span>
-                    {entry.outcome}
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+                <td className="px-2 py-1">{entry.cycle ?? "—"}</td>
+                <td className="whitespace-nowrap px-2 py-1">
+                  {limits.limit}
+                  {limits.acceptance && <span className="block text-xs text-ink-soft">{limits.acceptance}</span>}
+                </td>
+                <td className="whitespace-nowrap px-2 py-1">{result?.measured?.value !== undefined && result.measured.unit ? formatValue(result.measured.value, result.measured.unit) : "—"}</td>
+                <td className="whitespace-nowrap px-2 py-1">{showExpanded(result)}</td>
+                <td className={`whitespace-nowrap px-2 py-1 font-semibold ${o.tone}`}>
+                  <span aria-hidden="true">{o.mark} </span>
+                  {entry.outcome}
+                </td>
+              </Row>
+            );
+          })}
+        </tbody>
+      </Table>
     </div>
   );
 }

@@ -2,6 +2,7 @@
 
 import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { useState } from "react";
+import { Row, Table } from "@/components/ui/table";
 import type { Finding, FindingOutcome, FindingValue } from "@/lib/conformance";
 
 export type FindingRow = Finding & { stepLabel: string };
@@ -53,7 +54,7 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({ data: findings, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
-    <table className="w-full border-collapse text-sm" data-testid="findings-table">
+    <Table data-testid="findings-table">
       <thead>
         {table.getHeaderGroups().map((g) => (
           <tr key={g.id} className="border-b border-rule text-left">
@@ -73,15 +74,15 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
       </thead>
       <tbody>
         {table.getRowModel().rows.map((row) => (
-          <tr key={row.id} className="border-b border-rule align-top">
+          <Row key={row.id} top>
             {row.getVisibleCells().map((cell) => (
               <td key={cell.id} className="px-2 py-1">
                 {flexRender(cell.column.columnDef.cell, cell.getContext())}
               </td>
             ))}
-          </tr>
+          </Row>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }

@@ -1,3 +1,4 @@
+import { Row, Table, TableHead } from "@/components/ui/table";
 import type { ResultRow } from "@/lib/runs/list-result-rows";
 
 function fixed(v: number | null, digits: number): string {
@@ -7,19 +8,17 @@ function fixed(v: number | null, digits: number): string {
 /** Each step's results with their units: Q in mAh and Ah, E in Wh, mean U in V, R in mΩ. */
 export function ResultsTable({ rows }: { rows: ResultRow[] }) {
   return (
-    <table className="w-full border-collapse text-sm" data-testid="results-table">
-      <thead>
-        <tr className="border-b border-rule text-left">
-          {["Step", "Duration (h)", "Q (mAh)", "Q (Ah)", "E (Wh)", "Mean U (V)", "End U (V)", "Max T (°C)", "R (mΩ)"].map((h) => (
-            <th key={h} scope="col" className="px-2 py-1">
-              {h}
-            </th>
-          ))}
-        </tr>
-      </thead>
+    <Table data-testid="results-table">
+      <TableHead>
+        {["Step", "Duration (h)", "Q (mAh)", "Q (Ah)", "E (Wh)", "Mean U (V)", "End U (V)", "Max T (°C)", "R (mΩ)"].map((h) => (
+          <th key={h} scope="col" className="px-2 py-1">
+            {h}
+          </th>
+        ))}
+      </TableHead>
       <tbody>
         {rows.map((r) => (
-          <tr key={`${r.stepId}#${r.cycle}`} className="border-b border-rule">
+          <Row key={`${r.stepId}#${r.cycle}`}>
             <th scope="row" className="px-2 py-1 text-left font-normal">
               {r.label}
               {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
@@ -32,9 +31,9 @@ export function ResultsTable({ rows }: { rows: ResultRow[] }) {
             <td className="px-2 py-1">{fixed(r.endVoltageV, 3)}</td>
             <td className="px-2 py-1">{fixed(r.maxTemperatureC, 1)}</td>
             <td className="px-2 py-1">{fixed(r.resistanceMOhm, 1)}</td>
-          </tr>
+          </Row>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }

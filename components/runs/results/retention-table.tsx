@@ -1,3 +1,4 @@
+import { Row, Table, TableHead } from "@/components/ui/table";
 import { formatRetentionBasis, formatRetentionReference, formatValue, listRetentionRows, type ChargeRetentionResult } from "@/lib/conformance";
 import { formatNumber } from "@/protocols";
 
@@ -11,34 +12,30 @@ export function RetentionTable({ retention }: { retention: ChargeRetentionResult
       <p className="text-sm" data-testid="retention-basis">
         {formatRetentionBasis(retention)}
       </p>
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm tabular-nums" data-testid="retention-table">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              {["Result", "Discharge", "Capacity", "Percentage", "Of"].map((h) => (
-                <th key={h} scope="col" className="px-2 py-1">
-                  {h}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {listRetentionRows(retention).map(({ name, share }) => (
-              <tr key={name} className="border-b border-rule align-top">
-                <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
-                  {name}
-                </th>
-                <td className="px-2 py-1">{share.label}</td>
-                <td className="whitespace-nowrap px-2 py-1">{share.capacityAh === null ? "—" : formatValue(share.capacityAh, "Ah")}</td>
-                <td className="whitespace-nowrap px-2 py-1">
-                  {share.percent === null ? "—" : `${formatNumber(share.percent, { minDecimals: 1, maxDecimals: 1 })} %`}
-                </td>
-                <td className="px-2 py-1">{share.percent === null ? share.statement : formatRetentionReference(retention)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <Table data-testid="retention-table" className="tabular-nums">
+        <TableHead>
+          {["Result", "Discharge", "Capacity", "Percentage", "Of"].map((h) => (
+            <th key={h} scope="col" className="px-2 py-1">
+              {h}
+            </th>
+          ))}
+        </TableHead>
+        <tbody>
+          {listRetentionRows(retention).map(({ name, share }) => (
+            <Row key={name} top>
+              <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+                {name}
+              </th>
+              <td className="px-2 py-1">{share.label}</td>
+              <td className="whitespace-nowrap px-2 py-1">{share.capacityAh === null ? "—" : formatValue(share.capacityAh, "Ah")}</td>
+              <td className="whitespace-nowrap px-2 py-1">
+                {share.percent === null ? "—" : `${formatNumber(share.percent, { minDecimals: 1, maxDecimals: 1 })} %`}
+              </td>
+              <td className="px-2 py-1">{share.percent === null ? share.statement : formatRetentionReference(retention)}</td>
+            </Row>
+          ))}
+        </tbody>
+      </Table>
     </div>
   );
 }

@@ -1,4 +1,5 @@
 import { useId } from "react";
+import { Row, Table } from "@/components/ui/table";
 import type { UncertaintyBudget } from "@/lib/analysis";
 import { formatBudgetTable } from "@/lib/conformance";
 
@@ -38,7 +39,7 @@ export function UncertaintyBudgetTable({ budget, title }: { budget: UncertaintyB
       </figcaption>
       <p className="text-xs text-ink-soft xl:hidden">Scroll the table sideways for u(xᵢ), relative u, sensitivity and contribution.</p>
       <div className="overflow-x-auto rounded border border-rule bg-white" role="region" aria-labelledby={captionId} tabIndex={0}>
-        <table className="w-full border-collapse text-sm">
+        <Table>
           <thead>
             <tr className="border-b border-rule text-left align-bottom">
               {COLUMNS.map((column) => (
@@ -51,7 +52,7 @@ export function UncertaintyBudgetTable({ budget, title }: { budget: UncertaintyB
           </thead>
           <tbody>
             {table.rows.map((row, k) => (
-              <tr key={`${k}-${row.quantity}-${row.source}`} className="border-b border-rule">
+              <Row key={`${k}-${row.quantity}-${row.source}`}>
                 <th scope="row" className={`${cell} whitespace-nowrap text-left font-normal`}>
                   {row.quantity}
                 </th>
@@ -64,7 +65,7 @@ export function UncertaintyBudgetTable({ budget, title }: { budget: UncertaintyB
                 <td className={figure}>{row.relativeStandardUncertainty}</td>
                 <td className={figure}>{row.sensitivity}</td>
                 <td className={figure}>{row.contribution}</td>
-              </tr>
+              </Row>
             ))}
           </tbody>
           {/* The summary sits under the first columns, so it shows without scrolling on a narrow screen. */}
@@ -96,7 +97,7 @@ export function UncertaintyBudgetTable({ budget, title }: { budget: UncertaintyB
               </td>
             </tr>
           </tfoot>
-        </table>
+        </Table>
       </div>
     </figure>
   );

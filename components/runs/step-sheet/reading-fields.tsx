@@ -5,6 +5,7 @@ import { isPlausibleAmbient } from "@/lib/conformance/plausible-ambient";
 import type { ResolvedStep } from "@/protocols";
 import { describeStepRange, isOutsideStepRange } from "./check-new-reading";
 import { toIso } from "./local-time";
+import { SelectField } from "@/components/ui/select-field";
 
 function parseTyped(text: string): number | null {
   const n = Number(text.trim().replace(",", "."));
@@ -66,17 +67,14 @@ export function ReadingFields({
             className="figures w-28 rounded border border-rule px-2 py-2 aria-[invalid=true]:border-deviates"
           />
         </label>
-        <label className="flex flex-col text-sm">
-          Read on
-          <select name="readingInstrument" className="rounded border border-rule bg-white px-2 py-2" defaultValue={ambientInstruments[0]?.identifier ?? ""}>
-            {ambientInstruments.map((i) => (
-              <option key={i.identifier} value={i.identifier}>
-                {i.label}
-              </option>
-            ))}
-            <option value="">an instrument not on this run</option>
-          </select>
-        </label>
+        <SelectField filter label="Read on" name="readingInstrument" defaultValue={ambientInstruments[0]?.identifier ?? ""}>
+          {ambientInstruments.map((i) => (
+            <option key={i.identifier} value={i.identifier}>
+              {i.label}
+            </option>
+          ))}
+          <option value="">an instrument not on this run</option>
+        </SelectField>
         {late && (
           <label className="flex flex-col text-sm">
             Taken at

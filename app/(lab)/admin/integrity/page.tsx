@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { Table } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -99,7 +100,7 @@ export default async function IntegrityPage({ searchParams }: { searchParams: Pr
             No stored file has been refused.
           </p>
         ) : (
-          <table className="figures w-full text-sm" data-testid="integrity-faults">
+          <Table data-testid="integrity-faults">
             <thead>
               <tr className="text-left text-ink-soft">
                 <th className={cell}>When</th>
@@ -124,7 +125,7 @@ export default async function IntegrityPage({ searchParams }: { searchParams: Pr
                 );
               })}
             </tbody>
-          </table>
+          </Table>
         )}
       </section>
     </>

@@ -1,3 +1,4 @@
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import type { CaughtMail } from "@/lib/mail/read-catcher-inbox";
 import { AddressList, MessageText, Moment } from "./mail-parts";
 
@@ -6,30 +7,28 @@ export function CatcherInbox({ messages }: { messages: CaughtMail[] }) {
   return (
     <div className="overflow-x-auto">
       <p className="mb-3 text-sm text-ink-soft">Newest first; open a subject to read the message as it arrived.</p>
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th className="py-2 pr-3">Arrived</th>
-            <th className="py-2 pr-3">Message</th>
-            <th className="py-2">Delivered to</th>
-          </tr>
-        </thead>
+      <Table>
+        <TableHead>
+          <HeaderCell>Arrived</HeaderCell>
+          <HeaderCell>Message</HeaderCell>
+          <HeaderCell>Delivered to</HeaderCell>
+        </TableHead>
         <tbody>
           {messages.map((m) => (
-            <tr key={m.id} className="border-b border-rule align-top" data-testid="caught-message">
-              <td className="py-2 pr-3">
+            <Row key={m.id} data-testid="caught-message" top>
+              <Cell>
                 <Moment at={m.receivedAt} />
-              </td>
-              <td className="py-2 pr-3">
+              </Cell>
+              <Cell>
                 <MessageText subject={m.subject} text={m.text} note={`From ${m.from}`} />
-              </td>
-              <td className="py-2">
+              </Cell>
+              <Cell>
                 <AddressList addresses={m.to} />
-              </td>
-            </tr>
+              </Cell>
+            </Row>
           ))}
         </tbody>
-      </table>
+      </Table>
     </div>
   );
 }

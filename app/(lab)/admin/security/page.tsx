@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { SIGN_IN_LIMITS } from "@/lib/auth/sign-in";
 import { listRefusedRequests, listSignInLimits } from "@/lib/auth/sign-in-limits";
@@ -30,32 +31,30 @@ export default async function SignInSecurityPage() {
         {rows.length === 0 ? (
           <p className="text-sm text-ink-soft">None: nobody is slowed down or refused.</p>
         ) : (
-          <table className="w-full border-collapse text-sm" data-testid="sign-in-limits">
-            <thead>
-              <tr className="border-b border-rule text-left">
-                <th className="py-2 pr-3">Account</th>
-                <th className="py-2 pr-3">Address</th>
-                <th className="py-2 pr-3">Failures</th>
-                <th className="py-2 pr-3">Last</th>
-                <th className="py-2 pr-3">Effect</th>
-                <th className="py-2">Clear</th>
-              </tr>
-            </thead>
+          <Table data-testid="sign-in-limits">
+            <TableHead>
+              <HeaderCell>Account</HeaderCell>
+              <HeaderCell>Address</HeaderCell>
+              <HeaderCell>Failures</HeaderCell>
+              <HeaderCell>Last</HeaderCell>
+              <HeaderCell>Effect</HeaderCell>
+              <HeaderCell>Clear</HeaderCell>
+            </TableHead>
             <tbody>
               {rows.map((r) => (
-                <tr key={`${r.email}|${r.address}`} className="border-b border-rule align-top">
-                  <td className="py-2 pr-3">{r.email ?? "any"}</td>
-                  <td className="py-2 pr-3">{r.address ?? "any"}</td>
-                  <td className="py-2 pr-3 tabular-nums">{r.failures}</td>
-                  <td className="py-2 pr-3 tabular-nums">{formatDateTime(r.lastAt)}</td>
-                  <td className="py-2 pr-3">{r.what}</td>
-                  <td className="py-2">
+                <Row key={`${r.email}|${r.address}`} top>
+                  <Cell>{r.email ?? "any"}</Cell>
+                  <Cell>{r.address ?? "any"}</Cell>
+                  <Cell className="tabular-nums">{r.failures}</Cell>
+                  <Cell className="tabular-nums">{formatDateTime(r.lastAt)}</Cell>
+                  <Cell>{r.what}</Cell>
+                  <Cell>
                     <ClearLimitButton email={r.email} address={r.address} />
-                  </td>
-                </tr>
+                  </Cell>
+                </Row>
               ))}
             </tbody>
-          </table>
+          </Table>
         )}
       </section>
       <section aria-labelledby="refused">
@@ -66,26 +65,24 @@ export default async function SignInSecurityPage() {
         {refused.length === 0 ? (
           <p className="text-sm text-ink-soft">None.</p>
         ) : (
-          <table className="w-full border-collapse text-sm">
-            <thead>
-              <tr className="border-b border-rule text-left">
-                <th className="py-2 pr-3">From</th>
-                <th className="py-2 pr-3">Origin sent</th>
-                <th className="py-2 pr-3">Last address asked for</th>
-                <th className="py-2">Refused</th>
-              </tr>
-            </thead>
+          <Table>
+            <TableHead>
+              <HeaderCell>From</HeaderCell>
+              <HeaderCell>Origin sent</HeaderCell>
+              <HeaderCell>Last address asked for</HeaderCell>
+              <HeaderCell>Refused</HeaderCell>
+            </TableHead>
             <tbody>
               {refused.map((r) => (
-                <tr key={`${r.window_start.toISOString()}|${r.origin}`} className="border-b border-rule align-top">
-                  <td className="py-2 pr-3 tabular-nums">{formatDateTime(r.window_start)}</td>
-                  <td className="py-2 pr-3 [overflow-wrap:anywhere]">{r.origin}</td>
-                  <td className="py-2 pr-3 [overflow-wrap:anywhere]">{r.last_path}</td>
-                  <td className="py-2 tabular-nums">{r.count} {r.count === 1 ? "time" : "times"}</td>
-                </tr>
+                <Row key={`${r.window_start.toISOString()}|${r.origin}`} top>
+                  <Cell className="tabular-nums">{formatDateTime(r.window_start)}</Cell>
+                  <Cell className="[overflow-wrap:anywhere]">{r.origin}</Cell>
+                  <Cell className="[overflow-wrap:anywhere]">{r.last_path}</Cell>
+                  <Cell className="tabular-nums">{r.count} {r.count === 1 ? "time" : "times"}</Cell>
+                </Row>
               ))}
             </tbody>
-          </table>
+          </Table>
         )}
       </section>
     </>

@@ -3,6 +3,7 @@
 import { useEffect, useRef } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { SelectField } from "@/components/ui/select-field";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, ROLES } from "@/lib/auth/permissions";
 import { useFormAction } from "@/components/ui/use-form-action";
@@ -25,15 +26,13 @@ export function CreateUserForm() {
       )}
       <Field label="Name" name="displayName" autoComplete="off" errors={state.fieldErrors?.displayName} />
       <Field label="E-mail" name="email" type="email" autoComplete="off" errors={state.fieldErrors?.email} />
-      <Field label="Role" name="role" errors={state.fieldErrors?.role}>
-        <select id="field-role" name="role" defaultValue="operator" className="rounded border border-rule bg-white px-2 py-1.5">
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
-        </select>
-      </Field>
+      <SelectField label="Role" name="role" errors={state.fieldErrors?.role} defaultValue="operator">
+        {ROLES.map((r) => (
+          <option key={r} value={r}>
+            {ROLE_LABELS[r]}
+          </option>
+        ))}
+      </SelectField>
       <Field
         label="First password"
         name="password"

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { countUserSessions } from "@/db/sessions";
 import { listUsers } from "@/db/users";
@@ -24,9 +25,9 @@ export default async function UsersPage() {
           <>
             Everyone who may sign in, with one role each. Deactivating someone, or setting a new password for them, signs them out at once; their records stay.
             Slowed-down and refused sign-ins, and requests refused from other sites:{" "}
-            <Link href="/admin/security" className="text-copper-deep underline">
+            <TextLink href="/admin/security">
               Sign-in security
-            </Link>
+            </TextLink>
             .
           </>
         }
@@ -35,34 +36,32 @@ export default async function UsersPage() {
         <h2 id="people" className="sr-only">
           People
         </h2>
-        <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Name</th>
-              <th className="py-2 pr-3">E-mail</th>
-              <th className="py-2 pr-3">Role</th>
-              <th className="py-2 pr-3">Status</th>
-              <th className="py-2 pr-3">Change</th>
-              <th className="py-2">Password and sessions</th>
-            </tr>
-          </thead>
+        <Table>
+          <TableHead>
+            <HeaderCell>Name</HeaderCell>
+            <HeaderCell>E-mail</HeaderCell>
+            <HeaderCell>Role</HeaderCell>
+            <HeaderCell>Status</HeaderCell>
+            <HeaderCell>Change</HeaderCell>
+            <HeaderCell>Password and sessions</HeaderCell>
+          </TableHead>
           <tbody>
             {users.map((u, i) => (
-              <tr key={u.id} className="border-b border-rule align-top" data-testid={`user-${u.email}`}>
-                <td className="py-2 pr-3 font-medium">{u.displayName}</td>
-                <td className="py-2 pr-3">{u.email}</td>
-                <td className="py-2 pr-3">{ROLE_LABELS[u.role]}</td>
-                <td className="py-2 pr-3">{u.active ? "active" : <span className="text-deviates">deactivated</span>}</td>
-                <td className="py-2">
+              <Row key={u.id} data-testid={`user-${u.email}`} top>
+                <Cell className="font-medium">{u.displayName}</Cell>
+                <Cell>{u.email}</Cell>
+                <Cell>{ROLE_LABELS[u.role]}</Cell>
+                <Cell>{u.active ? "active" : <span className="text-deviates">deactivated</span>}</Cell>
+                <Cell>
                   <UserRowControls userId={u.id} name={u.displayName} role={u.role} active={u.active} isSelf={u.id === me.id} />
-                </td>
-                <td className="py-2">
+                </Cell>
+                <Cell>
                   <UserAccessControls userId={u.id} name={u.displayName} sessions={sessions[i] ?? 0} isSelf={u.id === me.id} />
-                </td>
-              </tr>
+                </Cell>
+              </Row>
             ))}
           </tbody>
-        </table>
+        </Table>
       </section>
       <section aria-labelledby="add" className="rounded border border-rule bg-white p-5">
         <h2 id="add" className="mb-3 text-lg font-bold">

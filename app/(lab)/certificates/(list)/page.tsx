@@ -1,25 +1,79 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { CertificateStatusWords } from "@/components/certificates/certificate-status";
 import { VerdictWords } from "@/components/certificates/verdict-words";
+import { DataTable, type DataColumn } from "@/components/ui/data-table";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listCellSpecifications } from "@/db/cell-specifications";
-import { listCertificates } from "@/db/certificates";
+import { CERTIFICATE_SORTS, listCertificatesPage, type CertificateSort, type CertificateView } from "@/db/certificates";
 import { listLots } from "@/db/lots";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { parseCertificateFilter, toCertificateQuery } from "@/lib/certificate-list/certificate-filter";
 import { formatDateTime } from "@/lib/format-date-time";
+import { keptParams, PAGE_SIZE, parseListParams } from "@/lib/lists/list-params";
 
 export const metadata: Metadata = { title: "Certificates" };
 
-const selectClass = "rounded border border-rule bg-white px-2 py-1.5 text-sm";
+const dateClass = "rounded border border-rule bg-white px-2 py-1.5 text-sm";
+
+const VERDICTS = ["conforms", "does not conform", "conditional pass", "conditional fail", "not decided"];
+
+const COLUMNS: DataColumn<CertificateView, CertificateSort>[] = [
+  {
+    header: "Certificate",
+    sort: "number",
+    firstDirection: "desc",
+    cell: (c) => (
+      <>
+        <TextLink href={`/certificates/${c.number}`} className="font-mono font-medium">
+          {c.number}
+        </TextLink>
+        {c.replacesNumber && <span className="block text-xs text-ink-soft">replaces {c.replacesNumber}</span>}
+      </>
+    ),
+  },
+  { header: "State", cell: (c) => <CertificateStatusWords status={c.status} /> },
+  { header: "Statement of conformity", cell: (c) => <VerdictWords verdict={c.verdict} /> },
+  {
+    header: "Specimen or lot",
+    sort: "subject",
+    cell: (c) => (
+      <>
+        {c.specimenIdentifier ?? c.lotIdentifier}
+        {c.runNumber && <span className="block text-xs text-ink-soft">run {c.runNumber}</span>}
+      </>
+    ),
+  },
+  { header: "Cell", sort: "cell", cell: (c) => c.cellLabel },
+  {
+    header: "Issued",
+    sort: "issued",
+    firstDirection: "desc",
+    className: "whitespace-nowrap",
+    cell: (c) => (
+      <>
+        {formatDateTime(c.issuedAt)}
+        <span className="block text-xs text-ink-soft">{c.issuedByName}</span>
+      </>
+    ),
+  },
+  { header: "PDF", cell: (c) => <PlainLink href={`/api/certificates/${c.number}/pdf`}>Download</PlainLink> },
+];
 
 export default async function CertificatesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePageAccess("/certificates");
-  const filter = parseCertificateFilter(await searchParams);
+  const raw = await searchParams;
+  const filter = parseCertificateFilter(raw);
   const db = getDb();
-  const [certificates, lots, specs] = await Promise.all([listCertificates(db, toCertificateQuery(filter)), listLots(db), listCellSpecifications(db)]);
+  const list = parseListParams(raw, { sorts: CERTIFICATE_SORTS, defaultSort: "issued", defaultDirection: "desc" });
+  const [certificates, lots, specs] = await Promise.all([
+    listCertificatesPage(db, toCertificateQuery(filter), { ...list, pageSize: PAGE_SIZE }),
+    listLots(db),
+    listCellSpecifications(db),
+  ]);
+  const kept = keptParams(raw);
   const filtered = Object.values(filter).some(Boolean);
   return (
     <>
@@ -28,104 +82,58 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
         lead="Signed reports of accepted runs. Each states its own number on every page and can be checked by anyone on its public page."
       />
       <form method="get" className="mb-4 flex flex-wrap items-end gap-3" aria-label="Filter certificates">
-        <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium">Lot</span>
-          <select name="lot" defaultValue={filter.lot ?? ""} className={selectClass}>
-            <option value="">any lot</option>
-            {lots.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.identifier}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium">Cell specification</span>
-          <select name="spec" defaultValue={filter.spec ?? ""} className={selectClass}>
-            <option value="">any cell</option>
-            {specs.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.maker} {s.model}
-              </option>
-            ))}
-          </select>
-        </label>
+        {kept.sort && <input type="hidden" name="sort" value={kept.sort} />}
+        {kept.dir && <input type="hidden" name="dir" value={kept.dir} />}
+        <SelectField
+          filter
+          label="Lot"
+          name="lot"
+          defaultValue={filter.lot ?? ""}
+          options={[{ value: "", label: "any lot" }, ...lots.map((l) => ({ value: l.id, label: l.identifier }))]}
+        />
+        <SelectField
+          filter
+          label="Cell specification"
+          name="spec"
+          defaultValue={filter.spec ?? ""}
+          options={[{ value: "", label: "any cell" }, ...specs.map((s) => ({ value: s.id, label: `${s.maker} ${s.model}` }))]}
+        />
         <label className="flex flex-col gap-1 text-sm">
           <span className="font-medium">Issued from</span>
-          <input type="date" name="from" defaultValue={filter.from ?? ""} className={selectClass} />
+          <input type="date" name="from" defaultValue={filter.from ?? ""} className={dateClass} />
         </label>
         <label className="flex flex-col gap-1 text-sm">
           <span className="font-medium">Issued to</span>
-          <input type="date" name="to" defaultValue={filter.to ?? ""} className={selectClass} />
+          <input type="date" name="to" defaultValue={filter.to ?? ""} className={dateClass} />
         </label>
-        <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium">Statement of conformity</span>
-          <select name="verdict" defaultValue={filter.verdict ?? ""} className={selectClass}>
-            <option value="">any</option>
-            <option value="conforms">conforms</option>
-            <option value="does not conform">does not conform</option>
-            <option value="conditional pass">conditional pass</option>
-            <option value="conditional fail">conditional fail</option>
-            <option value="not decided">not decided</option>
-          </select>
-        </label>
+        <SelectField
+          filter
+          label="Statement of conformity"
+          name="verdict"
+          defaultValue={filter.verdict ?? ""}
+          options={[{ value: "", label: "any" }, ...VERDICTS.map((v) => ({ value: v, label: v }))]}
+        />
         <button type="submit" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
           Show
         </button>
         {filtered && (
-          <Link href="/certificates" className="py-1.5 text-sm text-copper-deep underline">
+          <TextLink href="/certificates" className="py-1.5 text-sm">
             Clear the filter
-          </Link>
+          </TextLink>
         )}
       </form>
-      <div className="overflow-x-auto">
-        <table className="figures w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Certificate</th>
-              <th className="py-2 pr-3">State</th>
-              <th className="py-2 pr-3">Statement of conformity</th>
-              <th className="py-2 pr-3">Specimen or lot</th>
-              <th className="py-2 pr-3">Cell</th>
-              <th className="py-2 pr-3">Issued</th>
-              <th className="py-2">PDF</th>
-            </tr>
-          </thead>
-          <tbody>
-            {certificates.map((c) => (
-              <tr key={c.id} className="border-b border-rule">
-                <td className="py-2 pr-3">
-                  <Link href={`/certificates/${c.number}`} className="font-mono font-medium text-copper-deep underline">
-                    {c.number}
-                  </Link>
-                  {c.replacesNumber && <span className="block text-xs text-ink-soft">replaces {c.replacesNumber}</span>}
-                </td>
-                <td className="py-2 pr-3">
-                  <CertificateStatusWords status={c.status} />
-                </td>
-                <td className="py-2 pr-3">
-                  <VerdictWords verdict={c.verdict} />
-                </td>
-                <td className="py-2 pr-3">
-                  {c.specimenIdentifier ?? c.lotIdentifier}
-                  {c.runNumber && <span className="block text-xs text-ink-soft">run {c.runNumber}</span>}
-                </td>
-                <td className="py-2 pr-3">{c.cellLabel}</td>
-                <td className="py-2 pr-3 whitespace-nowrap">
-                  {formatDateTime(c.issuedAt)}
-                  <span className="block text-xs text-ink-soft">{c.issuedByName}</span>
-                </td>
-                <td className="py-2">
-                  <a href={`/api/certificates/${c.number}/pdf`} className="text-copper-deep underline">
-                    Download
-                  </a>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {certificates.length === 0 && <p className="py-6 text-ink-soft">{filtered ? "No certificate matches this filter." : "No certificate has been issued yet."}</p>}
-      </div>
+      <DataTable
+        rows={certificates.rows}
+        rowKey={(c) => c.id}
+        columns={COLUMNS}
+        path="/certificates"
+        kept={kept}
+        sort={{ key: list.sort, direction: list.direction }}
+        page={certificates}
+        empty={filtered ? "No certificate matches this filter." : "No certificate has been issued yet."}
+        noun={["certificate", "certificates"]}
+        testId="certificate-list"
+      />
     </>
   );
 }

@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function CertificateNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such certificate</h1>
-      <Link href="/certificates" className="text-copper-deep underline">
+      <TextLink href="/certificates">
         All certificates
-      </Link>
+      </TextLink>
     </div>
   );
 }

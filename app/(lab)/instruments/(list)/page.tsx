@@ -4,6 +4,8 @@ import { InstrumentRow } from "@/components/instruments/instrument-row";
 import { Notice } from "@/components/ui/notice";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
+import { EmptyState, HeaderCell, Table, TableHead } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listInstruments } from "@/db/instruments";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -56,17 +58,14 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
         )}
       </div>
       <form className="mb-4 flex flex-wrap items-end gap-3" role="search">
-        <label className="flex flex-col text-sm">
-          Kind
-          <select name="kind" defaultValue={kind ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
-            <option value="">every kind</option>
-            {INSTRUMENT_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {INSTRUMENT_KIND_LABELS[k]}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField filter label="Kind" name="kind" defaultValue={kind ?? ""}>
+          <option value="">every kind</option>
+          {INSTRUMENT_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {INSTRUMENT_KIND_LABELS[k]}
+            </option>
+          ))}
+        </SelectField>
         <label className="flex items-center gap-2 py-1.5 text-sm">
           <input type="checkbox" name="inuse" value="1" defaultChecked={inuse === "1"} />
           Only instruments in use
@@ -75,26 +74,22 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
           Show
         </button>
       </form>
-      <div className="overflow-x-auto">
-        <table className="figures w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Calibration</th>
-              <th className="py-2 pr-3">Instrument</th>
-              <th className="py-2 pr-3">Accuracy</th>
-              <th className="py-2 pr-3">Certificate, calibrated on</th>
-              <th className="py-2 pr-3">Due on</th>
-              {manage && <th className="py-2">Change</th>}
-            </tr>
-          </thead>
-          <tbody>
-            {instruments.map((i) => (
-              <InstrumentRow key={i.id} instrument={i} inUseAction={manage ? setInstrumentInUseAction : null} />
-            ))}
-          </tbody>
-        </table>
-        {instruments.length === 0 && <p className="py-6 text-ink-soft">No instruments match.</p>}
-      </div>
+      <Table>
+        <TableHead>
+          <HeaderCell>Calibration</HeaderCell>
+          <HeaderCell>Instrument</HeaderCell>
+          <HeaderCell>Accuracy</HeaderCell>
+          <HeaderCell>Certificate, calibrated on</HeaderCell>
+          <HeaderCell>Due on</HeaderCell>
+          {manage && <HeaderCell>Change</HeaderCell>}
+        </TableHead>
+        <tbody>
+          {instruments.map((i) => (
+            <InstrumentRow key={i.id} instrument={i} inUseAction={manage ? setInstrumentInUseAction : null} />
+          ))}
+        </tbody>
+      </Table>
+      {instruments.length === 0 && <EmptyState>No instruments match.</EmptyState>}
     </>
   );
 }

@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function InstrumentNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such instrument</h1>
-      <Link href="/instruments" className="text-copper-deep underline">
+      <TextLink href="/instruments">
         The instrument register
-      </Link>
+      </TextLink>
     </div>
   );
 }

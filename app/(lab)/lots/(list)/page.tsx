@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { z } from "zod";
 import { ActionLink } from "@/components/ui/action-link";
+import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
@@ -30,39 +31,35 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
         }
       />
       <TextSearch label="Lot, supplier, maker or model" value={q} />
-      <div className="overflow-x-auto">
-        <table className="figures w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Lot</th>
-              <th className="py-2 pr-3">Cell</th>
-              <th className="py-2 pr-3">Supplier</th>
-              <th className="py-2 pr-3 text-right">Cells received</th>
-              <th className="py-2 pr-3 text-right">Specimens registered</th>
-              <th className="py-2">Date received</th>
-            </tr>
-          </thead>
-          <tbody>
-            {lots.map((l) => (
-              <tr key={l.id} className="border-b border-rule">
-                <td className="py-2 pr-3">
-                  <Link href={`/lots/${l.id}`} className="font-medium text-copper-deep underline">
-                    {l.identifier}
-                  </Link>
-                </td>
-                <td className="py-2 pr-3">
-                  {l.specification.maker} {l.specification.model} <span className="font-mono text-xs text-ink-soft">{l.specification.designation}</span>
-                </td>
-                <td className="py-2 pr-3">{l.supplier}</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(l.quantityReceived)} cells</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(l.specimenCount)}</td>
-                <td className="py-2 whitespace-nowrap">{l.receivedOn}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {lots.length === 0 && <p className="py-6 text-ink-soft">No lots match.</p>}
-      </div>
+      <Table>
+        <TableHead>
+          <HeaderCell>Lot</HeaderCell>
+          <HeaderCell>Cell</HeaderCell>
+          <HeaderCell>Supplier</HeaderCell>
+          <HeaderCell className="text-right">Cells received</HeaderCell>
+          <HeaderCell className="text-right">Specimens registered</HeaderCell>
+          <HeaderCell>Date received</HeaderCell>
+        </TableHead>
+        <tbody>
+          {lots.map((l) => (
+            <Row key={l.id}>
+              <Cell>
+                <TextLink href={`/lots/${l.id}`} className="font-medium">
+                  {l.identifier}
+                </TextLink>
+              </Cell>
+              <Cell>
+                {l.specification.maker} {l.specification.model} <span className="font-mono text-xs text-ink-soft">{l.specification.designation}</span>
+              </Cell>
+              <Cell>{l.supplier}</Cell>
+              <Cell className="text-right">{formatNumber(l.quantityReceived)} cells</Cell>
+              <Cell className="text-right">{formatNumber(l.specimenCount)}</Cell>
+              <Cell className="whitespace-nowrap">{l.receivedOn}</Cell>
+            </Row>
+          ))}
+        </tbody>
+      </Table>
+      {lots.length === 0 && <EmptyState>No lots match.</EmptyState>}
     </>
   );
 }

@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function LotNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such lot</h1>
-      <Link href="/lots" className="text-copper-deep underline">
+      <TextLink href="/lots">
         All lots
-      </Link>
+      </TextLink>
     </div>
   );
 }

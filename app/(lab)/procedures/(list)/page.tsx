@@ -1,9 +1,11 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { z } from "zod";
 import { StatusBadge } from "@/components/procedures/status-badge";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
+import { SelectField } from "@/components/ui/select-field";
+import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProcedures } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -44,56 +46,49 @@ export default async function ProceduresPage({ searchParams }: { searchParams: P
           <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
         </label>
         {author && (
-          <label className="flex flex-col text-sm">
-            Newest version is
-            <select name="status" defaultValue={status ?? ""} className="rounded border border-rule bg-white px-2 py-1.5">
-              <option value="">any status</option>
-              <option value="draft">a draft</option>
-              <option value="in_review">in review</option>
-              <option value="released">released</option>
-              <option value="withdrawn">withdrawn</option>
-            </select>
-          </label>
+          <SelectField filter label="Newest version is" name="status" defaultValue={status ?? ""}>
+            <option value="">any status</option>
+            <option value="draft">a draft</option>
+            <option value="in_review">in review</option>
+            <option value="released">released</option>
+            <option value="withdrawn">withdrawn</option>
+          </SelectField>
         )}
         <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
           Show
         </button>
       </form>
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Code</th>
-              <th className="py-2 pr-3">Title</th>
-              <th className="py-2 pr-3">Standard, clause</th>
-              <th className="py-2 pr-3">Released version</th>
-              {author && <th className="py-2 pr-3">Newest version</th>}
-            </tr>
-          </thead>
-          <tbody>
-            {procedures.map((p) => (
-              <tr key={p.id} className="border-b border-rule">
-                <td className="py-2 pr-3 font-mono">{p.code}</td>
-                <td className="py-2 pr-3">
-                  <Link href={`/procedures/${p.id}`} className="font-medium text-copper-deep underline">
-                    {p.title}
-                  </Link>
-                </td>
-                <td className="py-2 pr-3">
-                  {p.standard} {p.clause}
-                </td>
-                <td className="figures py-2 pr-3">{p.releasedNumber ? `version ${p.releasedNumber}` : "none yet"}</td>
-                {author && (
-                  <td className="py-2 pr-3">
-                    version {p.latestNumber} <StatusBadge status={p.latestStatus} />
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {procedures.length === 0 && <p className="py-6 text-ink-soft">No procedures match.</p>}
-      </div>
+      <Table>
+        <TableHead>
+          <HeaderCell>Code</HeaderCell>
+          <HeaderCell>Title</HeaderCell>
+          <HeaderCell>Standard, clause</HeaderCell>
+          <HeaderCell>Released version</HeaderCell>
+          {author && <HeaderCell>Newest version</HeaderCell>}
+        </TableHead>
+        <tbody>
+          {procedures.map((p) => (
+            <Row key={p.id}>
+              <Cell className="font-mono">{p.code}</Cell>
+              <Cell>
+                <TextLink href={`/procedures/${p.id}`} className="font-medium">
+                  {p.title}
+                </TextLink>
+              </Cell>
+              <Cell>
+                {p.standard} {p.clause}
+              </Cell>
+              <Cell className="figures">{p.releasedNumber ? `version ${p.releasedNumber}` : "none yet"}</Cell>
+              {author && (
+                <Cell>
+                  version {p.latestNumber} <StatusBadge status={p.latestStatus} />
+                </Cell>
+              )}
+            </Row>
+          ))}
+        </tbody>
+      </Table>
+      {procedures.length === 0 && <EmptyState>No procedures match.</EmptyState>}
     </>
   );
 }

@@ -1,13 +1,13 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function ProcedureNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such procedure</h1>
       <p className="mb-4">The procedure or version you asked for does not exist, or is not released yet.</p>
-      <Link href="/procedures" className="text-copper-deep underline">
+      <TextLink href="/procedures">
         All procedures
-      </Link>
+      </TextLink>
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProcedures } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -37,9 +37,9 @@ export default async function NewProcedurePage() {
         title="New procedure"
         lead="Start from a built-in template or from a blank procedure. You edit everything on the next page; nothing runs until a second engineer releases it."
         actions={
-          <Link href="/procedures" className="text-sm text-copper-deep underline">
+          <TextLink href="/procedures" className="text-sm">
             All procedures
-          </Link>
+          </TextLink>
         }
       />
       <NewProcedureForm options={options} existingCodes={existingCodes} />

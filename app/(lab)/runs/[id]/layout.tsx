@@ -1,10 +1,10 @@
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import { z } from "zod";
 import { RunTabs } from "@/components/runs/run-tabs";
 import { SignatureList } from "@/components/signatures/signature-manifestation";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listRunSignatures } from "@/db/reviews";
 import { getRun } from "@/db/runs";
@@ -25,13 +25,13 @@ export default async function RunLayout({ children, params }: { children: ReactN
         title={`Run ${run.number}`}
         lead={
           <>
-            <Link href={`/procedures/${run.procedure.id}/versions/${run.procedure.number}`} className="text-copper-deep underline">
+            <TextLink href={`/procedures/${run.procedure.id}/versions/${run.procedure.number}`}>
               {run.procedure.code} version {run.procedure.number}
-            </Link>{" "}
+            </TextLink>{" "}
             ({run.procedure.title}) on specimen{" "}
-            <Link href={`/specimens/${run.specimen.id}`} className="text-copper-deep underline">
+            <TextLink href={`/specimens/${run.specimen.id}`}>
               {run.specimen.identifier}
-            </Link>{" "}
+            </TextLink>{" "}
             · operator {run.operator.name} ·{" "}
             <span data-testid="run-status">
               <span aria-hidden="true">{status.mark} </span>

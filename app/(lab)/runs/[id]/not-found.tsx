@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function RunNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such run</h1>
-      <Link href="/runs" className="text-copper-deep underline">
+      <TextLink href="/runs">
         All runs
-      </Link>
+      </TextLink>
     </div>
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 
 import { Button } from "@/components/ui/button";
+import { SelectField } from "@/components/ui/select-field";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
 
@@ -21,38 +22,26 @@ export function StartRunForm({
   const err = (k: string) => state.fieldErrors?.[k]?.join(" ");
   return (
     <form onSubmit={onSubmit} className="flex max-w-3xl flex-col gap-5">
-      <label className="flex flex-col gap-1 text-sm font-medium">
-        Procedure version (released)
-        <select name="procedureVersionId" required defaultValue="" className="rounded border border-rule bg-white px-2 py-2 font-normal" aria-describedby="pv-error">
-          <option value="" disabled>
-            Choose…
+      <SelectField label="Procedure version (released)" name="procedureVersionId" required defaultValue="" errors={state.fieldErrors?.procedureVersionId}>
+        <option value="" disabled>
+          Choose…
+        </option>
+        {versions.map((o) => (
+          <option key={o.id} value={o.id}>
+            {o.label}
           </option>
-          {versions.map((v) => (
-            <option key={v.id} value={v.id}>
-              {v.label}
-            </option>
-          ))}
-        </select>
-        <span id="pv-error" aria-live="polite" className="font-normal text-deviates">
-          {err("procedureVersionId")}
-        </span>
-      </label>
-      <label className="flex flex-col gap-1 text-sm font-medium">
-        Specimen
-        <select name="specimenId" required defaultValue="" className="rounded border border-rule bg-white px-2 py-2 font-normal" aria-describedby="sp-error">
-          <option value="" disabled>
-            Choose…
+        ))}
+      </SelectField>
+      <SelectField label="Specimen" name="specimenId" required defaultValue="" errors={state.fieldErrors?.specimenId}>
+        <option value="" disabled>
+          Choose…
+        </option>
+        {specimens.map((o) => (
+          <option key={o.id} value={o.id}>
+            {o.label}
           </option>
-          {specimens.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.label}
-            </option>
-          ))}
-        </select>
-        <span id="sp-error" aria-live="polite" className="font-normal text-deviates">
-          {err("specimenId")}
-        </span>
-      </label>
+        ))}
+      </SelectField>
       <fieldset className="flex flex-col gap-1 rounded border border-rule bg-white p-3" aria-describedby="in-error">
         <legend className="px-1 text-sm font-medium">Instruments used (the cycler channel, and the thermometer or chamber you read the ambient on)</legend>
         {instruments.map((i) => (

@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function SpecimenNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such specimen</h1>
-      <Link href="/specimens" className="text-copper-deep underline">
+      <TextLink href="/specimens">
         All specimens
-      </Link>
+      </TextLink>
     </div>
   );
 }

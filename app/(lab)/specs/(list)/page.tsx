@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { z } from "zod";
 import { ActionLink } from "@/components/ui/action-link";
+import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
 import { TextSearch } from "@/components/ui/text-search";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
@@ -30,41 +31,37 @@ export default async function SpecsPage({ searchParams }: { searchParams: Promis
         }
       />
       <TextSearch label="Maker, model or designation" value={q} />
-      <div className="overflow-x-auto">
-        <table className="figures w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left">
-              <th className="py-2 pr-3">Maker and model</th>
-              <th className="py-2 pr-3">Designation</th>
-              <th className="py-2 pr-3">Chemistry</th>
-              <th className="py-2 pr-3 text-right">Rated capacity</th>
-              <th className="py-2 pr-3 text-right">Charge voltage</th>
-              <th className="py-2 pr-3 text-right">End-of-discharge</th>
-              <th className="py-2 pr-3 text-right">Max. discharge</th>
-              <th className="py-2">Datasheet</th>
-            </tr>
-          </thead>
-          <tbody>
-            {specs.map((s) => (
-              <tr key={s.id} className="border-b border-rule">
-                <td className="py-2 pr-3">
-                  <Link href={`/specs/${s.id}`} className="font-medium text-copper-deep underline">
-                    {s.maker} {s.model}
-                  </Link>
-                </td>
-                <td className="py-2 pr-3 font-mono">{s.designation}</td>
-                <td className="py-2 pr-3">{s.data.chemistry.label}</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(s.data.ratedCapacityMah)} mAh</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(s.data.chargeVoltageV, { minDecimals: 2 })} V</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(s.data.endOfDischargeVoltageV, { minDecimals: 2 })} V</td>
-                <td className="py-2 pr-3 text-right">{formatNumber(s.data.maxContinuousDischargeCurrentA)} A</td>
-                <td className="py-2">{s.datasheet ? "PDF on file" : "none"}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {specs.length === 0 && <p className="py-6 text-ink-soft">No specifications match.</p>}
-      </div>
+      <Table>
+        <TableHead>
+          <HeaderCell>Maker and model</HeaderCell>
+          <HeaderCell>Designation</HeaderCell>
+          <HeaderCell>Chemistry</HeaderCell>
+          <HeaderCell className="text-right">Rated capacity</HeaderCell>
+          <HeaderCell className="text-right">Charge voltage</HeaderCell>
+          <HeaderCell className="text-right">End-of-discharge</HeaderCell>
+          <HeaderCell className="text-right">Max. discharge</HeaderCell>
+          <HeaderCell>Datasheet</HeaderCell>
+        </TableHead>
+        <tbody>
+          {specs.map((s) => (
+            <Row key={s.id}>
+              <Cell>
+                <TextLink href={`/specs/${s.id}`} className="font-medium">
+                  {s.maker} {s.model}
+                </TextLink>
+              </Cell>
+              <Cell className="font-mono">{s.designation}</Cell>
+              <Cell>{s.data.chemistry.label}</Cell>
+              <Cell className="text-right">{formatNumber(s.data.ratedCapacityMah)} mAh</Cell>
+              <Cell className="text-right">{formatNumber(s.data.chargeVoltageV, { minDecimals: 2 })} V</Cell>
+              <Cell className="text-right">{formatNumber(s.data.endOfDischargeVoltageV, { minDecimals: 2 })} V</Cell>
+              <Cell className="text-right">{formatNumber(s.data.maxContinuousDischargeCurrentA)} A</Cell>
+              <Cell>{s.datasheet ? "PDF on file" : "none"}</Cell>
+            </Row>
+          ))}
+        </tbody>
+      </Table>
+      {specs.length === 0 && <EmptyState>No specifications match.</EmptyState>}
     </>
   );
 }

@@ -1,12 +1,12 @@
-import Link from "next/link";
+import { TextLink } from "@/components/ui/text-link";
 
 export default function SpecNotFound() {
   return (
     <div>
       <h1 className="mb-2 text-2xl font-bold">No such cell specification</h1>
-      <Link href="/specs" className="text-copper-deep underline">
+      <TextLink href="/specs">
         All cell specifications
-      </Link>
+      </TextLink>
     </div>
   );
 }

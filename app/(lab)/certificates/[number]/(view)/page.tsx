@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CertificateChangeForms } from "@/components/certificates/certificate-change-forms";
 import { CertificateStatusWords } from "@/components/certificates/certificate-status";
 import { VerdictWords } from "@/components/certificates/verdict-words";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getCertificateByNumber } from "@/db/certificates";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -53,9 +53,9 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
         {c.status === "superseded" && (
           <Notice tone="caution" title="Superseded">
             Replaced by{" "}
-            <Link href={`/certificates/${c.replacedByNumber}`} className="font-mono text-copper-deep underline">
+            <TextLink href={`/certificates/${c.replacedByNumber}`} className="font-mono">
               {c.replacedByNumber}
-            </Link>
+            </TextLink>
             . Rely on the replacement, not on this certificate.
           </Notice>
         )}
@@ -67,9 +67,9 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
         {c.replacesNumber && (
           <Notice title="Amendment">
             Replaces{" "}
-            <Link href={`/certificates/${c.replacesNumber}`} className="font-mono text-copper-deep underline">
+            <TextLink href={`/certificates/${c.replacesNumber}`} className="font-mono">
               {c.replacesNumber}
-            </Link>
+            </TextLink>
             : {c.amendmentReason}
           </Notice>
         )}
@@ -87,13 +87,13 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
           <>
             <dt className={`${rowClass} text-ink-soft`}>Run</dt>
             <dd className={rowClass}>
-              <Link href={`/runs/${c.runId}/results`} className="text-copper-deep underline">
+              <TextLink href={`/runs/${c.runId}/results`}>
                 {c.runNumber}
-              </Link>{" "}
+              </TextLink>{" "}
               (findings, results and plots, read-only) ·{" "}
-              <Link href={`/runs/${c.runId}/history`} className="text-copper-deep underline">
+              <TextLink href={`/runs/${c.runId}/history`}>
                 its review and audit trail
-              </Link>
+              </TextLink>
             </dd>
           </>
         )}
@@ -101,9 +101,9 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
           <>
             <dt className={`${rowClass} text-ink-soft`}>Lot</dt>
             <dd className={rowClass}>
-              <Link href={`/lots/${c.lotId}`} className="text-copper-deep underline">
+              <TextLink href={`/lots/${c.lotId}`}>
                 {c.lotIdentifier}
-              </Link>
+              </TextLink>
             </dd>
           </>
         )}
@@ -115,9 +115,9 @@ export default async function CertificatePage({ params }: { params: Promise<{ nu
         <dd className={`${rowClass} font-mono text-xs break-all`}>{c.payloadSha256}</dd>
         <dt className="py-1 text-ink-soft">Public check page</dt>
         <dd className="py-1">
-          <Link href={`/check/${c.number}`} className="text-copper-deep underline">
+          <TextLink href={`/check/${c.number}`}>
             /check/{c.number}
-          </Link>{" "}
+          </TextLink>{" "}
           — anyone holding the PDF can confirm it there without signing in.
         </dd>
       </dl>

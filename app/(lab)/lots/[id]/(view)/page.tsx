@@ -6,6 +6,7 @@ import { LotCertificateSection } from "@/components/lots/lot-certificate-section
 import { LotSamplingSections } from "@/components/lots/lot-sampling-sections";
 import { LotSpecimensTable } from "@/components/lots/lot-specimens-table";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listLotCertificates } from "@/db/certificates";
 import { getLotSampling } from "@/lib/lots/sampling/read-lot-sampling";
@@ -45,9 +46,9 @@ export default async function LotPage({ params }: { params: Promise<{ id: string
         title={`Lot ${lot.identifier}`}
         lead={
           <>
-            <Link href={`/specs/${lot.specification.id}`} className="text-copper-deep underline">
+            <TextLink href={`/specs/${lot.specification.id}`}>
               {lot.specification.maker} {lot.specification.model}
-            </Link>{" "}
+            </TextLink>{" "}
             (<span className="font-mono">{lot.specification.designation}</span>) from {lot.supplier}
           </>
         }

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
 import { PageHeader } from "@/components/ui/page-header";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
@@ -14,20 +14,19 @@ export const metadata: Metadata = { title: "Lot statistics" };
 export default async function LotStatisticsPage({ params }: { params: Promise<{ id: string }> }) {
   await requirePageAccess("/lots/[id]/statistics");
   const { lot, specification, results, statistics, rateCapability } = await readOrNotFound((await params).id, readLotResults);
-  const exportLink = "text-copper-deep underline";
   return (
     <>
       <PageHeader
         title={`Lot ${lot.identifier}: statistics`}
         lead={
           <>
-            <Link href={`/lots/${lot.id}`} className="text-copper-deep underline">
+            <TextLink href={`/lots/${lot.id}`}>
               Lot {lot.identifier}
-            </Link>{" "}
+            </TextLink>{" "}
             of{" "}
-            <Link href={`/specs/${specification.id}`} className="text-copper-deep underline">
+            <TextLink href={`/specs/${specification.id}`}>
               {specification.maker} {specification.model}
-            </Link>
+            </TextLink>
             : {statistics.resultCount} reviewed discharge result{statistics.resultCount === 1 ? "" : "s"} from {statistics.specimenCount} specimen
             {statistics.specimenCount === 1 ? "" : "s"}.
           </>
@@ -35,17 +34,17 @@ export default async function LotStatisticsPage({ params }: { params: Promise<{ 
         actions={
           <p className="text-sm" data-testid="exports">
             Download:{" "}
-            <a className={exportLink} href={`/api/lots/${lot.id}/results.csv`}>
+            <PlainLink href={`/api/lots/${lot.id}/results.csv`}>
               results as CSV
-            </a>{" "}
+            </PlainLink>{" "}
             ·{" "}
-            <a className={exportLink} href={`/api/lots/${lot.id}/results.json`}>
+            <PlainLink href={`/api/lots/${lot.id}/results.json`}>
               as JSON
-            </a>{" "}
+            </PlainLink>{" "}
             ·{" "}
-            <a className={exportLink} href={`/api/lots/${lot.id}/summary`}>
+            <PlainLink href={`/api/lots/${lot.id}/summary`}>
               summary (JSON)
-            </a>
+            </PlainLink>
           </p>
         }
       />
@@ -63,9 +62,9 @@ export default async function LotStatisticsPage({ params }: { params: Promise<{ 
               Rate capability of the lot
             </h2>
             {results.length > 0 && (
-              <Link href={formatCompareHref({ lotId: lot.id, chosen: [] })} className="text-sm text-copper-deep underline">
+              <TextLink href={formatCompareHref({ lotId: lot.id, chosen: [] })} className="text-sm">
                 Overlay this lot&apos;s discharges
-              </Link>
+              </TextLink>
             )}
           </div>
           <RateCapabilityTableView table={rateCapability} emptyWords="No reviewed discharge results in this lot yet: the table fills in as runs are accepted." />

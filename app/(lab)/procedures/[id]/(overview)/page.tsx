@@ -6,6 +6,7 @@ import { StatusBadge } from "@/components/procedures/status-badge";
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { VersionActionForm } from "@/components/procedures/version-actions";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProcedureVersions, type ProcedureVersionView } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -15,6 +16,7 @@ import { canSeeVersion } from "@/lib/procedures/read-access";
 import { listReleaseSignatures } from "@/lib/signatures/sign-record";
 import { describeStatus } from "@/lib/procedures/lifecycle";
 import { returnToDraftAction, startNewDraftAction, submitForReviewAction, withdrawAction } from "../actions";
+import { SelectField } from "@/components/ui/select-field";
 
 export const metadata: Metadata = { title: "Procedure" };
 
@@ -44,9 +46,9 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
         {versions.map((v) => (
           <li key={v.id} className="rounded border border-rule bg-paper p-4" data-testid={`version-${v.number}`}>
             <div className="flex flex-wrap items-baseline gap-3">
-              <Link href={`/procedures/${v.procedureId}/versions/${v.number}`} className="font-serif text-lg font-bold text-copper-deep underline">
+              <TextLink href={`/procedures/${v.procedureId}/versions/${v.number}`} className="font-serif text-lg font-bold">
                 Version {v.number}
-              </Link>
+              </TextLink>
               <StatusBadge status={v.status} />
               <span className="text-sm text-ink-soft">{v.title}</span>
             </div>
@@ -128,15 +130,12 @@ function LifecycleControls({ user, v, hasOpen }: { user: SignedInUser; v: Proced
 
 function VersionSelect({ name, label, versions, defaultValue }: { name: string; label: string; versions: ProcedureVersionView[]; defaultValue: number }) {
   return (
-    <label className="flex flex-col text-sm">
-      {label}
-      <select name={name} defaultValue={defaultValue} className="rounded border border-rule bg-white px-2 py-1.5">
-        {versions.map((v) => (
-          <option key={v.id} value={v.number}>
-            version {v.number} ({describeStatus(v.status)})
-          </option>
-        ))}
-      </select>
-    </label>
+    <SelectField filter label={label} name={name} defaultValue={defaultValue}>
+      {versions.map((v) => (
+        <option key={v.id} value={v.number}>
+          version {v.number} ({describeStatus(v.status)})
+        </option>
+      ))}
+    </SelectField>
   );
 }

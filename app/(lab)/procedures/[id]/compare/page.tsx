@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { VersionComparison } from "@/components/procedures/version-comparison";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getProcedureVersion } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -19,7 +19,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
   const q = querySchema.safeParse(await searchParams);
   if (!id.success) notFound();
   if (!q.success) {
-    return <p>Choose two versions to compare on the <Link href={`/procedures/${id.data}`} className="text-copper-deep underline">procedure page</Link>.</p>;
+    return <p>Choose two versions to compare on the <TextLink href={`/procedures/${id.data}`}>procedure page</TextLink>.</p>;
   }
   const [a, b] = await Promise.all([getProcedureVersion(getDb(), id.data, q.data.a), getProcedureVersion(getDb(), id.data, q.data.b)]);
   if (!a || !b || !canSeeVersion(user, a.status) || !canSeeVersion(user, b.status)) notFound();
@@ -27,7 +27,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
     <>
       <PageHeader
         title={`${a.code}: version ${a.number} beside version ${b.number}`}
-        actions={<Link href={`/procedures/${a.procedureId}`} className="text-sm text-copper-deep underline">All versions</Link>}
+        actions={<TextLink href={`/procedures/${a.procedureId}`} className="text-sm">All versions</TextLink>}
       />
       <VersionComparison before={a} after={b} />
     </>

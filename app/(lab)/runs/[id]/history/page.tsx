@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { listRunReviews, type RunReviewView } from "@/db/reviews";
@@ -67,38 +68,34 @@ export default async function RunHistoryPage({ params }: { params: Promise<{ id:
         <p className="mb-2 text-sm text-ink-soft">
           Every change to the run, oldest first{newestFirst.length === TRAIL_LIMIT ? ` (the latest ${TRAIL_LIMIT})` : ""}. The database accepts new entries only.
         </p>
-        <div className="overflow-x-auto">
-          <table className="w-full border-collapse text-sm" data-testid="run-audit-trail">
-            <thead>
-              <tr className="border-b border-rule text-left">
-                <th scope="col" className="py-2 pr-3">
-                  When (UTC)
-                </th>
-                <th scope="col" className="py-2 pr-3">
-                  Who
-                </th>
-                <th scope="col" className="py-2 pr-3">
-                  What
-                </th>
-                <th scope="col" className="py-2">
-                  Details
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {events.map((e) => (
-                <tr key={e.id} className="border-b border-rule align-top">
-                  <td className="figures whitespace-nowrap py-2 pr-3">{e.at.toISOString().replace("T", " ").slice(0, 19)}</td>
-                  <td className="py-2 pr-3">{e.actorLabel}</td>
-                  <td className="py-2 pr-3">{describeAuditAction(e.action)}</td>
-                  <td className="py-2 text-xs [overflow-wrap:anywhere]">
-                    <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <Table data-testid="run-audit-trail">
+          <TableHead>
+            <HeaderCell>
+              When (UTC)
+            </HeaderCell>
+            <HeaderCell>
+              Who
+            </HeaderCell>
+            <HeaderCell>
+              What
+            </HeaderCell>
+            <HeaderCell>
+              Details
+            </HeaderCell>
+          </TableHead>
+          <tbody>
+            {events.map((e) => (
+              <Row key={e.id} top>
+                <Cell className="figures whitespace-nowrap">{e.at.toISOString().replace("T", " ").slice(0, 19)}</Cell>
+                <Cell>{e.actorLabel}</Cell>
+                <Cell>{describeAuditAction(e.action)}</Cell>
+                <Cell className="text-xs [overflow-wrap:anywhere]">
+                  <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
+                </Cell>
+              </Row>
+            ))}
+          </tbody>
+        </Table>
       </section>
     </div>
   );

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { LogUpload } from "@/components/runs/log-upload/log-upload";
 import { Notice } from "@/components/ui/notice";
+import { PlainLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getRun } from "@/db/runs";
@@ -26,9 +27,9 @@ export default async function RunLogPage({ params }: { params: Promise<{ id: str
             <dt className="font-semibold">File</dt>
             <dd>
               {log.fileName} ({(log.sizeBytes / 1048576).toFixed(1)} MiB) ·{" "}
-              <a href={`/api/runs/${runId}/logs/current`} className="text-copper-deep underline">
+              <PlainLink href={`/api/runs/${runId}/logs/current`}>
                 download
-              </a>
+              </PlainLink>
             </dd>
             <dt className="font-semibold">SHA-256</dt>
             <dd>

@@ -8,6 +8,7 @@ import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
 import { UncertaintySection } from "@/components/runs/results/uncertainty-section";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
 import { Notice } from "@/components/ui/notice";
+import { PlainLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listProcedureVersions } from "@/db/procedures";
 import { getCurrentRunLog } from "@/db/run-logs";
@@ -66,13 +67,13 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
           <p className="mt-2 text-xs text-ink-soft">
             Evaluated {stored.evaluatedAt.toISOString().replace("T", " ").slice(0, 16)} UTC
             {stored.runLogId === null ? " without a data log" : onCurrentLog ? " on the current data log" : " on an earlier data log"}.{" "}
-            <a className="text-copper-deep underline" href={`/api/runs/${runId}/results.csv`}>
+            <PlainLink href={`/api/runs/${runId}/results.csv`}>
               Results as CSV
-            </a>{" "}
+            </PlainLink>{" "}
             ·{" "}
-            <a className="text-copper-deep underline" href={`/api/runs/${runId}/results.json`}>
+            <PlainLink href={`/api/runs/${runId}/results.json`}>
               as JSON
-            </a>
+            </PlainLink>
           </p>
         </div>
         {action}

@@ -1,6 +1,6 @@
-import Link from "next/link";
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { Notice } from "@/components/ui/notice";
+import { TextLink } from "@/components/ui/text-link";
 import type { RunReviewView } from "@/db/reviews";
 import type { RunView } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
@@ -55,9 +55,9 @@ export function AcceptedView({
           <ul className="text-sm">
             {certificates.map((c) => (
               <li key={c.number}>
-                <Link href={`/certificates/${c.number}`} className="font-mono text-copper-deep underline">
+                <TextLink href={`/certificates/${c.number}`} className="font-mono">
                   {c.number}
-                </Link>{" "}
+                </TextLink>{" "}
                 issued {formatDateTime(c.issuedAt)}
                 {c.revoked ? " (revoked)" : ""}
               </li>

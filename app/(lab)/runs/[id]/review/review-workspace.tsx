@@ -1,6 +1,6 @@
-import Link from "next/link";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
 import { Notice } from "@/components/ui/notice";
+import { TextLink } from "@/components/ui/text-link";
 import type { RunReviewView } from "@/db/reviews";
 import type { RunView } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
@@ -51,17 +51,17 @@ export function ReviewWorkspace({
           Submitted by {run.operator.name}
           {run.submittedAt && ` on ${formatDateTime(run.submittedAt)}`}
           {returns > 0 && ` · returned ${returns === 1 ? "once" : `${returns} times`} before (see History)`}. Read the{" "}
-          <Link href={`/runs/${run.id}/results`} className="text-copper-deep underline">
+          <TextLink href={`/runs/${run.id}/results`}>
             findings, results and plots
-          </Link>
+          </TextLink>
           , the{" "}
-          <Link href={`/runs/${run.id}`} className="text-copper-deep underline">
+          <TextLink href={`/runs/${run.id}`}>
             step sheet
-          </Link>{" "}
+          </TextLink>{" "}
           and the{" "}
-          <Link href={`/runs/${run.id}/log`} className="text-copper-deep underline">
+          <TextLink href={`/runs/${run.id}/log`}>
             data log
-          </Link>{" "}
+          </TextLink>{" "}
           before you decide.
         </p>
         {evaluation ? (

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { z } from "zod";
 import { SpecimenRuns } from "@/components/runs/specimen-runs";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listRuns } from "@/db/runs";
 import { getSpecimen } from "@/db/specimens";
@@ -35,17 +36,17 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
       <dl className="grid max-w-3xl gap-x-6 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
         <dt className="border-b border-rule py-1 text-ink-soft">Cell specification</dt>
         <dd className="border-b border-rule py-1">
-          <Link href={`/specs/${spec.id}`} className="text-copper-deep underline">
+          <TextLink href={`/specs/${spec.id}`}>
             {spec.maker} {spec.model}
-          </Link>{" "}
+          </TextLink>{" "}
           <span className="font-mono text-xs">{spec.designation}</span>
         </dd>
         <dt className="border-b border-rule py-1 text-ink-soft">Lot</dt>
         <dd className="border-b border-rule py-1">
           {lot ? (
-            <Link href={`/lots/${lot.id}`} className="text-copper-deep underline">
+            <TextLink href={`/lots/${lot.id}`}>
               {lot.identifier}
-            </Link>
+            </TextLink>
           ) : (
             "none: a loose specimen"
           )}
@@ -64,9 +65,9 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
         <dd className="py-1 whitespace-pre-line">{specimen.notes ?? "none"}</dd>
       </dl>
       <p className="mt-6 text-sm">
-        <Link href={`/specimens/${specimen.id}/rate-capability`} className="text-copper-deep underline">
+        <TextLink href={`/specimens/${specimen.id}/rate-capability`}>
           Rate capability: its reviewed discharges at each current
-        </Link>
+        </TextLink>
       </p>
       <SpecimenRuns runs={runs} />
     </>

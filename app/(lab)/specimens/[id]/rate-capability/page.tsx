@@ -3,6 +3,7 @@ import Link from "next/link";
 import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
@@ -21,9 +22,9 @@ export default async function SpecimenRateCapabilityPage({ params }: { params: P
         title={`Specimen ${specimen.identifier}: rate capability`}
         lead={
           <>
-            <Link href={`/specimens/${specimen.id}`} className="text-copper-deep underline">
+            <TextLink href={`/specimens/${specimen.id}`}>
               Specimen {specimen.identifier}
-            </Link>
+            </TextLink>
             , {specification.maker} {specification.model} (It = {formatNumber(specification.data.ratedCapacityMah / 1000, { maxDecimals: 4 })} A, maximum continuous discharge current{" "}
             {formatNumber(specification.data.maxContinuousDischargeCurrentA, { maxDecimals: 3 })} A).
           </>
@@ -47,9 +48,9 @@ export default async function SpecimenRateCapabilityPage({ params }: { params: P
             <ul className="list-disc pl-5 text-sm">
               {results.map((r) => (
                 <li key={`${r.runId}-${r.stepId}-${r.cycle}`}>
-                  <Link href={`/runs/${r.runId}/results`} className="text-copper-deep underline">
+                  <TextLink href={`/runs/${r.runId}/results`}>
                     Run {r.runNumber}
-                  </Link>{" "}
+                  </TextLink>{" "}
                   ({r.procedureCode}, {r.runStatus}): {r.stepLabel}
                   {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}, {formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A,{" "}
                   {formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })} mAh

@@ -5,6 +5,7 @@ import { z } from "zod";
 import { DatasheetUpload } from "@/components/specs/datasheet-upload";
 import { SPEC_NUMBER_FIELDS } from "@/components/specs/spec-fields";
 import { PageHeader } from "@/components/ui/page-header";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -61,9 +62,9 @@ export default async function SpecPage({ params }: { params: Promise<{ id: strin
         </div>
       </dl>
       <p className="mt-6 text-sm">
-        <Link href={`/specs/${spec.id}/measured`} className="text-copper-deep underline">
+        <TextLink href={`/specs/${spec.id}/measured`}>
           Measured against the datasheet: statistics of every reviewed result of this cell
-        </Link>
+        </TextLink>
       </p>
       <section aria-labelledby="datasheet" className="mt-8 max-w-3xl rounded border border-rule bg-white p-4">
         <h2 id="datasheet" className="mb-2 text-lg font-bold">
@@ -71,9 +72,9 @@ export default async function SpecPage({ params }: { params: Promise<{ id: strin
         </h2>
         {spec.datasheet ? (
           <p className="mb-3 text-sm">
-            <a href={`/api/specs/${spec.id}/datasheet`} className="text-copper-deep underline">
+            <PlainLink href={`/api/specs/${spec.id}/datasheet`}>
               {spec.datasheet.name}
-            </a>{" "}
+            </PlainLink>{" "}
             ({formatNumber(spec.datasheet.sizeBytes / 1024, { maxDecimals: 0 })} KiB) · SHA-256{" "}
             <span className="font-mono text-xs [overflow-wrap:anywhere]">{spec.datasheet.sha256}</span>
           </p>

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { DatasheetComparisonTable } from "@/components/lot-results/datasheet-comparison-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { StatisticsByCurrent } from "@/components/lot-results/statistics-by-current";
 import { PageHeader } from "@/components/ui/page-header";
+import { PlainLink, TextLink } from "@/components/ui/text-link";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { formatCompareHref } from "@/lib/lots/results/compare-selection";
 import { readOrNotFound } from "@/lib/read-or-not-found";
@@ -21,25 +21,25 @@ export default async function SpecMeasuredPage({ params }: { params: Promise<{ i
         title={`${specification.maker} ${specification.model}: measured against the datasheet`}
         lead={
           <>
-            <Link href={`/specs/${specification.id}`} className="text-copper-deep underline">
+            <TextLink href={`/specs/${specification.id}`}>
               The cell specification
-            </Link>{" "}
+            </TextLink>{" "}
             beside every reviewed result of its cells: {statistics.resultCount} discharge result{statistics.resultCount === 1 ? "" : "s"} from {statistics.specimenCount} specimen
             {statistics.specimenCount === 1 ? "" : "s"} in {lots} lot{lots === 1 ? "" : "s"}.
           </>
         }
         actions={
           <p className="text-sm">
-            <a className="text-copper-deep underline" href={`/api/specs/${specification.id}/summary`}>
+            <PlainLink href={`/api/specs/${specification.id}/summary`}>
               Summary as JSON
-            </a>
+            </PlainLink>
             {results.length > 0 && (
               <>
                 {" "}
                 ·{" "}
-                <Link className="text-copper-deep underline" href={formatCompareHref({ specificationId: specification.id, chosen: [] })}>
+                <TextLink href={formatCompareHref({ specificationId: specification.id, chosen: [] })}>
                   Overlay its discharges
-                </Link>
+                </TextLink>
               </>
             )}
           </p>

@@ -1,9 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ProcedureDefinitionView } from "@/components/procedures/procedure-definition-view";
 import { StatusBadge } from "@/components/procedures/status-badge";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getProcedureVersion } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -30,9 +30,9 @@ export default async function ProcedureVersionPage({ params }: { params: Promise
           </>
         }
         actions={
-          <Link href={`/procedures/${v.procedureId}`} className="text-sm text-copper-deep underline">
+          <TextLink href={`/procedures/${v.procedureId}`} className="text-sm">
             All versions of {v.code}
-          </Link>
+          </TextLink>
         }
       />
       {v.status !== "released" && (

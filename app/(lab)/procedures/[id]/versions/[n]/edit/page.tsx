@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ProcedureEditor } from "@/components/procedure-editor";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { describeStatus } from "@/lib/procedures/lifecycle";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { saveDraftAction } from "./actions";
@@ -17,9 +17,9 @@ export default async function EditVersionPage({ params }: { params: Promise<{ id
   if (!v) notFound();
   const versionHref = `/procedures/${v.procedureId}/versions/${v.number}`;
   const back = (
-    <Link href={versionHref} className="text-sm text-copper-deep underline">
+    <TextLink href={versionHref} className="text-sm">
       Version {v.number} of {v.code}
-    </Link>
+    </TextLink>
   );
   if (v.status !== "draft") {
     return (
@@ -28,13 +28,13 @@ export default async function EditVersionPage({ params }: { params: Promise<{ id
         <p className="rounded border border-rule bg-paper-deep p-4" role="note">
           Version {v.number} of <span className="font-mono">{v.code}</span> is {describeStatus(v.status)}, so it cannot be edited. Only a draft can
           be edited: read it on{" "}
-          <Link href={versionHref} className="text-copper-deep underline">
+          <TextLink href={versionHref}>
             the version page
-          </Link>
+          </TextLink>
           , or start a new draft from it on{" "}
-          <Link href={`/procedures/${v.procedureId}`} className="text-copper-deep underline">
+          <TextLink href={`/procedures/${v.procedureId}`}>
             the procedure&apos;s page
-          </Link>
+          </TextLink>
           .
         </p>
       </>

@@ -1,10 +1,10 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { VersionComparison } from "@/components/procedures/version-comparison";
 import { StatusBadge } from "@/components/procedures/status-badge";
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { getProcedureVersion, listProcedureVersions } from "@/db/procedures";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -43,9 +43,9 @@ export default async function ReleaseVersionPage({ params }: { params: Promise<{
           </>
         }
         actions={
-          <Link href={`/procedures/${v.procedureId}/versions/${v.number}`} className="text-sm text-copper-deep underline">
+          <TextLink href={`/procedures/${v.procedureId}/versions/${v.number}`} className="text-sm">
             Read version {v.number} in full
-          </Link>
+          </TextLink>
         }
       />
       <section aria-labelledby="acknowledged" className="mb-6 rounded border-l-4 border-copper bg-copper-wash p-4">
@@ -88,9 +88,9 @@ export default async function ReleaseVersionPage({ params }: { params: Promise<{
             ) : (
               <p>Version {v.number} is not in review, so there is nothing to release.</p>
             )}
-            <Link href={`/procedures/${v.procedureId}`} className="text-copper-deep underline">
+            <TextLink href={`/procedures/${v.procedureId}`}>
               All versions of {v.code}
-            </Link>
+            </TextLink>
           </div>
         ) : wroteIt ? (
           <p className="text-sm" role="note">

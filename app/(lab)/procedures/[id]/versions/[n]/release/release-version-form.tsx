@@ -1,9 +1,9 @@
 "use client";
 
-import Link from "next/link";
 import { SigningFields } from "@/components/signatures/signing-fields";
 import { ActionAnswer } from "@/components/runs/step-sheet/action-answer";
 import { Button } from "@/components/ui/button";
+import { TextLink } from "@/components/ui/text-link";
 import { useFormAction } from "@/components/ui/use-form-action";
 import type { ActionState } from "@/lib/forms/action-state";
 
@@ -30,9 +30,9 @@ export function ReleaseVersionForm({
     return (
       <div className="flex flex-col gap-2">
         <ActionAnswer state={state} />
-        <Link href={procedureHref} className="text-copper-deep underline">
+        <TextLink href={procedureHref}>
           Back to {code}
-        </Link>
+        </TextLink>
       </div>
     );
   }

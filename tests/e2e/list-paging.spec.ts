@@ -1,0 +1,98 @@
+import pg from "pg";
+import { expect, signInAsUser, test } from "./fixtures";
+
+// An operator of this spec's own, so the 30 runs it plans show under "Only runs I operated" and nowhere
+// near the demo operator's queues; planned in 2020 so they sort after every demo run.
+const FILLER = { id: "e2e-list-filler", email: "list.filler@lab.test", name: "Lis Filler" };
+const RUNS = 30;
+
+async function asOwner<T>(work: (client: pg.Client) => Promise<T>): Promise<T> {
+  const client = new pg.Client({ connectionString: process.env.E2E_OWNER_DATABASE_URL });
+  await client.connect();
+  try {
+    return await work(client);
+  } finally {
+    await client.end();
+  }
+}
+
+test.beforeAll(async () => {
+  await asOwner(async (c) => {
+    await c.query(`insert into app_user (id, email, display_name, role, password_hash) values ($1, $2, $3, 'operator', 'no sign-in') on conflict (id) do nothing`, [
+      FILLER.id,
+      FILLER.email,
+      FILLER.name,
+    ]);
+    const made = await c.query(
+      `insert into run (procedure_version_id, specimen_id, operator_id, resolution, cell_rating, procedure_source, created_at)
+       select r.procedure_version_id, r.specimen_id, $1, r.resolution, r.cell_rating, r.procedure_source, timestamptz '2020-01-01 09:00Z' + g * interval '1 day'
+       from (select * from run order by created_at limit 1) r, generate_series(1, ${RUNS}) g`,
+      [FILLER.id],
+    );
+    if (made.rowCount !== RUNS) throw new Error("the e2e database has no run to copy");
+  });
+});
+
+test.afterAll(async () => {
+  await asOwner(async (c) => {
+    // The participant rows the planned runs wrote are append-only; the owner lifts that guard for this
+    // clean-up alone, inside one transaction, so the demo data the next specs read is as it was.
+    await c.query("begin");
+    await c.query("alter table run_participant disable trigger run_participant_append_only");
+    await c.query(`delete from run_participant where run_id in (select id from run where operator_id = $1)`, [FILLER.id]);
+    await c.query("alter table run_participant enable trigger run_participant_append_only");
+    await c.query(`delete from run where operator_id = $1`, [FILLER.id]);
+    await c.query(`delete from app_user where id = $1`, [FILLER.id]);
+    await c.query("commit");
+  });
+});
+
+test("the run list pages 25 at a time, sorts by a header and keeps the filter, and says when nothing matches", async ({ page, context, baseURL }) => {
+  await signInAsUser(context, baseURL!, FILLER.email);
+  await page.goto("/runs?mine=1");
+  const rows = page.getByTestId("run-list").locator("tbody tr");
+  const pager = page.getByTestId("pager");
+  await expect(pager).toContainText("Page 1 of 2");
+  await expect(pager).toContainText(`${RUNS} runs`);
+  await expect(rows).toHaveCount(25);
+  // Newest first by default: the run planned on 2020-01-31 heads the list.
+  await expect(rows.first().locator("td").last()).toHaveText("2020-01-31");
+
+  await pager.getByRole("link", { name: "Next page →" }).click();
+  await expect(pager).toContainText("Page 2 of 2");
+  await expect(rows).toHaveCount(RUNS - 25);
+  await expect(rows.last().locator("td").last()).toHaveText("2020-01-02");
+  expect(new URL(page.url()).searchParams.get("mine")).toBe("1");
+
+  // Sorting starts again at page 1 and keeps the filter.
+  await page.getByRole("columnheader", { name: /Planned on/ }).getByRole("link").click();
+  await expect(page.getByRole("columnheader", { name: /Planned on/ })).toHaveAttribute("aria-sort", "ascending");
+  await expect(pager).toContainText("Page 1 of 2");
+  await expect(rows.first().locator("td").last()).toHaveText("2020-01-02");
+  expect(new URL(page.url()).searchParams.get("mine")).toBe("1");
+
+  await page.getByRole("columnheader", { name: /^Run/ }).getByRole("link").click();
+  await expect(page.getByRole("columnheader", { name: /^Run/ })).toHaveAttribute("aria-sort", "ascending");
+  const ascending = await rows.locator("td:first-child").allInnerTexts();
+  expect(ascending).toEqual([...ascending].sort());
+  await page.getByRole("columnheader", { name: /^Run/ }).getByRole("link").click();
+  await expect(page.getByRole("columnheader", { name: /^Run/ })).toHaveAttribute("aria-sort", "descending");
+  const descending = await rows.locator("td:first-child").allInnerTexts();
+  expect(descending).toEqual([...descending].sort().reverse());
+  expect(descending[0]! > ascending[0]!).toBe(true);
+
+  // A filter that keeps nothing says so in words and shows no pager.
+  await page.getByLabel("Status").selectOption({ label: "accepted" });
+  await page.getByRole("button", { name: "Show" }).click();
+  await expect(page.getByText("No runs match.")).toBeVisible();
+  await expect(rows).toHaveCount(0);
+  await expect(pager).toHaveCount(0);
+  const url = new URL(page.url());
+  expect(url.searchParams.get("sort")).toBe("number");
+  expect(url.searchParams.get("dir")).toBe("desc");
+
+  // An unknown sort in the address falls back to the default order instead of failing.
+  await page.goto("/runs?mine=1&sort=password_hash&page=x");
+  await expect(pager).toContainText("Page 1 of 2");
+  await expect(rows.first().locator("td").last()).toHaveText("2020-01-31");
+});
