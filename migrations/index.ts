@@ -14,6 +14,7 @@ import * as m0013 from "./0013_refused_request_tally";
 import * as m0014 from "./0014_session_details";
 import * as m0017 from "./0017_run_abandon";
 import * as m0019 from "./0019_release_signature";
+import * as m0021 from "./0021_log_ingest_job";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -35,4 +36,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0014_session_details": m0014,
   "0017_run_abandon": m0017,
   "0019_release_signature": m0019,
+  "0021_log_ingest_job": m0021,
 };
