@@ -9,12 +9,13 @@ import type { LogColumns } from "@/lib/analysis";
 import { createLogParser, type ColumnMapping, type LogImportError, type ParsedLog } from "@/lib/analysis/log-import";
 import { DomainError } from "@/lib/errors";
 import { isRunOpen } from "./run-status";
+import { createWriteBehind } from "./write-behind";
 
 /** Largest data log accepted: a 2-million-row log is ≈ 70 MB. */
 export const LOG_MAX_BYTES = 200 * 1024 * 1024;
 
-/** Chunks written ahead of the parser at most; beyond that the parser waits for the database. */
-const maxPartsInFlight = 2;
+/** Chunks parsed but not yet written, at most; beyond that the parser waits for the database. */
+const maxPartsQueued = 2;
 
 export type StoreWhileReadingResult<T> = { ok: true; parsed: ParsedLog; runLogId: string; value: T } | { ok: false; error: LogImportError };
 
@@ -52,31 +53,16 @@ export async function storeLogWhileReading<T>({
     return await getDb()
       .transaction()
       .execute(async (tx) => {
-        let pending: Promise<void> = Promise.resolve();
-        let inFlight = 0;
-        let writeError: unknown = null;
         let nextPart = 0;
         let progress = { bytes: 0, rows: 0 };
-        const write = (columns: LogColumns) => {
-          const index = nextPart++;
-          inFlight++;
-          pending = pending
-            .then(async () => {
-              if (writeError) return;
-              await insertRunLogChunk(tx, runLogId, index, columns);
-              await onPartStored?.({ index, rows: columns.length });
-            })
-            .catch((e: unknown) => {
-              writeError ??= e;
-            })
-            .finally(() => {
-              inFlight--;
-            });
-        };
+        const writer = createWriteBehind<{ index: number; columns: LogColumns }>(async ({ index, columns }) => {
+          await insertRunLogChunk(tx, runLogId, index, columns);
+          await onPartStored?.({ index, rows: columns.length });
+        }, maxPartsQueued);
         const parser = createLogParser(mapping, {
           maxBytes: LOG_MAX_BYTES,
           rowsPerPart: CHUNK_SAMPLES,
-          onRows: ({ columns }) => write(columns),
+          onRows: ({ columns }) => writer.add({ index: nextPart++, columns }),
           onProgress: (p) => {
             progress = p;
           },
@@ -84,14 +70,12 @@ export async function storeLogWhileReading<T>({
         for await (const chunk of chunks) {
           const refused = parser.push(chunk);
           if (refused) throw new LogRefused(refused);
-          if (inFlight > maxPartsInFlight) await pending;
-          if (writeError) throw writeError;
+          await writer.keepUp();
           await onProgress?.(progress);
         }
         const parsed = parser.finish();
         if (!parsed.ok) throw new LogRefused(parsed.error);
-        await pending;
-        if (writeError) throw writeError;
+        await writer.finish();
         await onProgress?.({ bytes: parsed.bytes, rows: parsed.rows });
         const run = await getRun(tx, runId, { forUpdate: true });
         if (!run || !isRunOpen(run.status)) throw new DomainError("conflict", "The run changed while the log was being read; nothing was stored.");

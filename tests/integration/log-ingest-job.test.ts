@@ -5,7 +5,7 @@ import { listAuditEvents } from "@/db/audit";
 import { claimLogIngestJob, getLogIngestJob } from "@/db/log-ingest-jobs";
 import { CHUNK_SAMPLES, getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
 import { formatLogCsv } from "@/lib/analysis";
-import { parseLog } from "@/lib/analysis/log-import";
+import { columnMappingSchema, parseLog } from "@/lib/analysis/log-import";
 import { runLogIngestJob, runNextLogIngestJob } from "@/lib/runs/log-ingest/run-log-ingest-job";
 import { stageLogUpload } from "@/lib/runs/log-ingest/stage-log-upload";
 import { recordStep } from "@/lib/runs/record-step";
@@ -13,9 +13,10 @@ import { startRun } from "@/lib/runs/start-run";
 import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { getObjectBytes } from "@/lib/storage";
 import { buildRatedCapacityRun, inventedCell } from "../support/rated-capacity-run";
-import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
+import { makeUser, ELAPSED_LOG_MAPPING, chunksOf, releaseRatedCapacityProcedure } from "./fixtures";
 
 const TODAY = "2026-12-01";
+const MAPPING = columnMappingSchema.parse(ELAPSED_LOG_MAPPING);
 
 /** A run with its steps recorded and a log long enough for two stored chunks (> 65 536 samples). */
 async function setUpRun(tag: string) {
