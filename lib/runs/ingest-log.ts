@@ -2,7 +2,7 @@ import "server-only";
 import { createHash, randomUUID } from "node:crypto";
 import { mkdir, open, rm } from "node:fs/promises";
 import path from "node:path";
-import { getDb } from "@/db";
+import { getDb, type Executor } from "@/db";
 import { recordAuditEvent } from "@/db/audit";
 import { insertRunLogRow, supersedeRunLogs } from "@/db/run-logs";
 import { getRun } from "@/db/runs";
@@ -14,8 +14,6 @@ import { DomainError } from "@/lib/errors";
 import { deleteObject, putObjectFromFile } from "@/lib/storage";
 import { isRunOpen } from "./run-status";
 import { LOG_MAX_BYTES, storeLogWhileReading } from "./store-log-while-reading";
-import type { Transaction } from "kysely";
-import type { Database } from "@/db/schema";
 
 export { LOG_MAX_BYTES };
 
@@ -86,7 +84,7 @@ export async function ingestLog(
 
 /** The log's row, the earlier log no longer current, and the audit event: the end of every ingest, in its transaction. */
 export async function writeRunLog(
-  tx: Transaction<Database>,
+  tx: Executor,
   l: { actor: SignedInUser; runId: string; runLogId: string; storedFileId: string; fileName: string; sha256: string; sizeBytes: number; mapping: ColumnMapping; parsed: ParsedLog },
 ): Promise<void> {
   await supersedeRunLogs(tx, l.runId);

@@ -6,9 +6,10 @@
  * 2. our parse (streaming, typed arrays), then storage two ways in PostgreSQL:
  *    A. one row per 65 536-sample chunk, one uncompressed bytea per channel (STORAGE EXTERNAL);
  *    B. one row per sample loaded with binary COPY (pg-copy-streams);
- *    A while parsing: the same chunks written behind the parser as the app's log worker does
- *    (lib/runs/write-behind.ts), against parse-then-store A, in alternating rounds (BENCH_ROUNDS, default 2)
- *    each beside its own floor, since a shared machine's load changes from minute to minute;
+ *    A while parsing: the same chunks sent into one binary COPY as the parser hands them out, as the
+ *    app's log worker does (lib/runs/store-log-while-reading.ts), against parse-then-store A, in
+ *    alternating rounds (BENCH_ROUNDS, default 2) each beside its own floor, since a shared machine's
+ *    load changes from minute to minute;
  * 3. segmentation + step-by-step evaluation of the parsed log;
  * 4. a 2 000-point series read back from each store.
  */
@@ -22,7 +23,9 @@ import { from as copyFrom } from "pg-copy-streams";
 import { downsampleLttb, segment, writeLogCsv } from "../../lib/analysis";
 import { createLogParser, createScanFloor, type ColumnMapping } from "../../lib/analysis/log-import";
 import { evaluateRun, type RunEvaluationInput } from "../../lib/conformance";
-import { createWriteBehind } from "../../lib/runs/write-behind";
+import { once } from "node:events";
+import { finished } from "node:stream/promises";
+import { COPY_BINARY_HEADER, COPY_BINARY_TRAILER, encodeCopyRow, float64Bytes } from "../../db/copy-binary";
 import { buildRatedCapacityRun } from "../../tests/support/rated-capacity-run";
 
 // One rated-capacity cycle (≈ 40 000 s of log) sampled every 0.02 s ≈ 2 million rows;
@@ -200,25 +203,32 @@ async function parseWhileStoring(runId: number): Promise<number> {
   const client = await pool.connect();
   try {
     await client.query("begin");
+    const copy = client.query(copyFrom(`copy bench_channels (run_id, chunk, time_s, voltage_v, current_a, temperature_c) from stdin (format binary)`));
+    const copied = finished(copy);
+    copy.write(COPY_BINARY_HEADER);
     let chunk = 0;
-    const writer = createWriteBehind<LogColumnsPart>(async (c) => {
-      await client.query(`insert into bench_channels values ($1, $2, $3, $4, $5, $6)`, [runId, chunk++, bytes(c.timeS), bytes(c.voltageV), bytes(c.currentA), c.temperatureC ? bytes(c.temperatureC) : null]);
+    const p = createLogParser(mapping, {
+      maxBytes: 1024 * 2 ** 20,
+      rowsPerPart: CHUNK,
+      onRows: ({ columns: c }) => {
+        const row = encodeCopyRow([{ int4: runId }, { int4: chunk++ }, { bytea: float64Bytes(c.timeS) }, { bytea: float64Bytes(c.voltageV) }, { bytea: float64Bytes(c.currentA) }, c.temperatureC ? { bytea: float64Bytes(c.temperatureC) } : null]);
+        for (const b of row) copy.write(b);
+      },
     });
-    const p = createLogParser(mapping, { maxBytes: 1024 * 2 ** 20, rowsPerPart: CHUNK, onRows: ({ columns }) => writer.add(columns) });
     for (const c of fileChunks(1 << 20)) {
       if (p.push(c)) throw new Error("refused");
-      await writer.keepUp();
+      if (copy.writableNeedDrain) await once(copy, "drain");
     }
     const r = p.finish();
     if (!r.ok) throw new Error(r.error.message);
-    await writer.finish();
+    copy.end(COPY_BINARY_TRAILER);
+    await copied;
     await client.query("commit");
   } finally {
     client.release();
   }
   return performance.now() - t0;
 }
-type LogColumnsPart = typeof log;
 const roundLines: string[] = [];
 for (let round = 1, runId = 10; round <= ROUNDS; round++) {
   const f = await timed(`round ${round}: floor`, () => {
