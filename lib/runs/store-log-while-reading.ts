@@ -27,6 +27,8 @@ class LogRefused extends Error {
   }
 }
 
+/** Bytes sent ahead of the database at most (≈ 4 chunks of 4 channels); beyond that the parser waits. */
+const COPY_QUEUE_BYTES = 8 * 2 ** 20;
 const COPY_CHUNKS = "copy run_log_chunk (run_log_id, chunk, sample_count, time_s, voltage_v, current_a, temperature_c) from stdin (format binary)";
 
 /**
@@ -58,7 +60,7 @@ export async function storeLogWhileReading<T>({
   let broken = false;
   try {
     await client.query("begin");
-    const copy = client.query(copyFrom(COPY_CHUNKS));
+    const copy = client.query(copyFrom(COPY_CHUNKS, { highWaterMark: COPY_QUEUE_BYTES }));
     const copied = finished(copy);
     copied.catch(() => undefined);
     copy.write(COPY_BINARY_HEADER);
