@@ -100,6 +100,7 @@ export function LogUpload({
           {outcome.message}
         </Notice>
       )}
+      {reading && <p className="text-sm">A log of this run is being read (see “Latest upload” above). Another can be sent once it is done.</p>}
       {!reading && !formOpen && (
         <div className="flex flex-col items-start gap-2 text-sm">
           <p>
