@@ -34,35 +34,60 @@ export async function insertRunLog(
   db: Executor,
   l: { runId: string; storedFileId: string; mapping: ColumnMapping; columns: LogColumns; loggedFrom: Date | null; uploadedBy: string },
 ): Promise<string> {
+  const id = await insertRunLogRow(db, { ...l, sampleCount: l.columns.length });
+  const c = l.columns;
+  for (let from = 0, chunk = 0; from < c.length; from += CHUNK_SAMPLES, chunk++) {
+    await insertRunLogChunk(db, id, chunk, sliceColumns(c, from, Math.min(from + CHUNK_SAMPLES, c.length)));
+  }
+  return id;
+}
+
+/** The log's own row; its chunks may already be written in the same transaction (the reference is checked at commit, 0022). */
+export async function insertRunLogRow(
+  db: Executor,
+  l: { id?: string; runId: string; storedFileId: string; mapping: ColumnMapping; sampleCount: number; loggedFrom: Date | null; uploadedBy: string },
+): Promise<string> {
   const { id } = await db
     .insertInto("run_log")
     .values({
+      ...(l.id ? { id: l.id } : {}),
       run_id: l.runId,
       stored_file_id: l.storedFileId,
       mapping: JSON.stringify(l.mapping),
-      sample_count: l.columns.length,
+      sample_count: l.sampleCount,
       logged_from: l.loggedFrom,
       uploaded_by: l.uploadedBy,
     })
     .returning("id")
     .executeTakeFirstOrThrow();
-  const c = l.columns;
-  for (let from = 0, chunk = 0; from < c.length; from += CHUNK_SAMPLES, chunk++) {
-    const to = Math.min(from + CHUNK_SAMPLES, c.length);
-    await db
-      .insertInto("run_log_chunk")
-      .values({
-        run_log_id: id,
-        chunk,
-        sample_count: to - from,
-        time_s: bytes(c.timeS.subarray(from, to)),
-        voltage_v: bytes(c.voltageV.subarray(from, to)),
-        current_a: bytes(c.currentA.subarray(from, to)),
-        temperature_c: c.temperatureC ? bytes(c.temperatureC.subarray(from, to)) : null,
-      })
-      .execute();
-  }
   return id;
+}
+
+/** One chunk of at most CHUNK_SAMPLES samples; (log, chunk) is the key, so a chunk is never stored twice. */
+export async function insertRunLogChunk(db: Executor, runLogId: string, chunk: number, c: LogColumns): Promise<void> {
+  if (c.length > CHUNK_SAMPLES) throw new RangeError(`A chunk holds at most ${CHUNK_SAMPLES} samples.`);
+  await db
+    .insertInto("run_log_chunk")
+    .values({
+      run_log_id: runLogId,
+      chunk,
+      sample_count: c.length,
+      time_s: bytes(c.timeS),
+      voltage_v: bytes(c.voltageV),
+      current_a: bytes(c.currentA),
+      temperature_c: c.temperatureC ? bytes(c.temperatureC) : null,
+    })
+    .execute();
+}
+
+function sliceColumns(c: LogColumns, from: number, to: number): LogColumns {
+  return {
+    timeS: c.timeS.subarray(from, to),
+    voltageV: c.voltageV.subarray(from, to),
+    currentA: c.currentA.subarray(from, to),
+    ...(c.temperatureC ? { temperatureC: c.temperatureC.subarray(from, to) } : {}),
+    length: to - from,
+  };
 }
 
 export async function getCurrentRunLog(db: Executor, runId: string): Promise<RunLogView | null> {

@@ -238,6 +238,25 @@ export interface RunLogChunkTable {
   temperature_c: Buffer | null;
 }
 
+/** A data log waiting to be read, being read, or read (migration 0022); what became of it is `outcome`. */
+export interface LogIngestJobTable {
+  id: Generated<string>;
+  run_id: string;
+  stored_file_id: string;
+  mapping: JsonColumn;
+  remember_mapping: Generated<boolean>;
+  requested_by: string;
+  state: Generated<"waiting" | "reading" | "stored" | "evaluated" | "refused" | "failed">;
+  rows_read: Generated<number>;
+  attempts: Generated<number>;
+  lease_until: Date | null;
+  run_log_id: string | null;
+  outcome: Json;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+  finished_at: Date | null;
+}
+
 export interface RunEvaluationTable {
   id: Generated<string>;
   run_id: string;
@@ -343,6 +362,7 @@ export interface Database {
   step_record: StepRecordTable;
   run_log: RunLogTable;
   run_log_chunk: RunLogChunkTable;
+  log_ingest_job: LogIngestJobTable;
   run_evaluation: RunEvaluationTable;
   electronic_signature: ElectronicSignatureTable;
   run_review: RunReviewTable;

@@ -16,6 +16,7 @@ import * as m0017 from "./0017_run_abandon";
 import * as m0019 from "./0019_release_signature";
 import * as m0020 from "./0020_evaluation_waits_for_acceptance";
 import * as m0021 from "./0021_lab_signing_key";
+import * as m0022 from "./0022_log_ingest_job";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -39,4 +40,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0019_release_signature": m0019,
   "0020_evaluation_waits_for_acceptance": m0020,
   "0021_lab_signing_key": m0021,
+  "0022_log_ingest_job": m0022,
 };

@@ -135,7 +135,8 @@ stop_mail_catcher() {
 
 case "$cmd" in
   start) start ;;
-  stop) stop; stop_s3_fake "${2:-demo}"; stop_mail_catcher "${2:-demo}" ;;
+  # The log worker first: it needs the database to leave its job in a clean state.
+  stop) if [ "${2:-demo}" = test ]; then stop_worker e2e; else stop_worker demo; fi; stop; stop_s3_fake "${2:-demo}"; stop_mail_catcher "${2:-demo}" ;;
   status) as_pg "$(pg_bin)/pg_ctl" -D "$PG_DATA" status ;;
   *) echo "usage: db.sh start|stop|status [demo|test]" >&2; exit 2 ;;
 esac

@@ -24,12 +24,14 @@ if [ -f .data/app.pid ] && kill -0 "$(cat .data/app.pid)" 2>/dev/null; then
   sleep 1
 fi
 
+log "starting the log worker"; start_worker demo "$DATABASE_URL"
+
 log "building the app"; npx next build >.data/next-build.log 2>&1 || { tail -40 .data/next-build.log; exit 1; }
 
 log "starting the app"
 setsid node scripts/serve.mjs -H 127.0.0.1 -p "$PORT" >.data/app.log 2>&1 &
 echo $! >.data/app.pid
-trap 'kill -- -"$(cat .data/app.pid)" 2>/dev/null; exit 0' INT TERM
+trap 'kill -- -"$(cat .data/app.pid)" 2>/dev/null; stop_worker demo; exit 0' INT TERM
 for _ in $(seq 1 60); do
   curl -fs "http://localhost:$PORT/api/health" >/dev/null 2>&1 && break
   sleep 0.5
@@ -38,5 +40,6 @@ curl -fs "http://localhost:$PORT/api/health" >/dev/null || { echo "the app did n
 
 npx tsx scripts/print-accounts.ts "http://localhost:$PORT"
 echo "E-mail goes to the local mail catcher (inbox: $MAIL_CATCHER_URL/messages, or Administration → E-mail in the app)."
-echo "Logs: .data/app.log. Press Ctrl-C to stop the app (PostgreSQL, the S3 fake and the mail catcher keep running: npm run db:stop stops them)."
+echo "Logs: .data/app.log and .data/worker-demo.log (the worker that reads uploaded data logs)."
+echo "Press Ctrl-C to stop the app and the worker (PostgreSQL, the S3 fake and the mail catcher keep running: npm run db:stop stops them)."
 wait

@@ -162,3 +162,36 @@ start_mail_catcher() {
   done
   echo "the mail catcher did not start; see .data/mail-$1.log" >&2; cat "$ROOT/.data/mail-$1.log" >&2; return 1
 }
+
+# The log worker (scripts/worker.ts, `npm run worker`): reads uploaded data logs for one database.
+# One per name (demo, e2e), started in the background with its own process group, pid under .data/.
+# Takes the database URL it serves; the S3_* settings come from start_s3_fake, so start that first.
+start_worker() {
+  local name="$1" url="$2" pid_file="$ROOT/.data/worker-$1.pid"
+  mkdir -p "$ROOT/.data"
+  if [ -f "$pid_file" ] && kill -0 "$(cat "$pid_file")" 2>/dev/null; then
+    echo "log worker ($name) already running"; return 0
+  fi
+  (cd "$ROOT" && DATABASE_URL="$url" LOG_INGEST_POLL_MS="${LOG_INGEST_POLL_MS:-1000}" setsid npx tsx --import ./scripts/allow-server-only.mjs scripts/worker.ts >"$ROOT/.data/worker-$name.log" 2>&1 &
+    echo $! >"$pid_file")
+  for _ in $(seq 1 100); do
+    grep -q "reading data logs" "$ROOT/.data/worker-$name.log" 2>/dev/null && { echo "log worker ($name) started"; return 0; }
+    kill -0 "$(cat "$pid_file")" 2>/dev/null || break
+    sleep 0.2
+  done
+  echo "the log worker did not start; see .data/worker-$name.log" >&2; cat "$ROOT/.data/worker-$name.log" >&2; return 1
+}
+
+stop_worker() {
+  local pid_file="$ROOT/.data/worker-$1.pid"
+  [ -f "$pid_file" ] || return 0
+  local pid; pid="$(cat "$pid_file")"
+  if kill -0 "$pid" 2>/dev/null; then
+    # SIGTERM: the worker finishes the job in hand (or leaves it to its lease) and exits.
+    kill -TERM -- -"$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
+    kill -KILL -- -"$pid" 2>/dev/null || true
+    echo "log worker ($1) stopped"
+  fi
+  rm -f "$pid_file"
+}

@@ -56,6 +56,9 @@ psql "${ADMIN_DATABASE_URL%/*}/postgres" -qc "drop database if exists cellwright
 DATABASE_URL="$E2E_OWNER_DATABASE_URL" npx tsx scripts/migrate.ts >/dev/null
 DATABASE_URL="$E2E_DATABASE_URL" npx tsx --import ./scripts/allow-server-only.mjs scripts/seed.ts >/dev/null
 npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next-build.log; exit 1; }
+# Uploaded logs are read by the worker, as in production; it stops with the test cluster (db.sh stop test).
+trap 'stop_worker e2e >/dev/null 2>&1 || true; bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true' EXIT
+start_worker e2e "$E2E_DATABASE_URL"
 PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json
 
 node scripts/test-summary.mjs test-reports/vitest-unit.json test-reports/vitest-integration.json test-reports/playwright.json

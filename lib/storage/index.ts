@@ -1,6 +1,7 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { createReadStream } from "node:fs";
+import { Readable } from "node:stream";
 import {
   CreateBucketCommand,
   DeleteObjectCommand,
@@ -140,4 +141,28 @@ export async function putObjectFromFile(key: string, file: { path: string; sizeB
     }),
   );
   return { key, sha256: file.sha256, sizeBytes: file.sizeBytes };
+}
+
+/**
+ * Streams bytes of a known length into the store, hashing them on the way: nothing is held on local
+ * disk or in memory beyond one chunk. The hash is the caller's to record; every later read is checked
+ * against it (lib/integrity). A body shorter or longer than `sizeBytes` fails the upload.
+ */
+export async function putObjectFromChunks(key: string, chunks: AsyncIterable<Uint8Array>, sizeBytes: number, contentType: string): Promise<StoredObject> {
+  const store = getStore();
+  await store.ready;
+  const hash = createHash("sha256");
+  let counted = 0;
+  async function* hashed(): AsyncIterable<Uint8Array> {
+    for await (const chunk of chunks) {
+      hash.update(chunk);
+      counted += chunk.byteLength;
+      yield chunk;
+    }
+  }
+  await store.client.send(
+    new PutObjectCommand({ Bucket: store.bucket, Key: key, Body: Readable.from(hashed()), ContentLength: sizeBytes, ContentType: contentType }),
+  );
+  if (counted !== sizeBytes) throw new Error(`the upload sent ${counted} bytes but declared ${sizeBytes}`);
+  return { key, sha256: hash.digest("hex"), sizeBytes };
 }

@@ -6,6 +6,10 @@
  * 2. our parse (streaming, typed arrays), then storage two ways in PostgreSQL:
  *    A. one row per 65 536-sample chunk, one uncompressed bytea per channel (STORAGE EXTERNAL);
  *    B. one row per sample loaded with binary COPY (pg-copy-streams);
+ *    A while parsing: the same chunks sent into one binary COPY as the parser hands them out, as the
+ *    app's log worker does (lib/runs/store-log-while-reading.ts), against parse-then-store A, in
+ *    alternating rounds (BENCH_ROUNDS, default 2) each beside its own floor, since a shared machine's
+ *    load changes from minute to minute;
  * 3. segmentation + step-by-step evaluation of the parsed log;
  * 4. a 2 000-point series read back from each store.
  */
@@ -19,6 +23,9 @@ import { from as copyFrom } from "pg-copy-streams";
 import { downsampleLttb, segment, writeLogCsv } from "../../lib/analysis";
 import { createLogParser, createScanFloor, type ColumnMapping } from "../../lib/analysis/log-import";
 import { evaluateRun, type RunEvaluationInput } from "../../lib/conformance";
+import { once } from "node:events";
+import { finished } from "node:stream/promises";
+import { COPY_BINARY_HEADER, COPY_BINARY_TRAILER, encodeCopyRow, float64Bytes } from "../../db/copy-binary";
 import { buildRatedCapacityRun } from "../../scenarios/rated-capacity-run";
 
 // One rated-capacity cycle (≈ 40 000 s of log) sampled every 0.02 s ≈ 2 million rows;
@@ -168,6 +175,79 @@ const evaluated = await timed("segment + evaluate the run step by step", () => {
   return { phases: phases.ok ? phases.value.length : 0, verdict: r.evaluation.verdict, deviating };
 });
 
+// Before and after: parse, then store A (as the upload request did), against A written while parsing
+// (as the worker does), alternating which goes first, each round beside a floor measured in that round.
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 2);
+async function parseThenStore(runId: number): Promise<number> {
+  const t0 = performance.now();
+  const p = createLogParser(mapping, { maxBytes: 1024 * 2 ** 20 });
+  for (const c of fileChunks()) if (p.push(c)) throw new Error("refused");
+  const r = p.finish();
+  if (!r.ok) throw new Error(r.error.message);
+  const client = await pool.connect();
+  try {
+    await client.query("begin");
+    for (let from = 0, chunk = 0; from < r.columns.length; from += CHUNK, chunk++) {
+      const to = Math.min(from + CHUNK, r.columns.length);
+      const c = r.columns;
+      await client.query(`insert into bench_channels values ($1, $2, $3, $4, $5, $6)`, [runId, chunk, bytes(c.timeS.subarray(from, to)), bytes(c.voltageV.subarray(from, to)), bytes(c.currentA.subarray(from, to)), c.temperatureC ? bytes(c.temperatureC.subarray(from, to)) : null]);
+    }
+    await client.query("commit");
+  } finally {
+    client.release();
+  }
+  return performance.now() - t0;
+}
+async function parseWhileStoring(runId: number): Promise<number> {
+  const t0 = performance.now();
+  const client = await pool.connect();
+  try {
+    await client.query("begin");
+    const copy = client.query(copyFrom(`copy bench_channels (run_id, chunk, time_s, voltage_v, current_a, temperature_c) from stdin (format binary)`, { highWaterMark: 8 * 2 ** 20 }));
+    const copied = finished(copy);
+    copy.write(COPY_BINARY_HEADER);
+    let chunk = 0;
+    const p = createLogParser(mapping, {
+      maxBytes: 1024 * 2 ** 20,
+      rowsPerPart: CHUNK,
+      onRows: ({ columns: c }) => {
+        const row = encodeCopyRow([{ int4: runId }, { int4: chunk++ }, { bytea: float64Bytes(c.timeS) }, { bytea: float64Bytes(c.voltageV) }, { bytea: float64Bytes(c.currentA) }, c.temperatureC ? { bytea: float64Bytes(c.temperatureC) } : null]);
+        for (const b of row) copy.write(b);
+      },
+    });
+    for (const c of fileChunks(1 << 20)) {
+      if (p.push(c)) throw new Error("refused");
+      if (copy.writableNeedDrain) await once(copy, "drain");
+    }
+    const r = p.finish();
+    if (!r.ok) throw new Error(r.error.message);
+    copy.end(COPY_BINARY_TRAILER);
+    await copied;
+    await client.query("commit");
+  } finally {
+    client.release();
+  }
+  return performance.now() - t0;
+}
+const roundLines: string[] = [];
+for (let round = 1, runId = 10; round <= ROUNDS; round++) {
+  const f = await timed(`round ${round}: floor`, () => {
+    const s = createScanFloor({ columnCount: 4, skipLines: 1 });
+    for (const c of fileChunks()) s.push(c);
+    return s.finish().rows;
+  });
+  const order = round % 2 === 1 ? (["before", "after"] as const) : (["after", "before"] as const);
+  const ms: Record<string, number> = {};
+  for (const which of order) {
+    ms[which] = which === "before" ? await parseThenStore(runId++) : await parseWhileStoring(runId++);
+    console.log(`round ${round}: ${which === "before" ? "parse, then store A" : "store A while parsing"}`.padEnd(58) + ` ${ms[which]!.toFixed(0).padStart(7)} ms`);
+  }
+  const e = await timed(`round ${round}: evaluate`, () => evaluateRun({ ...runInput, log }));
+  const load = (await import("node:os")).loadavg()[0]!.toFixed(2);
+  const ratio = (x: number) => ((x + e.ms) / f.ms).toFixed(2);
+  roundLines.push(`round ${round} (load ${load}): floor ${f.ms.toFixed(0)} ms, evaluate ${e.ms.toFixed(0)} ms; parse + store A + evaluate: before ${ratio(ms.before!)} × floor, after ${ratio(ms.after!)} × floor`);
+}
+
 const size = async (t: string) => (await pool.query(`select pg_total_relation_size($1) as n`, [t])).rows[0].n as string;
 const points = 2000;
 const stride = Math.floor(log.length / points);
@@ -207,7 +287,9 @@ phases found                ${evaluated.value.phases}; verdict: procedure follow
 on disk                     A ${(Number(sizeA) / 2 ** 20).toFixed(1)} MB, B ${(Number(sizeB) / 2 ** 20).toFixed(1)} MB
 ingest + evaluate           A ${ingestA.toFixed(0)} ms = ${(ingestA / floor.ms).toFixed(2)} × floor;  B ${ingestB.toFixed(0)} ms = ${(ingestB / floor.ms).toFixed(2)} × floor   (target ≤ 4 ×)
 2 000-point series          A ${readA.ms.toFixed(0)} ms (substring), A' ${readA2.ms.toFixed(0)} ms (whole channel + LTTB), B ${readB.ms.toFixed(0)} ms   (target ≤ 50 ms)
-peak RSS, ingest A path     ${Math.max(floor.peakMB, parsed.peakMB, storeA.peakMB, evaluated.peakMB).toFixed(0)} MB   (target ≤ 300 MB)`);
+peak RSS, ingest A path     ${Math.max(floor.peakMB, parsed.peakMB, storeA.peakMB, evaluated.peakMB).toFixed(0)} MB   (target ≤ 300 MB)
+parse + store A + evaluate, before (stored after parsing) and after (stored while parsing), target ≤ 2.0 × floor:
+${roundLines.map((l) => `  ${l}`).join("\n")}`);
 for (const f of evaluated.value.deviating) console.log(`  not "meets": ${f.stepId} #${f.cycle} ${f.rule}: ${f.outcome}; expected ${f.expected.text}; observed ${f.observed.text}`);
 void readA.value;
 void readA2.value;

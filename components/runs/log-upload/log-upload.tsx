@@ -1,16 +1,14 @@
 "use client";
 
-import { describeVerdictInline } from "@/components/runs/results/verdict-words";
 import { useRouter } from "next/navigation";
 import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { sniffBytes, sniffLog, type ColumnMapping, type LogSniff, type MappingDraft } from "@/lib/analysis/log-import";
-import type { UploadMessage } from "@/lib/runs/upload-progress";
 import { MappingFields } from "./mapping-fields";
 import { MappingPreviewView } from "./mapping-preview-view";
 import { readMappingPreview } from "./read-mapping-preview";
-import { sendLog, type SendProgress } from "./send-log";
+import { sendLog, type SendOutcome, type SendProgress } from "./send-log";
 
 type Chosen = { file: File; head: Uint8Array; sniff: LogSniff };
 
@@ -24,18 +22,22 @@ function formatMiB(bytes: number): string {
 
 /**
  * Choose a cycler log, confirm how its columns map, check the first rows and their plot, then send
- * it. The browser sniffs the first 64 KiB itself (sniffLog is pure); the server reads the whole file.
- * Once a log is stored the form closes: replacing it is a deliberate second choice.
+ * it. The browser sniffs the first 64 KiB itself (sniffLog is pure); the worker reads the whole file
+ * after the upload (LogReading follows it). Once a log is stored the form closes: replacing it is a
+ * deliberate second choice; while a log is being read there is no second upload.
  */
 export function LogUpload({
   runId,
   remembered,
   storedLog,
+  reading,
 }: {
   runId: string;
   remembered: { instrument: string; mapping: ColumnMapping } | null;
   /** The log stored now, if any: its file name. */
   storedLog: string | null;
+  /** A log of this run is waiting or being read. */
+  reading: boolean;
 }) {
   const router = useRouter();
   const fileId = useId();
@@ -45,9 +47,9 @@ export function LogUpload({
   const [sniffProblem, setSniffProblem] = useState<string | null>(null);
   const [remember, setRemember] = useState(true);
   const [progress, setProgress] = useState<SendProgress | null>(null);
-  const [outcome, setOutcome] = useState<UploadMessage | null>(null);
+  const [outcome, setOutcome] = useState<Extract<SendOutcome, { type: "failed" }> | null>(null);
   const [replacing, setReplacing] = useState(false);
-  const formOpen = storedLog === null || replacing;
+  const formOpen = !reading && (storedLog === null || replacing);
 
   const choose = async (file: File | undefined) => {
     setChosen(null);
@@ -76,11 +78,11 @@ export function LogUpload({
   const send = async () => {
     if (!chosen || !preview?.ok) return;
     setOutcome(null);
-    setProgress({ sentBytes: 0, totalBytes: chosen.file.size, parsedRows: 0, parsedBytes: 0 });
+    setProgress({ sentBytes: 0, totalBytes: chosen.file.size });
     const result = await sendLog({ runId, file: chosen.file, mapping: draft as ColumnMapping, remember, onProgress: setProgress });
-    setOutcome(result);
+    setOutcome(result.type === "failed" ? result : null);
     setProgress(null);
-    if (result.type === "stored") {
+    if (result.type === "queued") {
       setChosen(null);
       setDraft(null);
       setReplacing(false);
@@ -93,8 +95,13 @@ export function LogUpload({
       <h2 id="upload-heading" className="text-lg font-semibold">
         {storedLog === null ? "Upload the cycler's log" : "Replace the stored log"}
       </h2>
-      {outcome && <UploadOutcome outcome={outcome} />}
-      {!formOpen && (
+      {outcome && (
+        <Notice tone="problem" role="alert" title="The upload did not complete; nothing was stored">
+          {outcome.message}
+        </Notice>
+      )}
+      {reading && <p className="text-sm">A log of this run is being read (see “Latest upload” above). Another can be sent once it is done.</p>}
+      {!reading && !formOpen && (
         <div className="flex flex-col items-start gap-2 text-sm">
           <p>
             {storedLog} is stored and evaluated. Replace it only if it is the wrong file or incomplete: the stored one stays on file, marked as replaced, and
@@ -156,48 +163,9 @@ export function LogUpload({
             Sent {formatMiB(progress.sentBytes)} of {formatMiB(progress.totalBytes)}
             <progress className="ml-2 align-middle" max={progress.totalBytes} value={progress.sentBytes} />
           </label>
-          <span>
-            Read on the server: {progress.parsedRows.toLocaleString("en-GB")} rows ({formatMiB(progress.parsedBytes)})
-          </span>
+          <span>The log is read once the whole file has arrived; this page then shows how far the reading has come.</span>
         </div>
       )}
     </section>
   );
-}
-
-function UploadOutcome({ outcome }: { outcome: UploadMessage }) {
-  switch (outcome.type) {
-    case "stored":
-      return (
-        <Notice tone="done" role="status" title="Log stored">
-          {outcome.rows.toLocaleString("en-GB")} rows, SHA-256 <code className="break-all">{outcome.sha256}</code> (shown under “Current data log” above).{" "}
-          {outcome.verdict
-            ? `Evaluated: ${describeVerdictInline(outcome.verdict)}`
-            : outcome.evaluationProblem}
-          {outcome.warnings.map((w) => (
-            <span key={w} className="block">
-              {w}
-            </span>
-          ))}
-        </Notice>
-      );
-    case "refused":
-      return (
-        <Notice tone="problem" role="alert" title="The log was refused; nothing was stored">
-          {outcome.error.message}
-        </Notice>
-      );
-    case "failed":
-      return (
-        <Notice tone="problem" role="alert" title="The upload did not complete; nothing was stored">
-          {outcome.message}
-        </Notice>
-      );
-    case "progress":
-      return null;
-    default: {
-      const never: never = outcome;
-      return never;
-    }
-  }
 }

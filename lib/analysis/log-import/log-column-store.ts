@@ -22,6 +22,8 @@ export interface LogColumnStore {
   finish(): { columns: LogColumns; capacityAh?: Float64Array };
   /** Drops all rows, so a failed import holds no memory and keeps nothing. */
   release(): void;
+  /** A copy of rows [from, to) as finish() will give them (time in seconds from the first sample). */
+  copyRows(from: number, to: number): LogColumns;
 }
 
 const initialCapacity = 1 << 14;
@@ -114,15 +116,30 @@ export function createLogColumnStore({
     return "none";
   }
 
-  function finish(): { columns: LogColumns; capacityAh?: Float64Array } {
-    // Time in place: the stored values become seconds from the first sample.
+  const perUnit = isTimestamp ? 0 : secondsPerUnit[mapping.time.form === "elapsed" ? mapping.time.unit : "s"];
+  /** Seconds from the first sample, computed exactly as finish() does, so early copies equal the final columns. */
+  function toSeconds(target: Float64Array, source: Float64Array, from: number, to: number): void {
     const first = n > 0 ? (time[0] as number) : 0;
     if (isTimestamp) {
-      for (let k = 0; k < n; k++) time[k] = ((time[k] as number) - first) / 1000;
+      for (let k = from; k < to; k++) target[k - from] = ((source[k] as number) - first) / 1000;
     } else {
-      const perUnit = secondsPerUnit[mapping.time.form === "elapsed" ? mapping.time.unit : "s"];
-      for (let k = 0; k < n; k++) time[k] = ((time[k] as number) - first) * perUnit;
+      for (let k = from; k < to; k++) target[k - from] = ((source[k] as number) - first) * perUnit;
     }
+  }
+
+  function copyRows(from: number, to: number): LogColumns {
+    if (from < 0 || to > n || from > to) throw new RangeError(`Rows ${from}–${to} are not all in the store (it holds ${n}).`);
+    const timeS = new Float64Array(to - from);
+    toSeconds(timeS, time, from, to);
+    const columns: LogColumns = { timeS, voltageV: voltage.slice(from, to), currentA: current.slice(from, to), length: to - from };
+    if (tempi >= 0) columns.temperatureC = temperature.slice(from, to);
+    if (si >= 0) columns.cyclerStep = step.slice(from, to);
+    return columns;
+  }
+
+  function finish(): { columns: LogColumns; capacityAh?: Float64Array } {
+    // Time in place: the stored values become seconds from the first sample.
+    toSeconds(time, time, 0, n);
     // A mostly filled column is handed out as a view (no copy, so no second copy in memory at once);
     // a mostly empty one is copied to its length, so the spare capacity can be freed.
     const keepView = n >= capacity * 0.75;
@@ -150,6 +167,7 @@ export function createLogColumnStore({
       n = Math.min(n, length);
     },
     finish,
+    copyRows,
     release() {
       n = 0;
       capacity = 0;

@@ -1,12 +1,10 @@
 import type { LogColumns } from "../log-columns";
-import { columnMappingSchema, getDataStartLine, type ColumnMapping } from "./column-mapping";
-import { describeLineShape, describeRowProblem } from "./describe-row-problem";
-import { detectWrongFileType, fileTypeProbeBytes } from "./detect-file-type";
-import { createLogColumnStore, type LogColumnStore, type RoleIndexes } from "./log-column-store";
-import { formatLinePlace, type LogImportError, type LogImportErrorCode, type LogImportWarning } from "./log-import-error";
-import { readHeaderLine } from "./read-header";
-import { splitLine } from "./split-line";
-import { createFastRowSplitter, type FastRowSplitter } from "./split-rows-fast";
+import { columnMappingSchema, type ColumnMapping } from "./column-mapping";
+import { createLineFramer } from "./frame-lines";
+import { createLogColumnStore, type LogColumnStore } from "./log-column-store";
+import type { LogImportError, LogImportWarning } from "./log-import-error";
+import { createDataRows, stripCarriageReturn, type DataRows } from "./read-data-rows";
+import { createHeaderLines, type HeaderLines } from "./read-header-lines";
 
 export interface LogProgress {
   bytes: number;
@@ -22,6 +20,10 @@ export interface LogParserOptions {
   maxLineChars?: number;
   /** Told after each chunk how far the reading has come. */
   onProgress?: (progress: LogProgress) => void;
+  /** Given rows as soon as they are final, `rowsPerPart` at a time (the rest at the end), in SI units like `columns`. */
+  onRows?: (part: { first: number; columns: LogColumns }) => void;
+  /** Rows per part handed to `onRows`. Default 65 536. */
+  rowsPerPart?: number;
 }
 
 export interface ParsedLog {
@@ -47,19 +49,18 @@ export interface LogParser {
 }
 
 const defaultMaxLineChars = 1 << 20;
-/** Bytes held back before decoding a ZIP, enough to recognise an Office file by its first entries. */
-const headProbeBytes = 4096;
 
 /**
  * A streaming reader of a cycler's CSV log into typed-array columns. Bytes arrive in chunks of any
- * size; lines are framed here, so a line number is known for every message. Blocks of whole lines
- * are split into cells by udsv; a block that udsv cannot account for line by line (blank lines,
- * quotes, a short or long row, a bad value) is read again by a plain line splitter that names the
- * exact line and column of the first problem. Peak memory is the columns plus one block of text.
+ * size; lines are framed first (frame-lines), so a line number is known for every message; the lines
+ * before the data give the header (read-header-lines); data lines go row by row into the column store
+ * (read-data-rows, log-column-store). Peak memory is the columns plus one block of text. With
+ * `onRows`, every `rowsPerPart` rows are handed out as soon as they are final, so they can be stored
+ * while the rest is still being read.
  */
 export function createLogParser(mapping: ColumnMapping, options: LogParserOptions): LogParser {
-  const { maxBytes, maxRows = Number.POSITIVE_INFINITY, maxLineChars = defaultMaxLineChars, onProgress } = options;
-  if (!(maxBytes >= 0) || !(maxRows >= 0) || !(maxLineChars >= 1)) throw new RangeError("Log parser limits must be positive numbers.");
+  const { maxBytes, maxRows = Number.POSITIVE_INFINITY, maxLineChars = defaultMaxLineChars, onProgress, onRows, rowsPerPart = 65_536 } = options;
+  if (!(maxBytes >= 0) || !(maxRows >= 0) || !(maxLineChars >= 1) || !(rowsPerPart >= 1)) throw new RangeError("Log parser limits must be positive numbers.");
 
   const checked = columnMappingSchema.safeParse(mapping);
   let failure: LogImportError | null = checked.success
@@ -69,212 +70,59 @@ export function createLogParser(mapping: ColumnMapping, options: LogParserOption
         message: `The column mapping is not complete: ${checked.error.issues.map((i) => `${i.path.join(".") || "mapping"}: ${i.message}`).join("; ")}.`,
       };
   const m = checked.success ? checked.data : mapping;
-  const delimiter = m.delimiter;
-  const dataStartLine = getDataStartLine(m);
-
-  const decoder = new TextDecoder("utf-8", { fatal: false });
-  let bytes = 0;
-  let headParts: Uint8Array[] | null = [];
-  let headLength = 0;
-  let nulProbeLeft = fileTypeProbeBytes;
-  let tail: string[] = [];
-  let tailChars = 0;
   /** Complete lines read so far; the next line is lineNo + 1. */
   let lineNo = 0;
-  let sawText = false;
-  let header: string[] = [];
-  let indexes: RoleIndexes | null = null;
-  let store: LogColumnStore | null = null;
-  let splitFast: FastRowSplitter | null = null;
-  let previousRowLine = 0;
-  let firstTime = "";
-  let blankLines = 0;
-  let firstBlankLine = 0;
   const warnings: LogImportWarning[] = [];
+  let store: LogColumnStore | null = null;
+  let rows: DataRows | null = null;
+  let handedOut = 0;
   let result: LogParseResult | null = null;
 
+  const isRefused = () => failure !== null;
   function refuse(error: LogImportError): LogImportError {
     failure ??= error;
     store?.release();
-    tail = [];
-    headParts = null;
     return failure;
   }
 
-  function refuseAt(code: LogImportErrorCode, line: number, text: string, column?: string): false {
-    refuse({ code, message: `${formatLinePlace(line, column)}: ${text}`, line, ...(column === undefined ? {} : { column }) });
-    return false;
-  }
+  const headerLines = createHeaderLines({ mapping: m, warnings, refuse });
+  const framer = createLineFramer({ maxBytes, maxLineChars, nextLine: () => lineNo + 1, isRefused, refuse, onBlock: readBlock });
 
   function push(chunk: Uint8Array): LogImportError | null {
     if (result) throw new Error("The log parser has already finished.");
     if (failure) return failure;
-    if (bytes + chunk.length > maxBytes) {
-      bytes += chunk.length;
-      return refuse({
-        code: "too-large",
-        message: `The file is larger than the limit of ${formatBytes(maxBytes)}; reading stopped at line ${lineNo + 1}.`,
-        line: lineNo + 1,
-      });
-    }
-    bytes += chunk.length;
-    if (headParts) {
-      // Copied: the caller may reuse its buffer for the next chunk.
-      headParts.push(chunk.slice());
-      headLength += chunk.length;
-      // Eight bytes show any file type; a ZIP's first entries tell an Excel workbook from other archives.
-      if (headLength >= 8 && (headLength >= headProbeBytes || !isZipStart(headParts))) readHead();
-    } else {
-      if (nulProbeLeft > 0) {
-        if (chunk.subarray(0, nulProbeLeft).includes(0)) return refuseWrongType(Uint8Array.of(0));
-        nulProbeLeft -= chunk.length;
-      }
-      takeText(decoder.decode(chunk, { stream: true }));
-    }
-    onProgress?.({ bytes, rows: store?.length ?? 0 });
+    framer.push(chunk);
+    if (failure) return failure;
+    if (store && onRows) handOutWholeParts(store);
+    onProgress?.({ bytes: framer.bytes, rows: store?.length ?? 0 });
     return failure;
-  }
-
-  function refuseWrongType(head: Uint8Array): LogImportError {
-    return refuse({ code: "wrong-file-type", message: detectWrongFileType(head) ?? "This is not a CSV text log." });
-  }
-
-  function readHead(): void {
-    const parts = headParts ?? [];
-    headParts = null;
-    const head = new Uint8Array(headLength);
-    let at = 0;
-    for (const part of parts) {
-      head.set(part, at);
-      at += part.length;
-    }
-    if (detectWrongFileType(head) !== null) {
-      refuseWrongType(head);
-      return;
-    }
-    nulProbeLeft -= head.length;
-    takeText(decoder.decode(head, { stream: true }));
-  }
-
-  /** Frames decoded text into whole lines; an unfinished line waits in the tail. */
-  function takeText(text: string): void {
-    if (failure || text === "") return;
-    const lastBreak = text.lastIndexOf("\n");
-    if (lastBreak === -1) {
-      tail.push(text);
-      tailChars += text.length;
-      if (tailChars > maxLineChars) refuseAt("line-too-long", lineNo + 1, `the line is longer than ${maxLineChars} characters; this does not look like a CSV log.`);
-      return;
-    }
-    const block = tail.length === 0 ? text.slice(0, lastBreak + 1) : tail.join("") + text.slice(0, lastBreak + 1);
-    const rest = text.slice(lastBreak + 1);
-    tail = rest === "" ? [] : [rest];
-    tailChars = rest.length;
-    readBlock(block);
   }
 
   /** Reads a block of whole lines (it ends with a line break). */
   function readBlock(block: string): void {
     let pos = 0;
-    while (!store && pos < block.length && !failure) {
+    while (!rows && pos < block.length && !failure) {
       const end = block.indexOf("\n", pos);
-      if (!readLineBeforeData(stripCarriageReturn(block.slice(pos, end)), ++lineNo)) return;
+      if (!headerLines.read(stripCarriageReturn(block.slice(pos, end)), ++lineNo)) return;
       pos = end + 1;
+      if (headerLines.dataStarts) startData();
     }
-    if (!store || failure || pos >= block.length) return;
-    const data = pos === 0 ? block : block.slice(pos);
-    const lineCount = countLineBreaks(data);
-    if (data.indexOf('"') === -1 && readBlockFast(data, lineCount)) {
-      lineNo += lineCount;
-      previousRowLine = lineNo;
-      return;
-    }
-    readBlockByLine(data);
+    if (!rows || failure || pos >= block.length) return;
+    lineNo += rows.readBlock(pos === 0 ? block : block.slice(pos), lineNo + 1);
   }
 
-  /** Metadata, the header, and any lines between the header and the data. */
-  function readLineBeforeData(line: string, lineNumber: number): boolean {
-    const isBlank = line.trim() === "";
-    if (!isBlank) sawText = true;
-    // A blank header line is only an error once the file turns out to hold text at all.
-    if (lineNumber === m.headerLine && isBlank) return true;
-    if (lineNumber > m.headerLine && !indexes && !isBlank) return refuseAt("header-not-found", m.headerLine, "the line where the mapping expects the header is blank.");
-    if (lineNumber === m.headerLine && !readHeader(line, lineNumber)) return false;
-    if (lineNumber > m.headerLine && lineNumber < dataStartLine) {
-      warnings.push({ code: "lines-before-data-skipped", line: lineNumber, message: `Line ${lineNumber}, between the header and the data, was skipped.` });
-    }
-    if (lineNumber === dataStartLine - 1 && indexes) startData(indexes);
-    return true;
+  function startData(): void {
+    const { header, indexes } = headerLines.found as NonNullable<HeaderLines["found"]>;
+    store = createLogColumnStore({ mapping: m, indexes, maxRows });
+    rows = createDataRows({ mapping: m, header, indexes, store, maxRows, isRefused, refuse });
   }
 
-  function readHeader(line: string, lineNumber: number): boolean {
-    const reading = readHeaderLine({ line, lineNumber, mapping: m });
-    if (!reading.ok) {
-      refuse(reading.error);
-      return false;
+  /** Rows below the store's length are final once a push has been read (only the block being read is ever redone). */
+  function handOutWholeParts(s: LogColumnStore): void {
+    while (s.length - handedOut >= rowsPerPart) {
+      onRows?.({ first: handedOut, columns: s.copyRows(handedOut, handedOut + rowsPerPart) });
+      handedOut += rowsPerPart;
     }
-    ({ header, indexes } = reading);
-    warnings.push(...reading.warnings);
-    return true;
-  }
-
-  function startData(roles: RoleIndexes): void {
-    store = createLogColumnStore({ mapping: m, indexes: roles, maxRows });
-    splitFast = createFastRowSplitter({ header, delimiter });
-  }
-
-  /** udsv splits the block; if its rows do not account for every line, nothing of them is kept. */
-  function readBlockFast(block: string, lineCount: number): boolean {
-    const rows = store as LogColumnStore;
-    const start = rows.length;
-    if ((splitFast as FastRowSplitter)(block, lineCount, (row) => rows.append(row) === "none")) {
-      if (start === 0 && lineCount > 0) firstTime = firstTimeCell(block);
-      return true;
-    }
-    rows.truncate(start);
-    return false;
-  }
-
-  function firstTimeCell(block: string): string {
-    const end = block.indexOf("\n");
-    const cells = splitLine(stripCarriageReturn(block.slice(0, end)), delimiter);
-    return (cells?.[(indexes as RoleIndexes).time] ?? "").trim();
-  }
-
-  function readBlockByLine(block: string): void {
-    let pos = 0;
-    while (pos < block.length && !failure) {
-      const end = block.indexOf("\n", pos);
-      const line = stripCarriageReturn(block.slice(pos, end));
-      pos = end + 1;
-      readDataLine(line, ++lineNo, false);
-    }
-  }
-
-  function readDataLine(line: string, lineNumber: number, isUnterminatedLast: boolean): boolean {
-    if (line.trim() === "") {
-      if (blankLines++ === 0) firstBlankLine = lineNumber;
-      return true;
-    }
-    const split = splitLine(line, delimiter);
-    const shapeError = describeLineShape({ cells: split, lineNumber, header, mapping: m, isUnterminatedLast });
-    if (shapeError) {
-      refuse(shapeError);
-      return false;
-    }
-    // describeLineShape refuses a line that could not be split.
-    const cells = split as string[];
-    const rows = store as LogColumnStore;
-    const roles = indexes as RoleIndexes;
-    const problem = rows.append(cells);
-    if (problem !== "none") {
-      const previousTime = rows.lastTime;
-      refuse(describeRowProblem({ problem, badRole: rows.badRole, previousRowLine, previousTime, maxRows, cells, lineNumber, header, indexes: roles, mapping: m }));
-      return false;
-    }
-    if (rows.length === 1) firstTime = (cells[roles.time] as string).trim();
-    previousRowLine = lineNumber;
-    return true;
   }
 
   function finish(): LogParseResult {
@@ -284,19 +132,16 @@ export function createLogParser(mapping: ColumnMapping, options: LogParserOption
   }
 
   function settle(): LogParseResult {
-    if (!failure && headParts) {
-      if (headLength === 0) return { ok: false, error: refuse({ code: "empty-file", message: "The file is empty (0 bytes)." }) };
-      readHead();
-    }
-    if (!failure) takeText(decoder.decode());
-    if (!failure && tail.length > 0) readLastLine(tail.join(""));
+    const last = failure ? "" : framer.end();
+    if (last === null) return { ok: false, error: refuse({ code: "empty-file", message: "The file is empty (0 bytes)." }) };
+    if (!failure && last !== "") readLastLine(last);
     if (failure) return { ok: false, error: failure };
-    if (!sawText) return { ok: false, error: refuse({ code: "empty-file", message: "The file holds only blank lines." }) };
-    if (!indexes && lineNo >= m.headerLine) {
+    if (!headerLines.sawText) return { ok: false, error: refuse({ code: "empty-file", message: "The file holds only blank lines." }) };
+    if (!headerLines.found && lineNo >= m.headerLine) {
       const message = `Line ${m.headerLine}: the line where the mapping expects the header is blank.`;
       return { ok: false, error: refuse({ code: "header-not-found", message, line: m.headerLine }) };
     }
-    if (!indexes) {
+    if (!headerLines.found) {
       return {
         ok: false,
         error: refuse({
@@ -306,33 +151,40 @@ export function createLogParser(mapping: ColumnMapping, options: LogParserOption
         }),
       };
     }
-    if (!store || store.length === 0) {
+    if (!store || !rows || (store as LogColumnStore).length === 0) {
       return {
         ok: false,
         error: refuse({ code: "no-data-rows", message: `The file has a header on line ${m.headerLine} but no data rows after it.`, line: m.headerLine }),
       };
     }
-    if (blankLines > 0) {
-      const where = blankLines === 1 ? `Line ${firstBlankLine} is blank and was` : `${blankLines} blank lines (the first on line ${firstBlankLine}) were`;
-      warnings.push({ code: "blank-lines-skipped", line: firstBlankLine, message: `${where} skipped.` });
-    }
-    const { columns, capacityAh } = store.finish();
-    return { ok: true, columns, ...(capacityAh ? { capacityAh } : {}), rows: columns.length, bytes, firstTime, warnings };
+    const blank = (rows as DataRows).blankLinesWarning();
+    if (blank) warnings.push(blank);
+    const firstTime = (rows as DataRows).firstTime;
+    const { columns, capacityAh } = (store as LogColumnStore).finish();
+    if (onRows && handedOut < columns.length) onRows({ first: handedOut, columns: sliceColumns(columns, handedOut) });
+    return { ok: true, columns, ...(capacityAh ? { capacityAh } : {}), rows: columns.length, bytes: framer.bytes, firstTime, warnings };
   }
 
   /** The final line when the file does not end with a line break. */
   function readLastLine(text: string): void {
-    tail = [];
     const line = stripCarriageReturn(text);
     const lineNumber = ++lineNo;
-    if (!store) {
-      readLineBeforeData(line, lineNumber);
+    if (!rows) {
+      headerLines.read(line, lineNumber);
+      if (headerLines.dataStarts && !failure) startData();
       return;
     }
-    readDataLine(line, lineNumber, true);
+    rows.readLastLine(line, lineNumber);
   }
 
   return { push, finish };
+}
+
+function sliceColumns(c: LogColumns, from: number): LogColumns {
+  const out: LogColumns = { timeS: c.timeS.subarray(from), voltageV: c.voltageV.subarray(from), currentA: c.currentA.subarray(from), length: c.length - from };
+  if (c.temperatureC) out.temperatureC = c.temperatureC.subarray(from);
+  if (c.cyclerStep) out.cyclerStep = c.cyclerStep.subarray(from);
+  return out;
 }
 
 /** Reads a whole log from its chunks (an upload's stream, or one buffer), stopping at the first refusal. */
@@ -369,29 +221,4 @@ export async function parseLogAsync({
     if (error) return { ok: false, error };
   }
   return parser.finish();
-}
-
-function stripCarriageReturn(line: string): string {
-  return line.charCodeAt(line.length - 1) === 13 ? line.slice(0, -1) : line;
-}
-
-function countLineBreaks(text: string): number {
-  let count = 0;
-  for (let at = text.indexOf("\n"); at !== -1; at = text.indexOf("\n", at + 1)) count++;
-  return count;
-}
-
-function formatBytes(count: number): string {
-  if (count >= 1 << 20) return `${(count / (1 << 20)).toFixed(count % (1 << 20) === 0 ? 0 : 1)} MiB`;
-  if (count >= 1 << 10) return `${(count / (1 << 10)).toFixed(count % (1 << 10) === 0 ? 0 : 1)} KiB`;
-  return `${count} bytes`;
-}
-
-function isZipStart(parts: readonly Uint8Array[]): boolean {
-  const first: number[] = [];
-  for (const part of parts) {
-    for (const byte of part.subarray(0, 2 - first.length)) first.push(byte);
-    if (first.length === 2) break;
-  }
-  return first[0] === 0x50 && first[1] === 0x4b;
 }

@@ -1,19 +1,23 @@
 import { z } from "zod";
+import { LogReading } from "@/components/runs/log-upload/log-reading";
 import { LogUpload } from "@/components/runs/log-upload/log-upload";
 import { Notice } from "@/components/ui/notice";
 import { PlainLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
+import { listLogIngestJobs } from "@/db/log-ingest-jobs";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getRun } from "@/db/runs";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { getRememberedLogMapping } from "@/lib/runs/remember-log-mapping";
+import { isLogJobOpen, toLogJobStatus } from "@/lib/runs/log-ingest/log-job-status";
 import { isRunOpen } from "@/lib/runs/run-status";
 
 export default async function RunLogPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageAccess("/runs/[id]/log");
   const runId = z.uuid().parse((await params).id);
-  const [run, log] = await Promise.all([getRun(getDb(), runId), getCurrentRunLog(getDb(), runId)]);
+  const [run, log, [latestUpload]] = await Promise.all([getRun(getDb(), runId), getCurrentRunLog(getDb(), runId), listLogIngestJobs(getDb(), runId, 1)]);
+  const reading = latestUpload !== undefined && isLogJobOpen(latestUpload.state);
   const mayUpload = run !== null && isRunOpen(run.status) && can(user.role, "run.operate");
   const remembered = mayUpload ? await getRememberedLogMapping(runId) : null;
   return (
@@ -44,7 +48,15 @@ export default async function RunLogPage({ params }: { params: Promise<{ id: str
           <Notice>No data log has been uploaded for this run yet.</Notice>
         )}
       </section>
-      {mayUpload && <LogUpload runId={runId} remembered={remembered} storedLog={log?.fileName ?? null} />}
+      {latestUpload && (
+        <section aria-labelledby="latest-upload-heading" className="flex flex-col gap-2" data-testid="log-reading">
+          <h2 id="latest-upload-heading" className="text-lg font-semibold">
+            Latest upload
+          </h2>
+          <LogReading key={latestUpload.id} runId={runId} initial={toLogJobStatus(latestUpload)} />
+        </section>
+      )}
+      {mayUpload && <LogUpload runId={runId} remembered={remembered} storedLog={log?.fileName ?? null} reading={reading} />}
     </div>
   );
 }

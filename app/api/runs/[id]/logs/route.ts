@@ -1,16 +1,16 @@
 import { z } from "zod";
 import { getDb } from "@/db";
+import { listLogIngestJobs } from "@/db/log-ingest-jobs";
 import { getRun } from "@/db/runs";
 import { columnMappingSchema } from "@/lib/analysis/log-import";
 import { readLimitedChunks } from "@/lib/api/limited-body";
 import { refuseForeignUpload } from "@/lib/auth/foreign-origin";
 import { apiRoute } from "@/lib/auth/guards";
 import { DomainError } from "@/lib/errors";
-import { evaluateStoredRun } from "@/lib/runs/evaluate-stored-run";
-import { ingestLog, LOG_MAX_BYTES } from "@/lib/runs/ingest-log";
-import { rememberLogMapping } from "@/lib/runs/remember-log-mapping";
+import { toLogJobStatus } from "@/lib/runs/log-ingest/log-job-status";
+import { stageLogUpload } from "@/lib/runs/log-ingest/stage-log-upload";
 import { isRunOpen } from "@/lib/runs/run-status";
-import { encodeUploadMessage, throttleProgress, type UploadMessage } from "@/lib/runs/upload-progress";
+import { LOG_MAX_BYTES } from "@/lib/runs/store-log-while-reading";
 
 const querySchema = z.object({
   name: z.string().trim().min(1, "Name the file (?name=…).").max(200),
@@ -26,53 +26,39 @@ const querySchema = z.object({
 });
 
 /**
- * Upload of a cycler log as the raw request body (`?name=…&mapping=<JSON>&remember=1`), read as it
- * arrives. The answer is NDJSON (lib/runs/upload-progress): parse progress, then "stored" with the
- * verdict, or "refused" with the line and column, after which nothing of the upload is kept.
+ * Upload of a cycler log as the raw request body (`?name=…&mapping=<JSON>&remember=1`). The bytes go
+ * to object storage as they arrive and a job is queued; the log is read by the worker (docs/decisions/007).
+ * Answers 202 with where to follow the reading: GET on this same address.
  */
 const upload = apiRoute("/api/runs/[id]/logs", "POST", async (req, { user, params }) => {
   const id = z.uuid("Not a run id.").parse(params.id);
   const url = new URL(req.url);
   const q = querySchema.parse({ name: url.searchParams.get("name") ?? undefined, mapping: url.searchParams.get("mapping") ?? undefined, remember: url.searchParams.get("remember") ?? undefined });
-  const declared = Number(req.headers.get("content-length") ?? "0");
+  const declared = Number(req.headers.get("content-length") ?? Number.NaN);
   if (declared > LOG_MAX_BYTES) throw new DomainError("too-large", tooLargeLog(declared));
+  if (!Number.isSafeInteger(declared) || declared < 0) throw new DomainError("invalid", "Send the log file with its size (a Content-Length header), as a browser does.");
   const run = await getRun(getDb(), id);
   if (!run) throw new DomainError("not-found", "No such run.");
   if (!isRunOpen(run.status)) throw new DomainError("conflict", `Run ${run.number} is ${run.status.replace("_", " ")}; its log can no longer change.`);
   if (!req.body) throw new DomainError("invalid", "Send the log file as the request body.");
-  const body = req.body;
-
-  const encoder = new TextEncoder();
-  const stream = new ReadableStream<Uint8Array>({
-    async start(controller) {
-      const send = (m: UploadMessage) => controller.enqueue(encoder.encode(encodeUploadMessage(m)));
-      try {
-        const progress = throttleProgress<{ bytes: number; rows: number }>((p) => send({ type: "progress", ...p }), 200, Date.now);
-        const result = await ingestLog(user, id, { name: q.name, chunks: readLimitedChunks(body, LOG_MAX_BYTES, () => tooLargeLog()), mapping: q.mapping, onProgress: progress });
-        if (!result.ok) {
-          send({ type: "refused", error: result.error });
-          return;
-        }
-        if (q.remember === "1") await rememberLogMapping(user, id, q.mapping);
-        let verdict = null;
-        let evaluationProblem = null;
-        try {
-          verdict = (await evaluateStoredRun(user, id, { columns: result.columns })).verdict;
-        } catch (error) {
-          // The log is stored either way; an evaluation that cannot run yet (records missing) is said so.
-          evaluationProblem = error instanceof DomainError ? error.message : "The run could not be evaluated; the log is stored.";
-          if (!(error instanceof DomainError)) console.error(error);
-        }
-        send({ type: "stored", runLogId: result.runLogId, rows: result.rows, bytes: result.bytes, sha256: result.sha256, warnings: result.warnings, verdict, evaluationProblem });
-      } catch (error) {
-        if (!(error instanceof DomainError)) console.error(error);
-        send({ type: "failed", message: error instanceof DomainError ? error.message : "Something went wrong on the server; nothing was stored." });
-      } finally {
-        controller.close();
-      }
-    },
+  const { jobId } = await stageLogUpload(user, id, {
+    name: q.name,
+    chunks: readLimitedChunks(req.body, LOG_MAX_BYTES, () => tooLargeLog()),
+    sizeBytes: declared,
+    mapping: q.mapping,
+    remember: q.remember === "1",
   });
-  return new Response(stream, { headers: { "content-type": "application/x-ndjson; charset=utf-8", "cache-control": "no-store", "x-accel-buffering": "no" } });
+  const poll = `/api/runs/${id}/logs`;
+  return Response.json({ jobId, poll }, { status: 202, headers: { location: poll, "cache-control": "no-store" } });
+});
+
+/** The run's latest log uploads and how far each has been read, newest first. */
+export const GET = apiRoute("/api/runs/[id]/logs", "GET", async (_req, { params }) => {
+  const id = z.uuid("Not a run id.").parse(params.id);
+  const run = await getRun(getDb(), id);
+  if (!run) throw new DomainError("not-found", "No such run.");
+  const jobs = await listLogIngestJobs(getDb(), id);
+  return Response.json({ uploads: jobs.map(toLogJobStatus) }, { headers: { "cache-control": "no-store" } });
 });
 
 function tooLargeLog(declared?: number): string {
