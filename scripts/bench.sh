@@ -15,3 +15,6 @@ log "2-million-row log: ingest, store, evaluate, read back"
 npx tsx scripts/bench/log-ingest.ts --make
 node --import tsx scripts/bench/log-ingest.ts
 log "certificate: render and sign"; NODE_ENV=production npx tsx scripts/bench/certificate.ts
+
+# Pages under load: the current build beside the baseline build (CW_BENCH_BASELINE=skip for a quick run).
+log "pages: 20 signed-in clients, and single pages in Chromium"; bash scripts/bench/pages.sh
