@@ -1,10 +1,10 @@
-import Link from "next/link";
 import type { CellSpecificationView } from "@/db/cell-specifications";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import type { LotView } from "@/db/lots";
 import { computeMultipleOfIt, formatDischargeKey, listMultiplesOfIt, MAX_OVERLAID, type CompareQuery } from "@/lib/lot-results/compare-selection";
 import { isAboveRating } from "@/lib/lot-results/summarise-results";
 import { formatNumber } from "@/protocols";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 /** Most rows the list shows at once; the filters narrow it. */
 const MAX_LISTED = 200;
@@ -98,9 +98,9 @@ export function DischargeChooser({
             Overlay the ticked discharges
           </button>
           <span className="text-sm text-ink-soft">The filters apply too. At most {MAX_OVERLAID} at once.</span>
-          <Link href="/compare" className="text-sm text-copper-deep underline">
+          <HoverPrefetchLink href="/compare" className="text-sm text-copper-deep underline">
             Start again
-          </Link>
+          </HoverPrefetchLink>
         </div>
         {shown.length === 0 ? (
           <p className="text-sm text-ink-soft">No reviewed discharges match these filters.</p>

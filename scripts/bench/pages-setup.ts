@@ -21,23 +21,15 @@ async function main() {
   const sessions: string[] = [];
   for (let k = 0; k < CLIENTS; k++) sessions.push(await createSession(db, engineer.id, { client: `bench client ${k + 1}` }));
 
-  // The run results page of the accepted run with the largest evaluation (most findings and steps).
-  const run = await db
+  // The run results page of the demo's certified run (the one the issue's figures were taken on), and of the
+  // accepted run with the largest evaluation (most steps and findings).
+  const byEvaluationSize = db
     .selectFrom("run_evaluation as e")
     .innerJoin("run as r", "r.id", "e.run_id")
     .select(["r.id", "r.number", "r.specimen_id"])
-    .where("r.status", "in", ["accepted", "certified"])
-    .orderBy((eb) => eb.fn("length", [eb.cast("e.evaluation", "text")]), "desc")
-    .executeTakeFirstOrThrow();
-
-  // The specimen with the most reviewed discharges shows the fullest rate-capability table.
-  const specimen = await db
-    .selectFrom("run as r")
-    .select(["r.specimen_id", (eb) => eb.fn.countAll<string>().as("runs")])
-    .where("r.status", "in", ["accepted", "certified"])
-    .groupBy("r.specimen_id")
-    .orderBy("runs", "desc")
-    .executeTakeFirstOrThrow();
+    .orderBy((eb) => eb.fn("length", [eb.cast("e.evaluation", "text")]), "desc");
+  const largest = await byEvaluationSize.where("r.status", "in", ["accepted", "certified"]).executeTakeFirstOrThrow();
+  const certified = (await byEvaluationSize.where("r.status", "=", "certified").executeTakeFirst()) ?? largest;
 
   // The editor needs a draft: take one, or start one from a released version (as an engineer would).
   let draft = await db
@@ -55,9 +47,12 @@ async function main() {
   console.log(
     JSON.stringify({
       sessions,
-      runResults: `/runs/${run.id}/results`,
-      runNumber: run.number,
-      rateCapability: `/specimens/${specimen.specimen_id}/rate-capability`,
+      runResults: `/runs/${certified.id}/results`,
+      runNumber: certified.number,
+      largestRunResults: `/runs/${largest.id}/results`,
+      largestRunNumber: largest.number,
+      // Its specimen was discharged at several currents: the fullest rate-capability table and overlay.
+      rateCapability: `/specimens/${largest.specimen_id}/rate-capability`,
       editor: `/procedures/${draft.procedure_id}/versions/${draft.number}/edit`,
     }),
   );

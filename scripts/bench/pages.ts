@@ -22,6 +22,8 @@ interface Targets {
   sessions: string[];
   runResults: string;
   runNumber: string;
+  largestRunResults: string;
+  largestRunNumber: string;
   rateCapability: string;
   editor: string;
 }
@@ -126,6 +128,7 @@ async function main() {
   const comparePath = await findComparePath(servers[servers.length - 1]!.url);
   const alone = [
     { what: "run results page", path: targets.runResults },
+    { what: `run results page, largest evaluation (${targets.largestRunNumber})`, path: targets.largestRunResults },
     { what: "compare page", path: comparePath },
     { what: "procedure editor", path: targets.editor },
     { what: "rate-capability page", path: targets.rateCapability },
@@ -135,7 +138,7 @@ async function main() {
     { what: "run list API", path: "/api/runs" },
     { what: "certificate list", path: "/certificates" },
   ];
-  console.log(`pages: ${servers.map((s) => `${s.name} ${s.url}`).join(", ")}; ${CLIENTS} clients; run ${targets.runNumber}; load average ${load()}`);
+  console.log(`pages: ${servers.map((s) => `${s.name} ${s.url}`).join(", ")}; ${CLIENTS} clients; run ${targets.runNumber} (certified); load average ${load()}`);
 
   // Warm each server (first requests compile routes and fill caches), then check every page answers 200.
   for (const s of servers) {

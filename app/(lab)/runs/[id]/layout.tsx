@@ -1,13 +1,13 @@
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import { z } from "zod";
 import { RunTabs } from "@/components/runs/run-tabs";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 import { SignatureList } from "@/components/signatures/signature-manifestation";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db";
 import { listRunSignatures } from "@/db/reviews";
-import { getRun } from "@/db/runs";
+import { getRunSummary } from "@/db/runs";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
@@ -16,7 +16,7 @@ import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 export default async function RunLayout({ children, params }: { children: ReactNode; params: Promise<{ id: string }> }) {
   const user = await requirePagePermission("run.read");
   const id = z.uuid().safeParse((await params).id);
-  const [run, signatures] = id.success ? await Promise.all([getRun(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
+  const [run, signatures] = id.success ? await Promise.all([getRunSummary(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
   if (!run) notFound();
   const status = RUN_STATUS_WORDS[run.status];
   return (
@@ -25,13 +25,13 @@ export default async function RunLayout({ children, params }: { children: ReactN
         title={`Run ${run.number}`}
         lead={
           <>
-            <Link href={`/procedures/${run.procedure.id}/versions/${run.procedure.number}`} className="text-copper-deep underline">
+            <HoverPrefetchLink href={`/procedures/${run.procedure.id}/versions/${run.procedure.number}`} className="text-copper-deep underline">
               {run.procedure.code} version {run.procedure.number}
-            </Link>{" "}
+            </HoverPrefetchLink>{" "}
             ({run.procedure.title}) on specimen{" "}
-            <Link href={`/specimens/${run.specimen.id}`} className="text-copper-deep underline">
+            <HoverPrefetchLink href={`/specimens/${run.specimen.id}`} className="text-copper-deep underline">
               {run.specimen.identifier}
-            </Link>{" "}
+            </HoverPrefetchLink>{" "}
             · operator {run.operator.name} ·{" "}
             <span data-testid="run-status">
               <span aria-hidden="true">{status.mark} </span>

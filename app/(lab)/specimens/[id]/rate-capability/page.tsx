@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { PageHeader } from "@/components/ui/page-header";
@@ -8,6 +7,7 @@ import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lot-r
 import { readOrNotFound } from "@/lib/lot-results/or-not-found";
 import { readSpecimenResults } from "@/lib/lot-results/read-results";
 import { formatNumber } from "@/protocols";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 export const metadata: Metadata = { title: "Rate capability" };
 
@@ -21,18 +21,18 @@ export default async function SpecimenRateCapabilityPage({ params }: { params: P
         title={`Specimen ${specimen.identifier}: rate capability`}
         lead={
           <>
-            <Link href={`/specimens/${specimen.id}`} className="text-copper-deep underline">
+            <HoverPrefetchLink href={`/specimens/${specimen.id}`} className="text-copper-deep underline">
               Specimen {specimen.identifier}
-            </Link>
+            </HoverPrefetchLink>
             , {specification.maker} {specification.model} (It = {formatNumber(specification.data.ratedCapacityMah / 1000, { maxDecimals: 4 })} A, maximum continuous discharge current{" "}
             {formatNumber(specification.data.maxContinuousDischargeCurrentA, { maxDecimals: 3 })} A).
           </>
         }
         actions={
           overlay.length > 1 && (
-            <Link href={formatCompareHref({ specimenId: specimen.id, chosen: overlay })} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+            <HoverPrefetchLink href={formatCompareHref({ specimenId: specimen.id, chosen: overlay })} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
               Overlay its discharges
-            </Link>
+            </HoverPrefetchLink>
           )
         }
       />
@@ -47,9 +47,9 @@ export default async function SpecimenRateCapabilityPage({ params }: { params: P
             <ul className="list-disc pl-5 text-sm">
               {results.map((r) => (
                 <li key={`${r.runId}-${r.stepId}-${r.cycle}`}>
-                  <Link href={`/runs/${r.runId}/results`} className="text-copper-deep underline">
+                  <HoverPrefetchLink href={`/runs/${r.runId}/results`} className="text-copper-deep underline">
                     Run {r.runNumber}
-                  </Link>{" "}
+                  </HoverPrefetchLink>{" "}
                   ({r.procedureCode}, {r.runStatus}): {r.stepLabel}
                   {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}, {formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A,{" "}
                   {formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })} mAh

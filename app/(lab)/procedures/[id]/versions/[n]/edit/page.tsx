@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ProcedureEditor } from "@/components/procedure-editor";
 import { PageHeader } from "@/components/ui/page-header";
@@ -7,6 +6,7 @@ import { describeStatus } from "@/lib/procedures/lifecycle";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { saveDraftAction } from "./actions";
 import { loadVersionForEdit } from "./load-version";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 export const metadata: Metadata = { title: "Edit procedure" };
 
@@ -17,9 +17,9 @@ export default async function EditVersionPage({ params }: { params: Promise<{ id
   if (!v) notFound();
   const versionHref = `/procedures/${v.procedureId}/versions/${v.number}`;
   const back = (
-    <Link href={versionHref} className="text-sm text-copper-deep underline">
+    <HoverPrefetchLink href={versionHref} className="text-sm text-copper-deep underline">
       Version {v.number} of {v.code}
-    </Link>
+    </HoverPrefetchLink>
   );
   if (v.status !== "draft") {
     return (
@@ -28,13 +28,13 @@ export default async function EditVersionPage({ params }: { params: Promise<{ id
         <p className="rounded border border-rule bg-paper-deep p-4" role="note">
           Version {v.number} of <span className="font-mono">{v.code}</span> is {describeStatus(v.status)}, so it cannot be edited. Only a draft can
           be edited: read it on{" "}
-          <Link href={versionHref} className="text-copper-deep underline">
+          <HoverPrefetchLink href={versionHref} className="text-copper-deep underline">
             the version page
-          </Link>
+          </HoverPrefetchLink>
           , or start a new draft from it on{" "}
-          <Link href={`/procedures/${v.procedureId}`} className="text-copper-deep underline">
+          <HoverPrefetchLink href={`/procedures/${v.procedureId}`} className="text-copper-deep underline">
             the procedure&apos;s page
-          </Link>
+          </HoverPrefetchLink>
           .
         </p>
       </>
