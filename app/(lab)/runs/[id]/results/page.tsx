@@ -1,3 +1,4 @@
+import { preload } from "react-dom";
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
 import { FindingGroups } from "@/components/runs/results/finding-groups";
@@ -16,6 +17,7 @@ import { getLatestRunEvaluationHead } from "@/db/run-series";
 import { requirePagePermission } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { readEvaluationView } from "@/lib/runs/read-evaluation-view";
+import { formatRunSeriesUrl } from "@/lib/runs/run-series-url";
 import { loadFindingGroupAction } from "./actions";
 
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
@@ -43,6 +45,10 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   const { evaluation, decisionRule } = view;
   const discharges = evaluation.steps.filter((s) => s.kind === "discharge" && s.logPhase);
   const onCurrentLog = log !== null && stored.runLogId === log.id;
+  if (onCurrentLog) {
+    // The browser starts on the plots' data while the page's scripts load; the plots' own requests then find it.
+    for (const url of [formatRunSeriesUrl(runId), ...discharges.map((s) => formatRunSeriesUrl(runId, s))]) preload(url, { as: "fetch", crossOrigin: "anonymous" });
+  }
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="verdict-heading" className="flex flex-wrap items-start justify-between gap-4">
