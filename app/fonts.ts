@@ -19,4 +19,6 @@ export const merriweatherExt = localFont({
   ],
   variable: "--font-merriweather-ext",
   display: "swap",
+  // Fetched only when a page has a letter the latin files lack, not ahead on every page.
+  preload: false,
 });

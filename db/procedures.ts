@@ -97,6 +97,20 @@ export async function listProcedureVersions(db: Executor, procedureId: string): 
   return (await versionQuery(db).where("v.procedure_id", "=", procedureId).orderBy("v.number", "desc").execute()).map(toView);
 }
 
+/** Each version's number and status, without its content (what a choice of versions needs). */
+export async function listProcedureVersionStates(
+  db: Executor,
+  procedureId: string,
+): Promise<{ id: string; code: string; number: number; status: ProcedureVersionView["status"] }[]> {
+  return db
+    .selectFrom("procedure_version as v")
+    .innerJoin("procedure as p", "p.id", "v.procedure_id")
+    .select(["v.id", "p.code", "v.number", "v.status"])
+    .where("v.procedure_id", "=", procedureId)
+    .orderBy("v.number", "desc")
+    .execute();
+}
+
 export interface ProcedureSummary {
   id: string;
   code: string;

@@ -95,3 +95,16 @@ export async function getLatestRunEvaluation(db: Executor, runId: string): Promi
     .executeTakeFirst();
   return r ? { id: r.id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at, evaluation: parseStoredEvaluation(r.evaluation) } : null;
 }
+
+/** The run's latest evaluation without its JSON: which one it is, on which log, and when. */
+export async function getLatestRunEvaluationHead(db: Executor, runId: string): Promise<Omit<StoredRunEvaluation, "evaluation"> | null> {
+  const r = await db
+    .selectFrom("run_evaluation")
+    .select(["id", "run_log_id", "evaluated_at"])
+    .where("run_id", "=", runId)
+    .orderBy("evaluated_at", "desc")
+    .orderBy("id")
+    .limit(1)
+    .executeTakeFirst();
+  return r ? { id: r.id, runLogId: r.run_log_id, evaluatedAt: r.evaluated_at } : null;
+}

@@ -8,6 +8,9 @@ import type { RunStatus } from "./schema";
 
 export type { RunStatus };
 
+/** What a list of runs shows: no procedure JSON (resolution, rating, source), which lists never read. */
+export type RunSummary = Omit<RunView, "resolution" | "cellRating" | "procedureSource">;
+
 export interface RunView {
   id: string;
   number: string;
@@ -26,7 +29,7 @@ export interface RunView {
   abandoned: { at: Date; by: string; reason: string } | null;
 }
 
-function runQuery(db: Executor) {
+function runSummaryQuery(db: Executor) {
   return db
     .selectFrom("run as r")
     .innerJoin("procedure_version as v", "v.id", "r.procedure_version_id")
@@ -51,18 +54,20 @@ function runQuery(db: Executor) {
       "s.cell_specification_id",
       "o.id as operator_id",
       "o.display_name as operator_name",
-      "r.resolution",
-      "r.cell_rating",
-      "r.procedure_source",
       "r.created_at",
       "r.started_at",
       "r.submitted_at",
     ]);
 }
 
+function runQuery(db: Executor) {
+  return runSummaryQuery(db).select(["r.resolution", "r.cell_rating", "r.procedure_source"]);
+}
+
+type SummaryRow = Awaited<ReturnType<ReturnType<typeof runSummaryQuery>["executeTakeFirstOrThrow"]>>;
 type Row = Awaited<ReturnType<ReturnType<typeof runQuery>["executeTakeFirstOrThrow"]>>;
 
-function toView(r: Row): RunView {
+function toSummary(r: SummaryRow): RunSummary {
   return {
     id: r.id,
     number: r.number,
@@ -71,14 +76,20 @@ function toView(r: Row): RunView {
     procedure: { id: r.procedure_id, code: r.code, title: r.title, number: r.version_number },
     specimen: { id: r.specimen_id, identifier: r.specimen_identifier, cellSpecificationId: r.cell_specification_id },
     operator: { id: r.operator_id, name: r.operator_name },
-    // Written only by lib/runs from a checked resolution.
-    resolution: r.resolution as ProcedureResolution,
-    cellRating: r.cell_rating as CellRating,
-    procedureSource: r.procedure_source as { standard: string; clause: string },
     createdAt: r.created_at,
     startedAt: r.started_at,
     submittedAt: r.submitted_at,
     abandoned: r.abandoned_at && r.abandon_reason ? { at: r.abandoned_at, by: r.abandoned_by_name ?? "unknown", reason: r.abandon_reason } : null,
+  };
+}
+
+function toView(r: Row): RunView {
+  return {
+    ...toSummary(r),
+    // Written only by lib/runs from a checked resolution.
+    resolution: r.resolution as ProcedureResolution,
+    cellRating: r.cell_rating as CellRating,
+    procedureSource: r.procedure_source as { standard: string; clause: string },
   };
 }
 
@@ -93,15 +104,21 @@ export async function getRun(db: Executor, id: string, opts: { forUpdate?: boole
   return r ? toView(r) : null;
 }
 
+/** A run's header (numbers, names, status) without the procedure JSON. */
+export async function getRunSummary(db: Executor, id: string): Promise<RunSummary | null> {
+  const r = await runSummaryQuery(db).where("r.id", "=", id).executeTakeFirst();
+  return r ? toSummary(r) : null;
+}
+
 export async function listRuns(
   db: Executor,
   filter: { status?: RunStatus; specimenId?: string; operatorId?: string; limit?: number } = {},
-): Promise<RunView[]> {
-  let q = runQuery(db).orderBy("r.created_at", "desc").limit(filter.limit ?? 200);
+): Promise<RunSummary[]> {
+  let q = runSummaryQuery(db).orderBy("r.created_at", "desc").limit(filter.limit ?? 200);
   if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
   if (filter.status) q = q.where("r.status", "=", filter.status);
   if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
-  return (await q.execute()).map(toView);
+  return (await q.execute()).map(toSummary);
 }
 
 /** The columns the run list sorts by, and the column each stands for. */

@@ -17,3 +17,6 @@ node --import tsx scripts/bench/log-ingest.ts
 # Two fresh processes: one as before any preloading, one after what instrumentation.ts does at server start.
 log "certificate: render and sign, in a process that did not preload"; NODE_ENV=production npx tsx scripts/bench/certificate.ts
 log "certificate: render and sign, after the start-up preload"; NODE_ENV=production npx tsx scripts/bench/certificate.ts --preloaded
+
+# Pages under load: the current build beside the baseline build (CW_BENCH_BASELINE=skip for a quick run).
+log "pages: 20 signed-in clients, and single pages in Chromium"; bash scripts/bench/pages.sh

@@ -114,7 +114,7 @@ stop() {
 }
 
 stop_s3_fake() {
-  case "$1" in demo | test) ;; *) return 0 ;; esac
+  case "$1" in demo | test | bench) ;; *) return 0 ;; esac
   s3_profile "$1"
   if [ -f "$S3_PID_FILE" ] && kill -0 "$(cat "$S3_PID_FILE")" 2>/dev/null; then
     kill -- -"$(cat "$S3_PID_FILE")" 2>/dev/null || kill "$(cat "$S3_PID_FILE")"
@@ -124,7 +124,7 @@ stop_s3_fake() {
 }
 
 stop_mail_catcher() {
-  case "$1" in demo | test) ;; *) return 0 ;; esac
+  case "$1" in demo | test | bench) ;; *) return 0 ;; esac
   mail_profile "$1"
   if [ -f "$MAIL_PID_FILE" ] && kill -0 "$(cat "$MAIL_PID_FILE")" 2>/dev/null; then
     kill -- -"$(cat "$MAIL_PID_FILE")" 2>/dev/null || kill "$(cat "$MAIL_PID_FILE")"
@@ -138,5 +138,5 @@ case "$cmd" in
   # The log worker first: it needs the database to leave its job in a clean state.
   stop) if [ "${2:-demo}" = test ]; then stop_worker e2e; else stop_worker demo; fi; stop; stop_s3_fake "${2:-demo}"; stop_mail_catcher "${2:-demo}" ;;
   status) as_pg "$(pg_bin)/pg_ctl" -D "$PG_DATA" status ;;
-  *) echo "usage: db.sh start|stop|status [demo|test]" >&2; exit 2 ;;
+  *) echo "usage: db.sh start|stop|status [demo|test|bench]" >&2; exit 2 ;;
 esac

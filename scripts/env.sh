@@ -112,6 +112,7 @@ s3_profile() {
   case "${1:-demo}" in
     demo) S3_PORT=$((54340 + SHIFT)); S3_DIR="$ROOT/.data/s3" ;;
     test) S3_PORT=$((54341 + SHIFT)); S3_DIR="$ROOT/.data/s3-test" ;;
+    bench) S3_PORT=$((54346 + SHIFT)); S3_DIR="$ROOT/.data/s3-bench" ;;
   esac
   export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET=cellwright S3_REGION=us-east-1
   export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
@@ -140,7 +141,8 @@ mail_profile() {
   case "${1:-demo}" in
     demo) MAIL_SMTP_PORT=$((54342 + SHIFT)); MAIL_HTTP_PORT=$((54344 + SHIFT)) ;;
     test) MAIL_SMTP_PORT=$((54343 + SHIFT)); MAIL_HTTP_PORT=$((54345 + SHIFT)) ;;
-    *) echo "unknown mail profile: $1 (demo|test)" >&2; return 2 ;;
+    bench) MAIL_SMTP_PORT=$((54347 + SHIFT)); MAIL_HTTP_PORT=$((54348 + SHIFT)) ;;
+    *) echo "unknown mail profile: $1 (demo|test|bench)" >&2; return 2 ;;
   esac
   MAIL_DIR="$ROOT/.data/mail-${1:-demo}"
   MAIL_PID_FILE="$ROOT/.data/mail-${1:-demo}.pid"

@@ -1,4 +1,3 @@
-import Link from "next/link";
 import type { ReactNode } from "react";
 import { LabNav } from "@/components/nav/lab-nav";
 import { QueryProvider } from "@/components/providers/query-provider";
@@ -8,6 +7,7 @@ import { requirePageUser } from "@/lib/auth/guards";
 import { can, ROLE_LABELS } from "@/lib/auth/permissions";
 import { NAV_ITEMS } from "@/lib/navigation";
 import { signOutAction } from "./actions";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 // No loading.tsx at this level: the sign-in check must finish before the response starts, so a
 // missing session answers with a real redirect and a missing permission with a real 403.
@@ -23,16 +23,16 @@ export default async function LabLayout({ children }: { children: ReactNode }) {
       <header className="border-b border-rule bg-paper-deep">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3 px-4 py-3">
           <div className="flex items-baseline gap-3">
-            <Link href="/" className="font-serif text-xl font-bold">
+            <HoverPrefetchLink href="/" className="font-serif text-xl font-bold">
               Cell<span className="text-copper">wright</span>
-            </Link>
+            </HoverPrefetchLink>
             {lab && <span className="text-sm text-ink-soft">{lab.name}</span>}
           </div>
           <div className="flex items-center gap-3 text-sm">
             <span>
-              <Link href="/account" className="font-medium hover:underline" data-testid="signed-in-name" title="Your account: password and sessions">
+              <HoverPrefetchLink href="/account" className="font-medium hover:underline" data-testid="signed-in-name" title="Your account: password and sessions">
                 {user.displayName}
-              </Link>{" "}
+              </HoverPrefetchLink>{" "}
               <span className="text-ink-soft">· {ROLE_LABELS[user.role]}</span>
             </span>
             <form action={signOutAction}>

@@ -7,13 +7,12 @@ import { getJson } from "@/components/procedure-preview/post-json";
 import { UplotChart } from "@/components/runs/results/uplot-chart";
 import type { OverlaySeriesView } from "@/lib/lots/results/compare-series-view";
 import type { OverlayStyle } from "@/lib/lots/results/overlay-style";
-
-const POINTS = 1000;
+import { formatOverlaySeriesUrl, OVERLAY_POINTS as POINTS } from "@/lib/lots/results/overlay-series-url";
 
 /** The chosen discharges' V–Q curves in one uPlot chart; each curve keeps the colour and pattern of its legend row. */
 export function OverlayChart({ keys, styles }: { keys: string[]; styles: Record<string, OverlayStyle> }) {
-  const query = new URLSearchParams([...keys.map((k) => ["d", k]), ["points", String(POINTS)]]).toString();
-  const q = useQuery({ queryKey: ["overlay-series", query], queryFn: ({ signal }) => getJson<OverlaySeriesView>(`/api/compare/series?${query}`, signal) });
+  const url = formatOverlaySeriesUrl(keys);
+  const q = useQuery({ queryKey: ["overlay-series", url], queryFn: ({ signal }) => getJson<OverlaySeriesView>(url, signal) });
   const chart = useMemo(() => {
     if (!q.data || q.data.series.length === 0) return null;
     const { series } = q.data;

@@ -1,4 +1,3 @@
-import Link from "next/link";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import {
   computeMultipleOfIt,
@@ -10,6 +9,7 @@ import {
   type DischargeKey,
 } from "@/lib/lots/results/compare-selection";
 import { formatNumber } from "@/protocols";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 const it = (m: number) => `${formatNumber(m, { maxDecimals: 2 })} It`;
 
@@ -19,9 +19,9 @@ function Preset({ title, description, href, testId }: { title: string; descripti
       <p className="font-semibold">{title}</p>
       <p className="mb-2 text-sm text-ink-soft">{description}</p>
       {href ? (
-        <Link href={href} className="rounded border border-copper bg-copper px-3 py-1 text-sm font-medium text-paper hover:bg-copper-deep">
+        <HoverPrefetchLink href={href} className="rounded border border-copper bg-copper px-3 py-1 text-sm font-medium text-paper hover:bg-copper-deep">
           Overlay these
-        </Link>
+        </HoverPrefetchLink>
       ) : (
         <p className="text-sm">Not enough reviewed discharges for this among the ones listed.</p>
       )}

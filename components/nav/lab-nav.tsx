@@ -1,8 +1,8 @@
 "use client";
 
 import clsx from "clsx";
-import Link from "next/link";
 import { usePathname } from "next/navigation";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 export function LabNav({ items }: { items: { href: string; label: string }[] }) {
   const pathname = usePathname();
@@ -13,7 +13,7 @@ export function LabNav({ items }: { items: { href: string; label: string }[] }) 
           const current = item.href === "/" ? pathname === "/" : pathname.startsWith(item.href);
           return (
             <li key={item.href}>
-              <Link
+              <HoverPrefetchLink
                 href={item.href}
                 aria-current={current ? "page" : undefined}
                 className={clsx(
@@ -22,7 +22,7 @@ export function LabNav({ items }: { items: { href: string; label: string }[] }) 
                 )}
               >
                 {item.label}
-              </Link>
+              </HoverPrefetchLink>
             </li>
           );
         })}

@@ -1,12 +1,23 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import { useFormContext } from "react-hook-form";
-import { RichTextEditor } from "@/components/rich-text/rich-text-editor";
 import type { RichTextDoc } from "@/lib/rich-text";
 import { AcknowledgementsList } from "./acknowledgements-list";
 import { fieldId } from "./field-paths";
 import { useSubtreeErrors, useUpdateDraft } from "./use-draft-field";
+
+// Tiptap and ProseMirror are the largest part of the editor page's scripts: they load on their own, after
+// the step fields are usable (docs/decisions/fast-pages.md).
+const RichTextEditor = dynamic(() => import("@/components/rich-text/rich-text-editor").then((m) => m.RichTextEditor), {
+  ssr: false,
+  loading: () => (
+    <p role="status" className="rounded border border-rule bg-paper-deep px-3 py-2 text-sm text-ink-soft">
+      Loading the text editor…
+    </p>
+  ),
+});
 
 /** The procedure's rich-text instructions and safety cautions, and the acknowledged cautions. */
 export function RichTextFields() {

@@ -1,8 +1,8 @@
 "use client";
 
 import clsx from "clsx";
-import Link from "next/link";
 import { usePathname } from "next/navigation";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 /**
  * The views of one run: what was done, the cycler's log, what the checks found, the review (for
@@ -24,13 +24,13 @@ export function RunTabs({ runId, showReview }: { runId: string; showReview: bool
           const current = pathname === t.href;
           return (
             <li key={t.href}>
-              <Link
+              <HoverPrefetchLink
                 href={t.href}
                 aria-current={current ? "page" : undefined}
                 className={clsx("block border-b-2 px-3 py-2 text-sm", current ? "border-copper font-semibold text-copper-deep" : "border-transparent hover:text-copper-deep")}
               >
                 {t.label}
-              </Link>
+              </HoverPrefetchLink>
             </li>
           );
         })}

@@ -1,10 +1,10 @@
 import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { TextLink } from "@/components/ui/text-link";
-import type { RunView } from "@/db/runs";
+import type { RunSummary } from "@/db/runs";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 
 /** Every run of one specimen, abandoned ones included with their reason, newest first. */
-export function SpecimenRuns({ runs }: { runs: RunView[] }) {
+export function SpecimenRuns({ runs }: { runs: RunSummary[] }) {
   return (
     <section aria-labelledby="specimen-runs-heading" className="mt-8 max-w-4xl" data-testid="specimen-runs">
       <h2 id="specimen-runs-heading" className="mb-2 font-serif text-lg font-bold">

@@ -118,3 +118,21 @@ serverAction.plain = function plain<A extends ActionAccess>(
     }
   };
 };
+
+/**
+ * A read-only action called with one argument that answers data rather than a form state (the findings
+ * of one step, opened on the results page): `(argument) → data | { message }`. Failures come back as
+ * plain words, as for the other kinds.
+ */
+serverAction.read = function read<A extends ActionAccess, S extends z.ZodType, R>(
+  spec: ActionSpec<A, S> & { input: S },
+  body: Body<A, S, R>,
+): (argument: z.input<S>) => Promise<R | { message: string }> {
+  return async (argument) => {
+    try {
+      return await run(spec, argument, new FormData(), body);
+    } catch (error) {
+      return { message: fail(error).message ?? "The server could not answer. Try again." };
+    }
+  };
+};

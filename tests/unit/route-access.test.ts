@@ -70,7 +70,7 @@ describe("every server action is built with serverAction", () => {
     it(e.file, () => {
       const source = read(e);
       const exported = [...source.matchAll(/^export\s+(?:async\s+)?(?:const|function|let|var)\s+(\w+)/gm)].map((m) => m[1]!);
-      const wrapped = new Set([...source.matchAll(/^export const (\w+)\s*=\s*serverAction(?:\.withArgument|\.plain)?\(/gm)].map((m) => m[1]!));
+      const wrapped = new Set([...source.matchAll(/^export const (\w+)\s*=\s*serverAction(?:\.withArgument|\.plain|\.read)?\(/gm)].map((m) => m[1]!));
       const bare = exported.filter((name) => !wrapped.has(name));
       expect(bare.map((name) => `${name} in ${e.file} is not built with serverAction`)).toEqual([]);
       expect(exported.length).toBeGreaterThan(0);

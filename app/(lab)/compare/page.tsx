@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
+import { preload } from "react-dom";
 import { DischargeChooser } from "@/components/lot-results/discharge-chooser";
-import { OverlayChart } from "@/components/lot-results/overlay-chart";
+import { OverlayChart } from "@/components/lot-results/overlay-chart-lazy";
 import { OverlayLegend } from "@/components/lot-results/overlay-legend";
 import { OverlayPresets } from "@/components/lot-results/overlay-presets";
 import { Notice } from "@/components/ui/notice";
@@ -14,6 +15,7 @@ import { requirePageAccess } from "@/lib/auth/guards";
 import { formatDischargeKey, isAtMultiple, readCompareQuery } from "@/lib/lots/results/compare-selection";
 import { pickOverlayStyle, type OverlayStyle } from "@/lib/lots/results/overlay-style";
 import { findChosenDischarges } from "@/lib/lots/results/read-overlay-series";
+import { formatOverlaySeriesUrl } from "@/lib/lots/results/overlay-series-url";
 
 export const metadata: Metadata = { title: "Compare discharges" };
 
@@ -31,6 +33,8 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
   const styles: Record<string, OverlayStyle> = Object.fromEntries(rows.map((r, k) => [formatDischargeKey(r), pickOverlayStyle(k)]));
   const keys = rows.map(formatDischargeKey);
   const csv = new URLSearchParams(keys.map((k) => ["d", k])).toString();
+  // The browser starts on the curves while the page's scripts load; the chart's own request then finds them.
+  if (keys.length > 0) preload(formatOverlaySeriesUrl(keys), { as: "fetch", crossOrigin: "anonymous" });
   return (
     <>
       <PageHeader

@@ -5,14 +5,14 @@ import { useMemo } from "react";
 import type uPlot from "uplot";
 import { getJson } from "@/components/procedure-preview/post-json";
 import type { CapacitySeriesView, TimeSeriesView } from "@/lib/runs/run-series-view";
+import { formatRunSeriesUrl } from "@/lib/runs/run-series-url";
 import { shadeStepBands } from "./step-bands-plugin";
 import { UplotChart } from "./uplot-chart";
 
-const POINTS = 2000;
 
 /** V, I and T against time (hours), steps shaded; the server thins the log to about 2 000 points. */
 export function TimePlot({ runId }: { runId: string }) {
-  const q = useQuery({ queryKey: ["run-series", runId, "time"], queryFn: ({ signal }) => getJson<TimeSeriesView>(`/api/runs/${runId}/series?points=${POINTS}`, signal) });
+  const q = useQuery({ queryKey: ["run-series", runId, "time"], queryFn: ({ signal }) => getJson<TimeSeriesView>(formatRunSeriesUrl(runId), signal) });
   const chart = useMemo(() => {
     if (!q.data) return null;
     const s = q.data;
@@ -54,7 +54,7 @@ export function TimePlot({ runId }: { runId: string }) {
 export function CapacityPlot({ runId, stepId, cycle, label }: { runId: string; stepId: string; cycle: number; label: string }) {
   const q = useQuery({
     queryKey: ["run-series", runId, stepId, cycle],
-    queryFn: ({ signal }) => getJson<CapacitySeriesView>(`/api/runs/${runId}/series?step=${encodeURIComponent(stepId)}&cycle=${cycle}&points=${POINTS}`, signal),
+    queryFn: ({ signal }) => getJson<CapacitySeriesView>(formatRunSeriesUrl(runId, { stepId, cycle }), signal),
   });
   const chart = useMemo(() => {
     if (!q.data) return null;

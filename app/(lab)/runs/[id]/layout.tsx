@@ -7,7 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
 import { listRunSignatures } from "@/db/reviews";
-import { getRun } from "@/db/runs";
+import { getRunSummary } from "@/db/runs";
 import { requireAreaAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
 import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
@@ -16,7 +16,7 @@ import { RUN_STATUS_WORDS } from "@/lib/runs/run-status";
 export default async function RunLayout({ children, params }: { children: ReactNode; params: Promise<{ id: string }> }) {
   const user = await requireAreaAccess("/runs/[id]");
   const id = z.uuid().safeParse((await params).id);
-  const [run, signatures] = id.success ? await Promise.all([getRun(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
+  const [run, signatures] = id.success ? await Promise.all([getRunSummary(getDb(), id.data), listRunSignatures(getDb(), id.data)]) : [null, []];
   if (!run) notFound();
   const status = RUN_STATUS_WORDS[run.status];
   return (

@@ -1,36 +1,41 @@
+import { preload } from "react-dom";
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
-import { FindingsTable, type FindingRow } from "@/components/runs/results/findings-table";
+import { FindingGroups } from "@/components/runs/results/finding-groups";
 import { ResultsTable } from "@/components/runs/results/results-table";
 import { RetentionTable } from "@/components/runs/results/retention-table";
-import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots";
+import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots-lazy";
 import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
 import { UncertaintySection } from "@/components/runs/results/uncertainty-section";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
 import { Notice } from "@/components/ui/notice";
 import { PlainLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
-import { listProcedureVersions } from "@/db/procedures";
+import { listProcedureVersionStates } from "@/db/procedures";
 import { getCurrentRunLog } from "@/db/run-logs";
-import { getRun } from "@/db/runs";
-import { getLatestRunEvaluation } from "@/db/run-series";
+import { getRunSummary } from "@/db/runs";
+import { getLatestRunEvaluationHead } from "@/db/run-series";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
-import { listResultRows } from "@/lib/runs/list-result-rows";
+import { readEvaluationView } from "@/lib/runs/read-evaluation-view";
+import { formatRunSeriesUrl } from "@/lib/runs/run-series-url";
+import { loadFindingGroupAction } from "./actions";
 
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageAccess("/runs/[id]/results");
   const runId = z.uuid().parse((await params).id);
-  const [stored, log, run] = await Promise.all([getLatestRunEvaluation(getDb(), runId), getCurrentRunLog(getDb(), runId), getRun(getDb(), runId)]);
   const mayEvaluate = can(user.role, "run.operate") || can(user.role, "run.review");
+  // The latest evaluation's id first: its view (findings grouped, result rows) is worked out once per process.
+  const [stored, log, run] = await Promise.all([getLatestRunEvaluationHead(getDb(), runId), getCurrentRunLog(getDb(), runId), getRunSummary(getDb(), runId)]);
+  const view = stored ? await readEvaluationView(stored.id) : null;
   // Other versions of the same procedure the records can be judged against (marked as such).
-  const otherVersions = run
-    ? (await listProcedureVersions(getDb(), run.procedure.id))
+  const otherVersions = run && mayEvaluate
+    ? (await listProcedureVersionStates(getDb(), run.procedure.id))
         .filter((v) => v.id !== run.procedureVersionId && (v.status === "released" || v.status === "withdrawn"))
         .map((v) => ({ id: v.id, label: `${v.code} version ${v.number} (${v.status})` }))
     : [];
   const action = mayEvaluate ? <ReEvaluateButton runId={runId} runLogId={log?.id ?? null} otherVersions={otherVersions} /> : null;
-  if (!stored) {
+  if (!stored || !view) {
     return (
       <div className="flex flex-col items-start gap-3">
         <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded.</Notice>
@@ -38,17 +43,13 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
       </div>
     );
   }
-  // Written only by evaluateStoredRun. Evaluations stored before budgets and the procedure's decision
-  // rule were recorded lack those fields: they were judged by simple acceptance, without budgets.
-  const evaluation = stored.evaluation;
-  const decisionRule = evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? "simple acceptance";
-  const labels = new Map(evaluation.steps.map((s) => [s.stepId, s.label]));
-  const findings: FindingRow[] = [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)].map((f) => ({
-    ...f,
-    stepLabel: f.stepId === null ? "the run as a whole" : (labels.get(f.stepId) ?? f.stepId),
-  }));
+  const { evaluation, decisionRule } = view;
   const discharges = evaluation.steps.filter((s) => s.kind === "discharge" && s.logPhase);
   const onCurrentLog = log !== null && stored.runLogId === log.id;
+  if (onCurrentLog) {
+    // The browser starts on the plots' data while the page's scripts load; the plots' own requests then find it.
+    for (const url of [formatRunSeriesUrl(runId), ...discharges.map((s) => formatRunSeriesUrl(runId, s))]) preload(url, { as: "fetch", crossOrigin: "anonymous" });
+  }
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="verdict-heading" className="flex flex-wrap items-start justify-between gap-4">
@@ -82,13 +83,13 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
         <h2 id="findings-heading" className="mb-2 text-lg font-semibold">
           Findings
         </h2>
-        <FindingsTable findings={findings} />
+        <FindingGroups runId={runId} evaluationId={stored.id} groups={view.groups} load={loadFindingGroupAction} />
       </section>
       <section aria-labelledby="results-heading">
         <h2 id="results-heading" className="mb-2 text-lg font-semibold">
           Results per step
         </h2>
-        <ResultsTable rows={listResultRows(evaluation)} />
+        <ResultsTable rows={view.resultRows} />
       </section>
       {evaluation.retention && (
         <section aria-labelledby="retention-heading">

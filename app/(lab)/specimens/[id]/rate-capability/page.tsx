@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { RateCapabilityTableView } from "@/components/lot-results/rate-capability-table";
 import { ResultsBasisNote } from "@/components/lot-results/results-basis-note";
 import { PageHeader } from "@/components/ui/page-header";
@@ -9,6 +8,7 @@ import { formatCompareHref, pickOneSpecimenAtSeveralCurrents } from "@/lib/lots/
 import { readOrNotFound } from "@/lib/read-or-not-found";
 import { readSpecimenResults } from "@/lib/lots/results/read-results";
 import { formatNumber } from "@/protocols";
+import { HoverPrefetchLink } from "@/components/ui/hover-prefetch-link";
 
 export const metadata: Metadata = { title: "Rate capability" };
 
@@ -31,9 +31,9 @@ export default async function SpecimenRateCapabilityPage({ params }: { params: P
         }
         actions={
           overlay.length > 1 && (
-            <Link href={formatCompareHref({ specimenId: specimen.id, chosen: overlay })} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
+            <HoverPrefetchLink href={formatCompareHref({ specimenId: specimen.id, chosen: overlay })} className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
               Overlay its discharges
-            </Link>
+            </HoverPrefetchLink>
           )
         }
       />
