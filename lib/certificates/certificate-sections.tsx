@@ -243,10 +243,39 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
         ])}
       />
       {payload.retention && <RetentionTable retention={payload.retention} />}
+      {payload.observations && <ObservationsTables observations={payload.observations} />}
       {curves.map((curve, i) => (
         <VqPlot key={`${curve.stepId}#${curve.cycle}`} curve={curve} figure={i + 1} />
       ))}
     </View>
+  );
+}
+
+/** Observation steps as recorded, then each observation criterion with its rule, the recorded numbers, its outcome and source. */
+function ObservationsTables({ observations }: { observations: NonNullable<RunCertificatePayload["observations"]> }) {
+  return (
+    <>
+      <Table
+        lead={<Tx style={{ ...styles.strong, marginTop: 6 }}>Observations</Tx>}
+        columns={[
+          { title: "Step", width: 30 },
+          { title: "Recorded", width: 70 },
+        ]}
+        rows={observations.records.map((r) => [r.stepLabel, r.rows.length === 0 ? "nothing recorded" : r.rows.map((row) => `${row.name}: ${row.value}`).join("; ")])}
+      />
+      {observations.criteria.length > 0 && (
+        <Table
+          lead={<Tx style={{ ...styles.small, marginTop: 4, marginBottom: 3 }}>{`Observation criteria. ${observations.decisionRule}`}</Tx>}
+          columns={[
+            { title: "Criterion", width: 22 },
+            { title: "Rule and source", width: 38 },
+            { title: "Recorded", width: 25 },
+            { title: "Outcome", width: 15 },
+          ]}
+          rows={observations.criteria.map((c) => [c.name, `${c.rule}${c.source ? ` (${c.source})` : ""}`, c.observed, c.outcome])}
+        />
+      )}
+    </>
   );
 }
 

@@ -17,6 +17,7 @@ import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
 import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
+import { evaluateObservations, toObservationConformity, type ObservationsResult } from "./evaluate-observations";
 import { evaluateChargeRetention, type ChargeRetentionResult } from "./evaluate-retention";
 import {
   evaluateStepUncertainties,
@@ -85,6 +86,11 @@ export interface RunEvaluation {
    * evaluations stored before they were computed.
    */
   retention?: ChargeRetentionResult;
+  /**
+   * Observation steps' records and criteria (mass loss, open-circuit voltage share, visual state). Absent
+   * when the procedure has no observation step, and in evaluations stored before observations existed.
+   */
+  observations?: ObservationsResult;
   /** The statement of conformity per criterion, on the cycle it rests on. */
   conformity: CriterionConformity[];
   verdict: RunVerdict;
@@ -286,11 +292,13 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
+  const observations = evaluateObservations(resolution.steps, stepRecords, citation);
   const otherVersionNote = describeOtherVersion(evaluatedAgainst);
   const logSpan = findLogSpan(log, logStartMs, logStartedFrom);
   const verdict = decideVerdict({
     findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
-    conformity,
+    // The observation criteria judge the specimen too; they keep their own section, apart from the acceptance criteria.
+    conformity: [...conformity, ...toObservationConformity(observations)],
     otherVersionNote,
   });
   return {
@@ -308,6 +316,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       acceptance,
       repeat,
       ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps, citation) }),
+      ...(observations !== undefined && { observations }),
       conformity,
       verdict,
     },

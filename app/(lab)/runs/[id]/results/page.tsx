@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
+import { ObservationsSection } from "@/components/runs/results/observations-section";
 import { FindingsTable, type FindingRow } from "@/components/runs/results/findings-table";
 import { ResultsTable } from "@/components/runs/results/results-table";
 import { RetentionTable } from "@/components/runs/results/retention-table";
@@ -96,6 +97,14 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
             Charge retention and recovery
           </h2>
           <RetentionTable retention={evaluation.retention} />
+        </section>
+      )}
+      {evaluation.observations && (
+        <section aria-labelledby="observations-heading">
+          <h2 id="observations-heading" className="mb-2 text-lg font-semibold">
+            Observations
+          </h2>
+          <ObservationsSection observations={evaluation.observations} />
         </section>
       )}
       <section aria-labelledby="conformity-heading">
