@@ -183,3 +183,9 @@ export function checkObservationSteps(steps: readonly { kind: string; id: string
     }
   });
 }
+
+/** Steps whose current the cycler logs; a procedure of observations (with measurements or soaks) alone needs no data log. */
+const LOGGED_STEP_KINDS: ReadonlySet<string> = new Set(['charge', 'discharge', 'rest', 'pulse']);
+export function needsDataLog(procedure: { steps: readonly { kind: string }[] }): boolean {
+  return procedure.steps.some((step) => LOGGED_STEP_KINDS.has(step.kind));
+}

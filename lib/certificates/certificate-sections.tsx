@@ -219,6 +219,16 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
     { title: "Highest temp.", width: withResistance ? 9 : 15, align: "right" as const },
     ...(withResistance ? [{ title: "DC resistance", width: 10, align: "right" as const }] : []),
   ];
+  // A run of observations alone has no logged step: its results are the observations.
+  if (payload.results.length === 0 && payload.observations) {
+    return (
+      <View>
+        <Heading number={6}>Results</Heading>
+        <Tx style={{ ...styles.small, marginBottom: 3 }}>No step of this procedure is logged by a cycler; the results are the observations recorded on the step sheet.</Tx>
+        <ObservationsTables observations={payload.observations} />
+      </View>
+    );
+  }
   return (
     <View>
       <Table
@@ -319,15 +329,28 @@ function CriterionItem({ k }: { k: RunCertificatePayload["conformity"]["criteria
 export function ConformitySection({ payload }: P) {
   const c = payload.conformity;
   const [first, ...rest] = c.criteria;
+  const observationCriteria = payload.observations?.criteria ?? [];
   return (
     <View>
       <View wrap={false}>
         <Heading number={7}>Statement of conformity</Heading>
         <Field label="Decision rule">{describeDecisionRule(c.decisionRule)}</Field>
-        {first ? <CriterionItem k={first} /> : <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>}
+        {first ? (
+          <CriterionItem k={first} />
+        ) : observationCriteria.length === 0 ? (
+          <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>
+        ) : null}
       </View>
       {rest.map((k) => (
         <CriterionItem key={k.criterionId} k={k} />
+      ))}
+      {observationCriteria.map((k) => (
+        <View key={k.name} style={{ marginTop: 4 }} wrap={false}>
+          <OutcomeLine tone={toneOfConformity(k.outcome)} words={k.outcome} rest={` — ${k.name}`} />
+          <Field label="Requirement">{`${k.rule}${k.source ? ` (${k.source})` : ""}`}</Field>
+          <Field label="Recorded">{k.observed}</Field>
+          <Tx style={styles.small}>{payload.observations?.decisionRule ?? ""}</Tx>
+        </View>
       ))}
     </View>
   );

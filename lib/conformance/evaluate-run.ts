@@ -1,5 +1,5 @@
 import { describeDischargeEnd, type DcResistancePulse, type StepResults } from "@/lib/analysis";
-import { readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
+import { needsDataLog, readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
 import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
 import { checkAmbient } from "./check-ambient";
 import { checkCautionsAcknowledged } from "./check-cautions-acknowledged";
@@ -287,7 +287,8 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   const runFindings = [
     checkResolution(resolution, citation),
     checkRecordsFit(plan.recordProblems, citation),
-    checkUnexplainedLogPhases(logAnalysis.summary, citation),
+    // A procedure of observations alone has no logged step, so there is no log to look through.
+    ...(log === undefined && !needsDataLog(resolution) ? [] : [checkUnexplainedLogPhases(logAnalysis.summary, citation)]),
     ...[checkInstrumentTolerances(instruments, resolution, citation)].filter((finding): finding is Finding => finding !== null),
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];

@@ -3,13 +3,7 @@ import type { Executor } from "@/db";
 import { getCurrentRunLog } from "@/db/run-logs";
 import { getLatestRunEvaluation } from "@/db/run-series";
 import { listFindings, type RunEvaluation } from "@/lib/conformance";
-import type { ProcedureResolution } from "@/protocols";
-
-/** Steps whose current the cycler logs; a procedure of observations (and measurements, soaks) alone needs no data log. */
-const LOGGED_KINDS = new Set(["charge", "discharge", "rest", "pulse"]);
-export function needsDataLog(resolution: Pick<ProcedureResolution, "steps">): boolean {
-  return resolution.steps.some((step) => LOGGED_KINDS.has(step.kind));
-}
+import { needsDataLog, type ProcedureResolution } from "@/protocols";
 
 export interface SubmitReadiness {
   log: { fileName: string; sampleCount: number } | null;

@@ -73,9 +73,8 @@ describe("observation steps", () => {
     const stored = await listStepRecords(getDb(), run.id);
     expect(stored.find((r) => r.stepId === "before")?.observed).toEqual(before.observed);
     const raw = await getDb().selectFrom("step_record").select("record").where("run_id", "=", run.id).where("step_id", "=", "after").executeTakeFirstOrThrow();
-    expect(JSON.stringify((raw.record as { observed: unknown }).observed)).toBe(
-      JSON.stringify({ massG: 44.91, openCircuitVoltageV: 3.24, visual: { noneSeen: ["leakage", "venting", "disassembly", "fire"] } }),
-    );
+    // jsonb keeps values, not key order: compared as values, with the list order kept.
+    expect((raw.record as { observed: unknown }).observed).toStrictEqual({ massG: 44.91, openCircuitVoltageV: 3.24, visual: { noneSeen: ["leakage", "venting", "disassembly", "fire"] } });
 
     const readinessBefore = await readSubmitReadiness(getDb(), run.id);
     expect(readinessBefore.problems.join(" ")).not.toMatch(/data log/i);
@@ -93,6 +92,7 @@ describe("observation steps", () => {
     expect(evaluation.verdict.specimenConforms).toBe("does not conform");
     // No step looks for a log phase, so nothing is left "not assessable" for want of a log.
     expect(evaluation.steps.flatMap((s) => s.findings).filter((f) => f.rule === "log-phase-found")).toEqual([]);
+    expect(evaluation.runFindings.map((f) => f.rule)).not.toContain("no-unexplained-log-phase");
 
     // The evaluation as stored reads back with its observations.
     const row = await getDb().selectFrom("run_evaluation").select("evaluation").where("run_id", "=", run.id).executeTakeFirstOrThrow();
