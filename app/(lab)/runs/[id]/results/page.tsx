@@ -34,7 +34,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   if (!stored) {
     return (
       <div className="flex flex-col items-start gap-3">
-        <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded.</Notice>
+        <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded, or when you press “Evaluate again”.</Notice>
         {action}
       </div>
     );
