@@ -2,7 +2,14 @@ import { assertNever } from './assert-never';
 import { formatDuration, formatQuantity } from './format-quantity';
 import type { Duration, QuantityReference } from './quantity';
 import { getSpecificationFieldLabel } from './specification-fields';
+import { OBSERVED_QUANTITY_WORDS, type ObservedQuantity } from './observation';
 import type { ChargeTermination, Measurement, Step } from './step';
+
+function describeObservation(records: readonly ObservedQuantity[], compareWith: string | undefined): string {
+  const what = records.map((quantity) => OBSERVED_QUANTITY_WORDS[quantity].replace(/ \(.*\)$/, ''));
+  const list = what.length > 1 ? `${what.slice(0, -1).join(', ')} and ${what[what.length - 1]}` : (what[0] ?? '');
+  return `Observe the ${list}${compareWith ? `, against observation "${compareWith}"` : ''}`;
+}
 
 /** A reference inside a sentence: "0.2 It", "the specified charge voltage", "5 A". */
 function phrase(quantity: QuantityReference): string {
@@ -60,6 +67,8 @@ export function describeStep(step: Step): string {
       return `DC resistance pulse: ${phrase(step.baseCurrent)} for ${formatDuration(step.baseDuration)}, then ${phrase(step.pulseCurrent)} for ${formatDuration(step.pulseDuration)}`;
     case 'measure':
       return describeMeasurement(step.measurement);
+    case 'observe':
+      return describeObservation(step.records, step.compareWith);
     default:
       return assertNever(step);
   }

@@ -15,6 +15,7 @@ export * from './format-number';
 export * from './format-quantity';
 export * from './identifier';
 export * from './measurement-tolerances';
+export * from './observation';
 export * from './procedure';
 export * from './quantity';
 export * from './repeat-rule';

@@ -1,6 +1,7 @@
 import { findCriterionStepProblem, type AcceptanceCriterion } from './acceptance-criterion';
 import { compareVoltagesWithoutSpecification } from './compare-references';
 import { checkChargeRetentionSteps, type ChargeRetention } from './charge-retention';
+import { checkObservationSteps } from './observation';
 import type { RepeatRule } from './repeat-rule';
 import type { CurrentReference } from './quantity';
 import type { ChargeStep, Step } from './step';
@@ -177,6 +178,7 @@ export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink)
   checkCriteria(parts, ctx);
   checkRepeatRule(parts, ctx);
   checkChargeRetentionSteps(parts.retention, parts.steps, ctx);
+  checkObservationSteps(parts.steps, ctx);
   checkEndVoltages(parts, ctx);
   checkLabelsAgainstSetPoints(parts, ctx);
 }

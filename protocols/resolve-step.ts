@@ -268,6 +268,13 @@ function resolveKindFields(context: StepContext, ambient: ResolvedTemperatureRan
           frequency: resolveFrequency(step.measurement.frequency),
         }),
       };
+    case 'observe':
+      return {
+        kind: 'observe' as const,
+        records: [...step.records],
+        ...(step.compareWith !== undefined && { compareWith: step.compareWith }),
+        ...(step.criteria !== undefined && { criteria: step.criteria }),
+      };
     default:
       return assertNever(step);
   }

@@ -4,6 +4,7 @@ import type { StoredDecisionRule } from './decision-rule';
 import type { SetPointToleranceName } from './measurement-tolerances';
 import type { RepeatRule } from './repeat-rule';
 import type { ResolvedTemperatureRange, ResolvedValue } from './resolve-quantity';
+import type { ObservationCriteria, ObservedQuantity } from './observation';
 import type { DischargePurpose, Measurement } from './step';
 
 /** A tolerance in force for a step and where it was set. */
@@ -71,13 +72,22 @@ export interface ResolvedMeasureStep extends ResolvedStepBase {
   frequency?: ResolvedValue;
 }
 
+/** Observation criteria hold absolute values (g, %), so they resolve to themselves. */
+export interface ResolvedObserveStep extends ResolvedStepBase {
+  kind: 'observe';
+  records: ObservedQuantity[];
+  compareWith?: string;
+  criteria?: ObservationCriteria;
+}
+
 export type ResolvedStep =
   | ResolvedChargeStep
   | ResolvedDischargeStep
   | ResolvedRestStep
   | ResolvedSoakStep
   | ResolvedPulseStep
-  | ResolvedMeasureStep;
+  | ResolvedMeasureStep
+  | ResolvedObserveStep;
 
 /** Limits in Ah (capacity), s (duration) and Ω (resistance). */
 export type ResolvedCriterion =

@@ -3,6 +3,7 @@ import { assertNever } from './assert-never';
 import { explainTypeError } from './explain-type-error';
 import { compareCurrentsWithoutSpecification, compareNumbers } from './compare-references';
 import { identifierSchema } from './identifier';
+import { observationFieldsSchema } from './observation';
 import { setPointTolerancesSchema } from './measurement-tolerances';
 import {
   currentReferenceSchema,
@@ -184,11 +185,22 @@ export const measureStepSchema = z.strictObject({
   measurement: measurementSchema,
 });
 
-export const stepKinds = ['charge', 'discharge', 'rest', 'soak', 'pulse', 'measure'] as const;
+/**
+ * Observation: the operator records mass, open-circuit voltage, dimensions and the visual state (a
+ * closed list), judged against an earlier observation by the step's criteria (protocols/observation.ts).
+ * No current flows, so the data log holds no trace of it.
+ */
+export const observeStepSchema = z.strictObject({
+  kind: z.literal('observe'),
+  ...commonFields,
+  ...observationFieldsSchema,
+});
+
+export const stepKinds = ['charge', 'discharge', 'rest', 'soak', 'pulse', 'measure', 'observe'] as const;
 
 export const stepSchema = z.discriminatedUnion(
   'kind',
-  [chargeStepSchema, dischargeStepSchema, restStepSchema, soakStepSchema, pulseStepSchema, measureStepSchema],
+  [chargeStepSchema, dischargeStepSchema, restStepSchema, soakStepSchema, pulseStepSchema, measureStepSchema, observeStepSchema],
   { error: explainTypeError(`the step kind is one of ${stepKinds.join(', ')}`) },
 );
 
@@ -201,5 +213,6 @@ export type PulseStep = z.infer<typeof pulseStepSchema>;
 export type Measurement = z.infer<typeof measurementSchema>;
 export type MeasurementQuantity = Measurement['quantity'];
 export type MeasureStep = z.infer<typeof measureStepSchema>;
+export type ObserveStep = z.infer<typeof observeStepSchema>;
 export type Step = z.infer<typeof stepSchema>;
 export type StepKind = Step['kind'];

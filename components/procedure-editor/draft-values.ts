@@ -40,6 +40,7 @@ const STEP_LABELS: Record<StepKind, string> = {
   soak: "Soak",
   pulse: "DC resistance pulse",
   measure: "Measurement",
+  observe: "Observation (mass, voltage, visual state)",
 };
 
 export function describeStepKind(kind: StepKind): string {
@@ -79,6 +80,8 @@ export function createStep(kind: StepKind, existingIds: readonly string[]): Step
       };
     case "measure":
       return { kind, ...common, measurement: { quantity: "openCircuitVoltage" } };
+    case "observe":
+      return { kind, ...common, label: "Observation", records: ["mass", "openCircuitVoltage", "visual"] };
     default:
       return assertNever(kind);
   }

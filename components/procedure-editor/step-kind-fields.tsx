@@ -4,6 +4,7 @@ import { assertNever, type StepKind } from "@/protocols";
 import { ChargeFields } from "./charge-fields";
 import { DischargeFields } from "./discharge-fields";
 import { MeasureFields } from "./measure-fields";
+import { ObserveFields } from "./observe-fields";
 import { PulseFields } from "./pulse-fields";
 import { RestFields, SoakFields } from "./rest-soak-fields";
 
@@ -22,6 +23,8 @@ export function StepKindFields({ kind, path }: { kind: StepKind; path: string })
       return <PulseFields path={path} />;
     case "measure":
       return <MeasureFields path={path} />;
+    case "observe":
+      return <ObserveFields path={path} />;
     default:
       return assertNever(kind);
   }

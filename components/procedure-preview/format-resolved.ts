@@ -2,7 +2,9 @@
 // in h and min, each set-point of a step with the sentence that says where it came from.
 import {
   assertNever,
+  describeObservationCriteria,
   formatNumber,
+  OBSERVED_QUANTITY_WORDS,
   formatSiValue,
   type Measurement,
   type ResolvedSetPoint,
@@ -118,6 +120,12 @@ export function listSetPoints(step: ResolvedStep): SetPointLine[] {
         { name: "Measure", value: describeMeasurement(step.measurement), explanation: "", missing: false },
         ...toLines("Frequency", step.frequency),
       ];
+    case "observe":
+      return [
+        { name: "Records", value: step.records.map((quantity) => OBSERVED_QUANTITY_WORDS[quantity]).join(", "), explanation: "", missing: false },
+        ...(step.compareWith ? [{ name: "Compared with", value: `observation "${step.compareWith}"`, explanation: "", missing: false }] : []),
+        ...describeObservationCriteria(step.criteria).map((value) => ({ name: "Criterion", value, explanation: "the procedure's limit", missing: false })),
+      ];
     default:
       return assertNever(step);
   }
@@ -127,6 +135,7 @@ export function listSetPoints(step: ResolvedStep): SetPointLine[] {
 export function describeResolvedKind(step: ResolvedStep): string {
   if (step.kind === "discharge") return step.purpose === "measure" ? "discharge (measured)" : "discharge (precondition)";
   if (step.kind === "pulse") return "DC pulse";
+  if (step.kind === "observe") return "observation";
   return step.kind;
 }
 

@@ -1,7 +1,7 @@
 import { fail, succeed, type AnalysisResult } from "./analysis-result";
 import type { PhaseKind } from "./segment";
 
-export type ExpectedStepKind = "charge" | "discharge" | "rest" | "pulse" | "soak" | "measure";
+export type ExpectedStepKind = "charge" | "discharge" | "rest" | "pulse" | "soak" | "measure" | "observe";
 
 /** One step the procedure expects, in order. Kept minimal so any procedure type maps onto it. */
 export interface ExpectedStep {
@@ -20,7 +20,7 @@ export interface StepMatch {
   kind: ExpectedStepKind;
   /** Index into the phase list, or null when no phase was matched. */
   phaseIndex: number | null;
-  /** Soak and measure steps may leave no trace in the current, so they are not required. */
+  /** Soak, measure and observe steps may leave no trace in the current, so they are not required. */
   required: boolean;
 }
 
@@ -56,6 +56,7 @@ function scoreMatch(step: ExpectedStepKind, phase: MatchablePhase): number {
       return phase.kind === "rest" ? 2 : 0;
     case "soak":
     case "measure":
+    case "observe":
       return phase.kind === "rest" ? 1 : 0;
     default: {
       const unknown: never = step;
@@ -115,7 +116,7 @@ export function matchSteps(expected: readonly ExpectedStep[], phases: readonly M
     stepId: step.id,
     kind: step.kind,
     phaseIndex: phaseOfStep[k] ?? null,
-    required: step.kind !== "soak" && step.kind !== "measure",
+    required: step.kind !== "soak" && step.kind !== "measure" && step.kind !== "observe",
   }));
   const extraPhaseIndexes: number[] = [];
   used.forEach((isUsed, k) => {

@@ -1,4 +1,4 @@
-import { formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type StepRecord, type StoredEvaluation } from "@/lib/conformance";
+import { describeObservedValues, formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type ObservationsResult, type StepRecord, type StoredEvaluation } from "@/lib/conformance";
 import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import { formatMomentsInText } from "./certificate-format";
@@ -8,6 +8,7 @@ import {
   type CertificateCriterion,
   type CertificateFinding,
   type CertificateInstrument,
+  type CertificateObservations,
   type CertificateRetention,
   type CertificateSetPointCurrent,
   type CertificateStepResult,
@@ -23,6 +24,21 @@ export type { StoredEvaluation };
 /** The decision rule an evaluation applied, as its record names it (older records may use an earlier name). */
 export function readDecisionRule(evaluation: StoredEvaluation): StoredDecisionRule {
   return evaluation.statedDecisionRule;
+}
+
+/** Observations as the records show them; each criterion names its rule, the recorded numbers and its source. */
+function describeObservations(observations: ObservationsResult): CertificateObservations {
+  return {
+    records: observations.records.map((record) => ({ stepLabel: record.label, rows: describeObservedValues(record.observed) })),
+    criteria: observations.criteria.map((criterion) => ({
+      name: `${criterion.kind[0]?.toUpperCase() ?? ""}${criterion.kind.slice(1)} on "${criterion.label}"`,
+      rule: criterion.rule,
+      observed: criterion.observed,
+      outcome: criterion.outcome,
+      source: criterion.source,
+    })),
+    decisionRule: observations.decisionRule,
+  };
 }
 
 /** Retention and recovery as the certificate states them: the basis once, each percentage with its statement. */
@@ -322,6 +338,7 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     instruments: listInstruments(records, widestSpan(testing)),
     results: listResults(evaluation, records.run.resolution, records.stepRecords, records.cell.data.ratedCapacityMah),
     ...(evaluation.retention && { retention: describeRetention(evaluation.retention) }),
+    ...(evaluation.observations && { observations: describeObservations(evaluation.observations) }),
     conformity: {
       decisionRule: readDecisionRule(evaluation),
       specimenConforms: evaluation.verdict.specimenConforms,

@@ -152,6 +152,13 @@ export interface CertificateRetention {
   rows: { name: string; stepLabel: string; capacityMAh: number | null; percent: number | null; statement: string }[];
 }
 
+/** Observation steps as the records show them, and each observation criterion with its rule and source. */
+export interface CertificateObservations {
+  records: { stepLabel: string; rows: { name: string; value: string }[] }[];
+  criteria: { name: string; rule: string; observed: string; outcome: ConformityOutcome; source: string | null }[];
+  decisionRule: string;
+}
+
 /** A certificate of one run on one specimen. */
 export interface RunCertificatePayload extends CertificateCommon {
   subject: "run";
@@ -182,6 +189,8 @@ export interface RunCertificatePayload extends CertificateCommon {
    * share of. Absent when the procedure asks for none, and in certificates issued before it was stated.
    */
   retention?: CertificateRetention;
+  /** Observation steps and their criteria. Absent when the procedure has none, and in certificates issued before they existed. */
+  observations?: CertificateObservations;
   /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
   conformity: {
     /** As the evaluation applied it; certificates of evaluations stored before ILAC-G8's three rules may say "guarded acceptance". */

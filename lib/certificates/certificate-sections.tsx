@@ -219,6 +219,16 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
     { title: "Highest temp.", width: withResistance ? 9 : 15, align: "right" as const },
     ...(withResistance ? [{ title: "DC resistance", width: 10, align: "right" as const }] : []),
   ];
+  // A run of observations alone has no logged step: its results are the observations.
+  if (payload.results.length === 0 && payload.observations) {
+    return (
+      <View>
+        <Heading number={6}>Results</Heading>
+        <Tx style={{ ...styles.small, marginBottom: 3 }}>No step of this procedure is logged by a cycler; the results are the observations recorded on the step sheet.</Tx>
+        <ObservationsTables observations={payload.observations} />
+      </View>
+    );
+  }
   return (
     <View>
       <Table
@@ -243,10 +253,39 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
         ])}
       />
       {payload.retention && <RetentionTable retention={payload.retention} />}
+      {payload.observations && <ObservationsTables observations={payload.observations} />}
       {curves.map((curve, i) => (
         <VqPlot key={`${curve.stepId}#${curve.cycle}`} curve={curve} figure={i + 1} />
       ))}
     </View>
+  );
+}
+
+/** Observation steps as recorded, then each observation criterion with its rule, the recorded numbers, its outcome and source. */
+function ObservationsTables({ observations }: { observations: NonNullable<RunCertificatePayload["observations"]> }) {
+  return (
+    <>
+      <Table
+        lead={<Tx style={{ ...styles.strong, marginTop: 6 }}>Observations</Tx>}
+        columns={[
+          { title: "Step", width: 30 },
+          { title: "Recorded", width: 70 },
+        ]}
+        rows={observations.records.map((r) => [r.stepLabel, r.rows.length === 0 ? "nothing recorded" : r.rows.map((row) => `${row.name}: ${row.value}`).join("; ")])}
+      />
+      {observations.criteria.length > 0 && (
+        <Table
+          lead={<Tx style={{ ...styles.small, marginTop: 4, marginBottom: 3 }}>{`Observation criteria. ${observations.decisionRule}`}</Tx>}
+          columns={[
+            { title: "Criterion", width: 22 },
+            { title: "Rule and source", width: 38 },
+            { title: "Recorded", width: 25 },
+            { title: "Outcome", width: 15 },
+          ]}
+          rows={observations.criteria.map((c) => [c.name, `${c.rule}${c.source ? ` (${c.source})` : ""}`, c.observed, c.outcome])}
+        />
+      )}
+    </>
   );
 }
 
@@ -290,15 +329,28 @@ function CriterionItem({ k }: { k: RunCertificatePayload["conformity"]["criteria
 export function ConformitySection({ payload }: P) {
   const c = payload.conformity;
   const [first, ...rest] = c.criteria;
+  const observationCriteria = payload.observations?.criteria ?? [];
   return (
     <View>
       <View wrap={false}>
         <Heading number={7}>Statement of conformity</Heading>
         <Field label="Decision rule">{describeDecisionRule(c.decisionRule)}</Field>
-        {first ? <CriterionItem k={first} /> : <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>}
+        {first ? (
+          <CriterionItem k={first} />
+        ) : observationCriteria.length === 0 ? (
+          <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>
+        ) : null}
       </View>
       {rest.map((k) => (
         <CriterionItem key={k.criterionId} k={k} />
+      ))}
+      {observationCriteria.map((k) => (
+        <View key={k.name} style={{ marginTop: 4 }} wrap={false}>
+          <OutcomeLine tone={toneOfConformity(k.outcome)} words={k.outcome} rest={` — ${k.name}`} />
+          <Field label="Requirement">{`${k.rule}${k.source ? ` (${k.source})` : ""}`}</Field>
+          <Field label="Recorded">{k.observed}</Field>
+          <Tx style={styles.small}>{payload.observations?.decisionRule ?? ""}</Tx>
+        </View>
       ))}
     </View>
   );

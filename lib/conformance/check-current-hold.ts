@@ -163,6 +163,7 @@ export function checkCurrentHold(context: StepContext): Finding[] {
     case "rest":
     case "soak":
     case "measure":
+    case "observe":
       return [];
     default:
       return assertNever(step);

@@ -68,6 +68,7 @@ export function checkDurations(context: StepContext): Finding[] {
       return step.maxDuration ? [checkSpan(context, { max: step.maxDuration })] : [];
     case "pulse":
     case "measure":
+    case "observe":
       return [];
     default:
       return assertNever(step);

@@ -137,6 +137,7 @@ export function checkEndCondition(context: StepContext): Finding[] {
     case "soak":
     case "pulse":
     case "measure":
+    case "observe":
       return [];
     default:
       return assertNever(step);

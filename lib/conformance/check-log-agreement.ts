@@ -7,11 +7,11 @@ import { readRecordTimes } from "./time-span";
 
 /**
  * The data log shows a phase for each step that moves current or rests, in the procedure's order
- * (lib/analysis matchSteps). Soak and measure steps may leave no trace, so they are not looked for.
+ * (lib/analysis matchSteps). Soak, measure and observe steps may leave no trace, so they are not looked for.
  */
 export function checkLogPhaseFound(context: StepContext): Finding[] {
   const { step, evidence } = context;
-  if (step.kind === "soak" || step.kind === "measure") return [];
+  if (step.kind === "soak" || step.kind === "measure" || step.kind === "observe") return [];
   const draft = {
     rule: "log-phase-found" as const,
     title: "Step found in the data log",

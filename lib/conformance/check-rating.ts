@@ -27,6 +27,7 @@ function listRatedCurrents(context: StepContext): RatedCurrent[] {
     case "rest":
     case "soak":
     case "measure":
+    case "observe":
       return [];
     default:
       return assertNever(step);

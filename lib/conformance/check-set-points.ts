@@ -78,6 +78,8 @@ function listSetPoints(step: ResolvedStep): SetPoint[] {
     case "measure":
       // The frequency of an AC measurement has no tolerance in the procedure to judge it by.
       return [];
+    case "observe":
+      return [];
     default:
       return assertNever(step);
   }

@@ -1,5 +1,5 @@
 import { describeDischargeEnd, type DcResistancePulse, type StepResults } from "@/lib/analysis";
-import { readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
+import { needsDataLog, readDecisionRule, type DecisionRule, type FieldProblem, type ProcedureResolution, type ResolvedStep } from "@/protocols";
 import { analyseRunLog, type LogPhaseSummary, type RunLogSummary } from "./analyse-run-log";
 import { checkAmbient } from "./check-ambient";
 import { checkCautionsAcknowledged } from "./check-cautions-acknowledged";
@@ -17,6 +17,7 @@ import { checkSetPoints } from "./check-set-points";
 import { decideVerdict, type CriterionConformity, type RunVerdict } from "./decide-verdict";
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
 import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
+import { evaluateObservations, toObservationConformity, type ObservationsResult } from "./evaluate-observations";
 import { evaluateChargeRetention, type ChargeRetentionResult } from "./evaluate-retention";
 import {
   evaluateStepUncertainties,
@@ -85,6 +86,11 @@ export interface RunEvaluation {
    * evaluations stored before they were computed.
    */
   retention?: ChargeRetentionResult;
+  /**
+   * Observation steps' records and criteria (mass loss, open-circuit voltage share, visual state). Absent
+   * when the procedure has no observation step, and in evaluations stored before observations existed.
+   */
+  observations?: ObservationsResult;
   /** The statement of conformity per criterion, on the cycle it rests on. */
   conformity: CriterionConformity[];
   verdict: RunVerdict;
@@ -281,16 +287,19 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   const runFindings = [
     checkResolution(resolution, citation),
     checkRecordsFit(plan.recordProblems, citation),
-    checkUnexplainedLogPhases(logAnalysis.summary, citation),
+    // A procedure of observations alone has no logged step, so there is no log to look through.
+    ...(log === undefined && !needsDataLog(resolution) ? [] : [checkUnexplainedLogPhases(logAnalysis.summary, citation)]),
     ...[checkInstrumentTolerances(instruments, resolution, citation)].filter((finding): finding is Finding => finding !== null),
     ...(repeatEvaluation ? [repeatEvaluation.finding] : []),
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
+  const observations = evaluateObservations(resolution.steps, stepRecords, citation);
   const otherVersionNote = describeOtherVersion(evaluatedAgainst);
   const logSpan = findLogSpan(log, logStartMs, logStartedFrom);
   const verdict = decideVerdict({
     findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
-    conformity,
+    // The observation criteria judge the specimen too; they keep their own section, apart from the acceptance criteria.
+    conformity: [...conformity, ...toObservationConformity(observations)],
     otherVersionNote,
   });
   return {
@@ -308,6 +317,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       acceptance,
       repeat,
       ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps, citation) }),
+      ...(observations !== undefined && { observations }),
       conformity,
       verdict,
     },

@@ -24,6 +24,7 @@ export * from "./evaluate-acceptance";
 export * from "./evaluate-uncertainty";
 export * from "./evaluate-repeat-rule";
 export * from "./evaluate-retention";
+export * from "./evaluate-observations";
 export * from "./decide-verdict";
 export * from "./evaluate-run";
 export * from "./list-findings";

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { identifierSchema } from "@/protocols";
+import { identifierSchema, visualOutcomes } from "@/protocols";
 
 /**
  * A point in time with its zone (Z or ±hh:mm). A time without a zone is refused: it would be read
@@ -76,6 +76,24 @@ export const measuredValuesSchema = z.strictObject({
   acResistanceOhm: positive("the AC resistance").optional(),
 });
 
+/**
+ * What the operator observed on an observation step: balance, voltmeter and caliper readings, and the
+ * visual state. `visual.noneSeen` lists the outcomes the operator confirmed as not seen ("no leakage");
+ * an outcome missing from a recorded inspection was not confirmed.
+ */
+export const observedValuesSchema = z.strictObject({
+  massG: positive("the mass").optional(),
+  openCircuitVoltageV: z.number({ error: "the open-circuit voltage is a number" }).min(0, { error: "the open-circuit voltage cannot be below 0 V" }).optional(),
+  dimensionsMm: z
+    .strictObject({
+      diameterOrThickness: positive("the diameter or thickness").optional(),
+      width: positive("the width").optional(),
+      height: positive("the height").optional(),
+    })
+    .optional(),
+  visual: z.strictObject({ noneSeen: z.array(z.enum(visualOutcomes)).max(visualOutcomes.length) }).optional(),
+});
+
 /** What the operator recorded for one step of one cycle of a run (docs/design.md §3, step record). */
 export const stepRecordSchema = z.strictObject({
   stepId: identifierSchema,
@@ -91,6 +109,7 @@ export const stepRecordSchema = z.strictObject({
   ambientReadings: z.array(ambientReadingSchema).max(10_000).default([]),
   programmed: programmedSetPointsSchema.default({}),
   measured: measuredValuesSchema.optional(),
+  observed: observedValuesSchema.optional(),
   notes: z.string().max(4000, { error: "notes have at most 4 000 characters" }).optional(),
   /** Why the step started later than the previous one ended, when it did. */
   pauseReason: z.string().trim().min(1).max(1000).optional(),
@@ -108,6 +127,7 @@ export type AmbientReading = z.infer<typeof ambientReadingSchema>;
 export type StepCorrection = z.infer<typeof stepCorrectionSchema>;
 export type ProgrammedSetPoints = z.infer<typeof programmedSetPointsSchema>;
 export type ProgrammedField = keyof ProgrammedSetPoints;
+export type ObservedValues = z.infer<typeof observedValuesSchema>;
 export type StepRecord = z.output<typeof stepRecordSchema>;
 /** A step record as stored or typed in, before defaults are filled in. */
 export type StepRecordInput = z.input<typeof stepRecordSchema>;

@@ -3,6 +3,7 @@ import { acResistanceTemplate } from './ac-resistance';
 import { chargeRetentionTemplate } from './charge-retention';
 import { dcResistanceTemplate } from './dc-resistance';
 import { dischargeAtMinus20cTemplate } from './discharge-at-minus-20c';
+import { observationBeforeAfterTemplate } from './observation-before-after';
 import { rateCapabilityTemplate } from './rate-capability';
 import { ratedCapacityAt20cTemplate } from './rated-capacity-20c';
 
@@ -19,6 +20,7 @@ export const procedureTemplates: readonly ProcedureTemplate[] = [
   { key: 'ac-resistance', procedure: acResistanceTemplate },
   { key: 'discharge-at-minus-20c', procedure: dischargeAtMinus20cTemplate },
   { key: 'charge-retention', procedure: chargeRetentionTemplate },
+  { key: 'observation-before-after', procedure: observationBeforeAfterTemplate },
 ];
 
 export function findProcedureTemplate(key: string): ProcedureTemplate | undefined {
@@ -30,6 +32,7 @@ export {
   chargeRetentionTemplate,
   dcResistanceTemplate,
   dischargeAtMinus20cTemplate,
+  observationBeforeAfterTemplate,
   rateCapabilityTemplate,
   ratedCapacityAt20cTemplate,
 };

@@ -10,6 +10,7 @@ import { ActionAnswer } from "./action-answer";
 import { toIso, toLocalInput } from "./local-time";
 import { ReadingFields } from "./reading-fields";
 import { listProgrammedFields } from "./programmed-fields";
+import { ObservationFields } from "./observation-fields";
 
 type Action = (prev: ActionState, form: FormData) => Promise<ActionState>;
 
@@ -132,6 +133,8 @@ export function CurrentStepForm({ action, runId, step, cycle, record, cautions, 
           </div>
         </fieldset>
       )}
+
+      {step.kind === "observe" && <ObservationFields step={step} observed={record?.observed} errors={(key) => errorsOf(state, key)} />}
 
       <label className="flex flex-col text-sm">
         Notes

@@ -52,6 +52,7 @@ export function listProgrammedFields(step: ResolvedStep): ProgrammedFieldSpec[] 
         field("pulseDuration", "Pulse time", "s", step.pulseDuration),
       ];
     case "measure":
+    case "observe":
       return [];
     default:
       return assertNever(step);

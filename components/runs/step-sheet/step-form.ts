@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { recordedTimeSchema, type AmbientReading, type StepCorrection, type StepRecord, type StepRecordInput } from "@/lib/conformance";
-import type { ResolvedStep } from "@/protocols";
+import { visualOutcomes, type ResolvedStep } from "@/protocols";
+import { buildObserved } from "./observation-form";
 import { checkNewReading } from "./check-new-reading";
 import { listProgrammedFields } from "./programmed-fields";
 
@@ -51,19 +52,28 @@ export const stepFormSchema = stepKeySchema.extend({
   endedAt: recordedTimeSchema.optional().or(z.literal("").transform(() => undefined)),
   timeChangeReason: optionalText(1000),
   programmed: z.record(z.string(), optionalNumber).default({}),
+  /** Observation readings as typed: mass in g, open-circuit voltage in V, dimensions in mm. */
+  observed: z.record(z.string(), optionalNumber).default({}),
+  /** Present when the form showed the visual inspection; the ticked outcomes were recorded as none seen. */
+  visualShown: z.literal("1").optional(),
+  visualNoneSeen: z.array(z.enum(visualOutcomes)).max(visualOutcomes.length).default([]),
+  observationChangeReason: optionalText(1000),
 });
 export type StepForm = z.output<typeof stepFormSchema>;
 
 /** FormData → the plain object stepFormSchema reads: `programmed.<name>` fields and repeated `acknowledged`. */
 export function readStepForm(form: FormData): unknown {
   const programmed: Record<string, string> = {};
+  const observed: Record<string, string> = {};
   const plain: Record<string, unknown> = {};
   for (const [key, value] of form.entries()) {
     if (typeof value !== "string") continue;
     if (key.startsWith("programmed.")) programmed[key.slice("programmed.".length)] = value;
-    else if (key !== "acknowledged") plain[key] = value;
+    else if (key.startsWith("observed.")) observed[key.slice("observed.".length)] = value;
+    else if (key !== "acknowledged" && key !== "visualNoneSeen") plain[key] = value;
   }
-  return { ...plain, programmed, acknowledged: form.getAll("acknowledged").filter((v) => typeof v === "string") };
+  const strings = (name: string) => form.getAll(name).filter((v) => typeof v === "string");
+  return { ...plain, programmed, observed, acknowledged: strings("acknowledged"), visualNoneSeen: strings("visualNoneSeen") };
 }
 
 export type BuiltStepRecord =
@@ -138,9 +148,11 @@ export function buildStepRecord({
     if (acknowledged.length < cautionCodes.length) fieldErrors.acknowledged = ["tick “I have read this caution” for every caution of this step"];
   }
   if (startedAt && endedAt && Date.parse(endedAt) < Date.parse(startedAt)) fieldErrors.endedAt = ["the end is before the start"];
+  const observation = step.kind === "observe" ? buildObserved({ step, before: before?.observed, form, now, by }) : null;
+  if (observation && !observation.ok) Object.assign(fieldErrors, observation.fieldErrors);
   if (Object.keys(fieldErrors).length > 0) return { ok: false, message: "Some fields need attention.", fieldErrors };
   // A changed time keeps the old one, struck through, beside the new (never erased).
-  const corrections: StepCorrection[] = [...(before?.corrections ?? [])];
+  const corrections: StepCorrection[] = [...(before?.corrections ?? []), ...(observation?.ok ? observation.corrections : [])];
   for (const field of ["startedAt", "endedAt"] as const) {
     const was = before?.[field];
     const next = field === "startedAt" ? startedAt : endedAt;
@@ -156,6 +168,7 @@ export function buildStepRecord({
       ambientReadings,
       programmed,
       ...(before?.measured && { measured: before.measured }),
+      ...(observation?.ok && observation.observed !== undefined ? { observed: observation.observed } : before?.observed && { observed: before.observed }),
       ...(form.notes && { notes: form.notes }),
       ...(before?.pauseReason && { pauseReason: before.pauseReason }),
       completed: form.completed === "on",

@@ -1,4 +1,5 @@
-import type { StepCorrection, StepRecord } from "@/lib/conformance";
+import { describeObservedValues, type StepCorrection, type StepRecord } from "@/lib/conformance";
+import { OBSERVATION_FIELDS } from "./observation-form";
 import { formatNumber, type ResolvedStep } from "@/protocols";
 import { formatRecordedTime } from "./format-recorded-time";
 import { listProgrammedFields, type ProgrammedFieldSpec } from "./programmed-fields";
@@ -7,6 +8,9 @@ function describeCorrected(correction: StepCorrection, fields: ProgrammedFieldSp
   if (correction.field === "startedAt" || correction.field === "endedAt") {
     return { what: correction.field === "startedAt" ? "start" : "end", was: typeof correction.was === "string" ? formatRecordedTime(correction.was) : "not marked" };
   }
+  const observed = OBSERVATION_FIELDS.find((f) => `observed.${f.name}` === correction.field);
+  if (observed) return { what: observed.label.toLowerCase(), was: typeof correction.was === "number" ? `${formatNumber(correction.was, { maxDecimals: 4 })} ${observed.unit}` : "not recorded" };
+  if (correction.field === "observed.visual") return { what: "visual state", was: `none seen: ${String(correction.was)}` };
   const spec = fields.find((f) => `programmed.${f.name}` === correction.field);
   if (!spec) return { what: "a set-point", was: String(correction.was ?? "not recorded") };
   const was = typeof correction.was === "number" ? `${formatNumber(correction.was / spec.toSi, { maxDecimals: 4 })} ${spec.unit}` : "not recorded";
@@ -68,6 +72,12 @@ export function StepRecordSummary({ step, record }: { step: ResolvedStep; record
           <dd className="figures inline">{programmed.join(" · ")}</dd>
         </div>
       )}
+      {describeObservedValues(record.observed ?? null).map((row) => (
+        <div key={row.name} className="sm:col-span-2">
+          <dt className="inline text-ink-soft">{row.name}: </dt>
+          <dd className="figures inline">{row.value}</dd>
+        </div>
+      ))}
       {corrections.length > 0 && (
         <div className="sm:col-span-2">
           <dt className="text-ink-soft">Corrected:</dt>

@@ -74,6 +74,7 @@ export const steps = {
     pulseDuration: valueOf(1, "s"),
   },
   measure: { ...common, id: "measure", label: "AC resistance", kind: "measure", measurement: { quantity: "acResistance", frequency: { value: 1, unit: "kHz" } } },
+  observe: { ...common, id: "observe", label: "Observation after", kind: "observe", records: ["mass", "openCircuitVoltage", "visual"] },
 } satisfies Record<ResolvedStep["kind"], ResolvedStep>;
 
 export const rating: CellRating = { maxContinuousDischargeCurrentA: 15, maxChargeCurrentA: 4, chargeVoltageV: 4.2 };

@@ -39,6 +39,7 @@ const blanksOf: Record<StepKind, string[]> = {
   soak: ["temperature.nominalC", "temperature.toleranceC", "minDuration.value"],
   pulse: ["baseCurrent.multipleOfIt", "baseDuration.value", "pulseCurrent.multipleOfIt", "pulseDuration.value"],
   measure: [],
+  observe: [],
 };
 
 describe("createStep", () => {

@@ -9,7 +9,7 @@ import {
 import { inventedCell, prismaticLcoCell } from '@/scenarios/invented-cells';
 
 describe('built-in procedure templates', () => {
-  it('has six templates with distinct keys and codes', () => {
+  it('has seven templates with distinct keys and codes', () => {
     expect(procedureTemplates.map((template) => template.key)).toEqual([
       'rated-capacity-20c',
       'rate-capability',
@@ -17,8 +17,9 @@ describe('built-in procedure templates', () => {
       'ac-resistance',
       'discharge-at-minus-20c',
       'charge-retention',
+      'observation-before-after',
     ]);
-    expect(new Set(procedureTemplates.map((template) => template.procedure.header.code)).size).toBe(6);
+    expect(new Set(procedureTemplates.map((template) => template.procedure.header.code)).size).toBe(7);
     expect(findProcedureTemplate('dc-resistance')?.procedure.header.title).toBe('DC internal resistance');
     expect(findProcedureTemplate('no-such-template')).toBeUndefined();
   });
@@ -64,8 +65,9 @@ describe('built-in procedure templates', () => {
     (_key, template) => {
       const notes = template.procedure.header.notes ?? [];
       expect(notes.some((note) => note.includes(recalledMark))).toBe(true);
-      expect(template.procedure.header.standard).toMatch(/^IEC 61960-3:2017$/);
-      expect(template.procedure.header.clause).toMatch(/^7\./);
+      // Every template cites IEC 61960-3:2017 clause 7.x, except the observation template, which cites UN 38.3.4.
+      const { standard, clause } = template.procedure.header;
+      expect(`${standard} ${clause}`).toMatch(/^(IEC 61960-3:2017 7\.|UN Manual of Tests and Criteria 38\.3\.4 )/);
     },
   );
 });

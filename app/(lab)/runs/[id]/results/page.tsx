@@ -2,6 +2,7 @@ import { preload } from "react-dom";
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
 import { FindingGroups } from "@/components/runs/results/finding-groups";
+import { ObservationsSection } from "@/components/runs/results/observations-section";
 import { ResultsTable } from "@/components/runs/results/results-table";
 import { RetentionTable } from "@/components/runs/results/retention-table";
 import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots-lazy";
@@ -38,7 +39,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   if (!stored || !view) {
     return (
       <div className="flex flex-col items-start gap-3">
-        <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded.</Notice>
+        <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded, or when you press “Evaluate again”.</Notice>
         {action}
       </div>
     );
@@ -97,6 +98,14 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
             Charge retention and recovery
           </h2>
           <RetentionTable retention={evaluation.retention} />
+        </section>
+      )}
+      {evaluation.observations && (
+        <section aria-labelledby="observations-heading">
+          <h2 id="observations-heading" className="mb-2 text-lg font-semibold">
+            Observations
+          </h2>
+          <ObservationsSection observations={evaluation.observations} />
         </section>
       )}
       <section aria-labelledby="conformity-heading">
