@@ -45,7 +45,7 @@ export async function insertRunLog(
 /** The log's own row; its chunks may already be written in the same transaction (the reference is checked at commit, 0022). */
 export async function insertRunLogRow(
   db: Executor,
-  l: { id?: string; runId: string; storedFileId: string; mapping: ColumnMapping; sampleCount: number; loggedFrom: Date | null; uploadedBy: string },
+  l: { id?: string; runId: string; storedFileId: string; mapping: ColumnMapping; sampleCount: number; loggedFrom: Date | null; uploadedBy: string | null; inParts?: boolean },
 ): Promise<string> {
   const { id } = await db
     .insertInto("run_log")
@@ -57,6 +57,7 @@ export async function insertRunLogRow(
       sample_count: l.sampleCount,
       logged_from: l.loggedFrom,
       uploaded_by: l.uploadedBy,
+      ...(l.inParts ? { in_parts: true } : {}),
     })
     .returning("id")
     .executeTakeFirstOrThrow();

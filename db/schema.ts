@@ -77,7 +77,8 @@ export interface StoredFileTable {
   size_bytes: ColumnType<string, number | string, number | string>;
   sha256: string;
   purpose: string;
-  uploaded_by: string;
+  /** Null for a log part pushed by a machine (0023). */
+  uploaded_by: string | null;
   uploaded_at: DefaultedTimestamp;
 }
 

@@ -8,6 +8,7 @@ import { type Kysely, sql } from "kysely";
 export async function up(db: Kysely<any>): Promise<void> {
   // A log whose first part was pushed by a machine has no user behind it.
   await sql`alter table run_log alter column uploaded_by drop not null`.execute(db);
+  await sql`alter table stored_file alter column uploaded_by drop not null`.execute(db);
   await sql`alter table run_log add column in_parts boolean not null default false`.execute(db);
 
   await sql`
@@ -45,6 +46,20 @@ export async function up(db: Kysely<any>): Promise<void> {
     end $$`.execute(db);
   await sql`create trigger run_log_part_kept before update or delete on run_log_part for each row execute function run_log_part_kept()`.execute(db);
   await sql`create trigger run_log_part_frozen_with_run before insert or update or delete on run_log_part for each row execute function run_evidence_guard('run_id')`.execute(db);
+  // Whoever uploads a part takes part in the run (0012); a part pushed by a machine has no person behind it.
+  await sql`
+    create or replace function run_participant_from_record() returns trigger language plpgsql set search_path = public, pg_temp as $$
+    begin
+      if tg_table_name = 'run' then
+        perform note_run_participant(new.id, new.operator_id, 'started');
+      elsif tg_table_name = 'step_record' then
+        perform note_run_participant(new.run_id, new.recorded_by, 'recorded');
+      elsif tg_table_name in ('run_log', 'run_log_part') then
+        if new.uploaded_by is not null then perform note_run_participant(new.run_id, new.uploaded_by, 'uploaded'); end if;
+      end if;
+      return new;
+    end $$`.execute(db);
+  await sql`create trigger run_participant_part_uploaded after insert on run_log_part for each row execute function run_participant_from_record()`.execute(db);
   await sql`revoke all on run_log_part from cellwright_app`.execute(db);
   await sql`grant select, insert on run_log_part to cellwright_app`.execute(db);
 
