@@ -18,6 +18,8 @@ export interface RunLogView {
   /** When the first sample was taken, if the log has timestamps. */
   loggedFrom: Date | null;
   current: boolean;
+  /** Built from parts appended over time (run_log_part); its file is then the first part's. */
+  inParts: boolean;
   uploadedAt: Date;
 }
 
@@ -95,7 +97,7 @@ export async function getCurrentRunLog(db: Executor, runId: string): Promise<Run
   const r = await db
     .selectFrom("run_log as l")
     .innerJoin("stored_file as f", "f.id", "l.stored_file_id")
-    .select(["l.id", "l.run_id", "f.id as file_id", "f.original_name", "f.sha256", "f.size_bytes", "l.mapping", "l.sample_count", "l.logged_from", "l.current", "l.uploaded_at"])
+    .select(["l.id", "l.run_id", "f.id as file_id", "f.original_name", "f.sha256", "f.size_bytes", "l.mapping", "l.sample_count", "l.logged_from", "l.current", "l.in_parts", "l.uploaded_at"])
     .where("l.run_id", "=", runId)
     .where("l.current", "=", true)
     .executeTakeFirst();
@@ -111,6 +113,7 @@ export async function getCurrentRunLog(db: Executor, runId: string): Promise<Run
     sampleCount: r.sample_count,
     loggedFrom: r.logged_from,
     current: r.current,
+    inParts: r.in_parts,
     uploadedAt: r.uploaded_at,
   };
 }

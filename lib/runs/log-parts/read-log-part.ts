@@ -7,6 +7,7 @@ import { insertRunLogRow, supersedeRunLogs } from "@/db/run-logs";
 import { insertStoredFile } from "@/db/stored-files";
 import { CHUNK_SAMPLES } from "@/db/run-logs";
 import type { LogImportError } from "@/lib/analysis/log-import";
+import { toCanonicalJson } from "@/lib/certificates/canonical-json";
 import { DomainError } from "@/lib/errors";
 import { deleteObject, readObjectOrNull, sha256Hex } from "@/lib/storage";
 import { evaluateStoredRun } from "../evaluate-stored-run";
@@ -97,6 +98,9 @@ async function acceptPart(
   const firstS = readPartStart(parsed.firstTime, job.mapping);
   const lastS = firstS + (parsed.columns.timeS[parsed.columns.length - 1] ?? 0);
   const previous = tip ? { number: tip.last.number, firstS: tip.last.firstTimeS, lastS: tip.last.lastTimeS, samples: tip.last.sampleCount, header: tip.last.header } : null;
+  if (tip && toCanonicalJson(tip.mapping) !== toCanonicalJson(job.mapping)) {
+    throw new DomainError("conflict", "This part's columns were mapped differently from the earlier parts (another time, voltage or current column, unit or separator). Send it with the earlier parts' mapping.");
+  }
   const fit = checkNextPart(previous, { firstS, lastS, samples: parsed.rows, header: parsed.header }, job.mapping.time.form);
   if (!fit.ok) throw new DomainError("conflict", fit.problem);
 
@@ -178,3 +182,4 @@ async function refusePart(job: LogIngestJobView, sender: LogPartSender, error: P
     });
   if (job.part) await deleteObject(job.part.stagedKey).catch((e: unknown) => console.error(`could not remove the refused part's staged object`, e));
 }
+
