@@ -85,5 +85,5 @@ function refusalPage(message: string): string {
  * assessor may call it from a script (`curl --data-binary @certificate.pdf`), which sends no Origin.
  */
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/specs/[^/]+/datasheet$|api/check/).*)"],
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/runs/[^/]+/log-parts$|api/specs/[^/]+/datasheet$|api/check/).*)"],
 };

@@ -77,7 +77,8 @@ export interface StoredFileTable {
   size_bytes: ColumnType<string, number | string, number | string>;
   sha256: string;
   purpose: string;
-  uploaded_by: string;
+  /** Null for a log part pushed by a machine (0023). */
+  uploaded_by: string | null;
   uploaded_at: DefaultedTimestamp;
 }
 
@@ -224,8 +225,35 @@ export interface RunLogTable {
   sample_count: number;
   logged_from: Date | null;
   current: ColumnType<boolean, boolean | undefined, boolean>;
-  uploaded_by: string;
+  /** Null when the log's first part was pushed by a machine (0023). */
+  uploaded_by: string | null;
   uploaded_at: DefaultedTimestamp;
+  /** A log built from parts appended over time (run_log_part), not one whole upload (0023). */
+  in_parts: Generated<boolean>;
+}
+
+/** One accepted part of a run's log (migration 0023): never changed or removed once written. */
+export interface RunLogPartTable {
+  id: string;
+  run_id: string;
+  run_log_id: string;
+  part_number: number;
+  stored_file_id: string;
+  sha256: string;
+  header: JsonColumn;
+  first_chunk: number;
+  chunk_count: number;
+  sample_count: number;
+  /** Seconds in the run's time base: Unix time for timestamped logs, the cycler's elapsed time otherwise. */
+  first_time_s: number;
+  last_time_s: number;
+  starts_at: Date | null;
+  ends_at: Date | null;
+  gap_before_s: number | null;
+  uploaded_by: string | null;
+  machine_token_id: string | null;
+  machine_label: string | null;
+  received_at: DefaultedTimestamp;
 }
 
 export interface RunLogChunkTable {
@@ -242,10 +270,11 @@ export interface RunLogChunkTable {
 export interface LogIngestJobTable {
   id: Generated<string>;
   run_id: string;
-  stored_file_id: string;
+  /** Null for a log part until it is accepted: only its staged object exists before (0023). */
+  stored_file_id: string | null;
   mapping: JsonColumn;
   remember_mapping: Generated<boolean>;
-  requested_by: string;
+  requested_by: string | null;
   state: Generated<"waiting" | "reading" | "stored" | "evaluated" | "refused" | "failed">;
   rows_read: Generated<number>;
   attempts: Generated<number>;
@@ -255,6 +284,14 @@ export interface LogIngestJobTable {
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
   finished_at: Date | null;
+  part_id: string | null;
+  file_name: string | null;
+  staged_key: string | null;
+  staged_sha256: string | null;
+  staged_size: ColumnType<string | null, number | string | null | undefined, number | string | null>;
+  mapping_given: Generated<boolean>;
+  machine_token_id: string | null;
+  machine_label: string | null;
 }
 
 export interface RunEvaluationTable {
@@ -362,6 +399,7 @@ export interface Database {
   step_record: StepRecordTable;
   run_log: RunLogTable;
   run_log_chunk: RunLogChunkTable;
+  run_log_part: RunLogPartTable;
   log_ingest_job: LogIngestJobTable;
   run_evaluation: RunEvaluationTable;
   electronic_signature: ElectronicSignatureTable;

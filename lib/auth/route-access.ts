@@ -67,6 +67,7 @@ export const ROUTE_ACCESS = {
   "/api/runs/[id]": { GET: "run.read" },
   "/api/runs/[id]/series": { GET: "run.read" },
   "/api/runs/[id]/logs": { GET: "run.read", POST: "run.operate" },
+  "/api/runs/[id]/log-parts": { POST: "run.operate" },
   "/api/runs/[id]/logs/current": { GET: "run.read" },
   "/api/runs/[id]/evaluations": { POST: ["run.operate", "run.review"] },
   "/api/runs/[id]/results.csv": { GET: "run.read" },

@@ -80,7 +80,7 @@ export interface RunCertificateRecords {
   instruments: RecordedInstrument[];
   stepRecords: StepRecord[];
   evaluation: { evaluatedAt: Date; value: StoredEvaluation; stored: unknown };
-  logs: { fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date }[];
+  logs: { fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date; part?: number; span?: string }[];
   review: { printedName: string; signedAt: Date; comments: string; acknowledged: AcknowledgedDeviation[] };
   approval: { printedName: string; signedAt: Date };
   meaningWords: { reviewed: string; approved: string };
@@ -358,7 +358,14 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     evidence: {
       evaluatedAt: records.evaluation.evaluatedAt.toISOString(),
       evaluationSha256: hashCanonicalJson(records.evaluation.stored),
-      logs: records.logs.map((l) => ({ fileName: l.fileName, sha256: l.sha256, sizeBytes: l.sizeBytes, samples: l.samples, uploadedAt: l.uploadedAt.toISOString() })),
+      logs: records.logs.map((l) => ({
+        fileName: l.fileName,
+        sha256: l.sha256,
+        sizeBytes: l.sizeBytes,
+        samples: l.samples,
+        uploadedAt: l.uploadedAt.toISOString(),
+        ...(l.part === undefined ? {} : { part: l.part, span: l.span }),
+      })),
     },
     review: { ...sign(records.review.printedName, "reviewed", records.meaningWords.reviewed, records.review.signedAt), comments: records.review.comments },
   };

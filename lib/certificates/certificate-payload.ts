@@ -144,6 +144,9 @@ export interface CertificateLog {
   sizeBytes: number;
   samples: number;
   uploadedAt: string;
+  /** For a log sent in parts: the part's place in the log and the time it spans, in words. */
+  part?: number;
+  span?: string;
 }
 
 export interface CertificateRetention {

@@ -410,8 +410,8 @@ export function EvidenceSection({ payload, payloadSha256 }: P & { payloadSha256:
       {payload.evidence.logs.map((l) => (
         <HashField
           key={l.sha256}
-          label="Data log"
-          text={`${l.fileName}: ${formatFigure(l.samples, 0)} samples, ${formatFigure(l.sizeBytes, 0)} bytes, uploaded ${formatMoment(l.uploadedAt)}; SHA-256`}
+          label={l.part === undefined ? "Data log" : `Data log, part ${l.part}`}
+          text={`${l.fileName}: ${formatFigure(l.samples, 0)} samples${l.span ? ` from ${l.span}` : ""}, ${formatFigure(l.sizeBytes, 0)} bytes, ${l.part === undefined ? "uploaded" : "received"} ${formatMoment(l.uploadedAt)}; SHA-256`}
           hash={l.sha256}
         />
       ))}

@@ -46,8 +46,14 @@ export async function storeLogWhileReading<T>({
   onProgress,
   onPartStored,
   complete,
+  append,
 }: {
   runId: string;
+  /**
+   * A log part: its chunks continue an existing log (or start one) from `firstChunk` under `runLogId`, with
+   * each time shifted by `shiftTime(first time cell)` so that all parts read as one stream from the log's first sample.
+   */
+  append?: { runLogId: string; firstChunk: number; shiftTime: (firstTime: string) => number };
   mapping: ColumnMapping;
   chunks: AsyncIterable<Uint8Array> | Iterable<Uint8Array>;
   onProgress?: (p: { bytes: number; rows: number }) => void | Promise<void>;
@@ -55,7 +61,7 @@ export async function storeLogWhileReading<T>({
   onPartStored?: (part: { index: number; rows: number }) => void | Promise<void>;
   complete: (tx: Executor, done: { parsed: ParsedLog; runLogId: string }) => Promise<T>;
 }): Promise<StoreWhileReadingResult<T>> {
-  const runLogId = randomUUID();
+  const runLogId = append?.runLogId ?? randomUUID();
   const client = await getPool().connect();
   let broken = false;
   try {
@@ -64,7 +70,8 @@ export async function storeLogWhileReading<T>({
     const copied = finished(copy);
     copied.catch(() => undefined);
     copy.write(COPY_BINARY_HEADER);
-    let nextPart = 0;
+    let nextPart = append?.firstChunk ?? 0;
+    let shiftS: number | null = null;
     const sent: { index: number; rows: number }[] = [];
     let progress = { bytes: 0, rows: 0 };
     const parser = createLogParser(mapping, {
@@ -72,7 +79,13 @@ export async function storeLogWhileReading<T>({
       rowsPerPart: CHUNK_SAMPLES,
       onRows: ({ columns }) => {
         const index = nextPart++;
-        for (const b of encodeChunk(runLogId, index, columns)) copy.write(b);
+        let written = columns;
+        if (append) {
+          shiftS ??= append.shiftTime(parser.firstTime);
+          // A copy: the last rows handed out share their memory with the parsed log the caller still reads.
+          if (Number.isFinite(shiftS) && shiftS !== 0) written = { ...columns, timeS: columns.timeS.map((t) => t + (shiftS as number)) };
+        }
+        for (const b of encodeChunk(runLogId, index, written)) copy.write(b);
         sent.push({ index, rows: columns.length });
       },
       onProgress: (p) => {
