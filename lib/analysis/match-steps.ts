@@ -7,6 +7,8 @@ export type ExpectedStepKind = "charge" | "discharge" | "rest" | "pulse" | "soak
 export interface ExpectedStep {
   id: string;
   kind: ExpectedStepKind;
+  /** A step the log may lack without a finding: a cycle of an endurance block the run has not reached. */
+  optional?: boolean;
 }
 
 /** What matching needs to know of a phase; a segmented Phase fits. */
@@ -116,7 +118,7 @@ export function matchSteps(expected: readonly ExpectedStep[], phases: readonly M
     stepId: step.id,
     kind: step.kind,
     phaseIndex: phaseOfStep[k] ?? null,
-    required: step.kind !== "soak" && step.kind !== "measure" && step.kind !== "observe",
+    required: step.optional !== true && step.kind !== "soak" && step.kind !== "measure" && step.kind !== "observe",
   }));
   const extraPhaseIndexes: number[] = [];
   used.forEach((isUsed, k) => {
