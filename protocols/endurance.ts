@@ -125,7 +125,9 @@ export function checkCycleBlock(block: CycleBlockFields, ctx: IssueSink): void {
       });
     }
   }
-  if (compareNumbers(block.stopBelowPercentOfRated, block.acceptAtLeastPercentOfRated) === 'higher') {
+  // Shares already refused as not above 0 % are not compared, so one mistake gives one message.
+  const sharesUsable = block.stopBelowPercentOfRated > 0 && block.acceptAtLeastPercentOfRated > 0;
+  if (sharesUsable && compareNumbers(block.stopBelowPercentOfRated, block.acceptAtLeastPercentOfRated) === 'higher') {
     ctx.addIssue({
       code: 'custom',
       path: ['stopBelowPercentOfRated'],

@@ -51,15 +51,15 @@ export interface RunLogAnalysis {
   cycleBlocks: LoggedCycleBlock[];
 }
 
-/** The phases one cycle of a block leaves in the log, in order; "discharge" is the one whose capacity counts. */
+/** The phases one cycle of a block leaves in the log, in order. */
 const CYCLE_PARTS = ["charge", "rest", "discharge", "rest"] as const;
 
 interface ExpectedEntry {
   /** The planned step this entry belongs to. */
   planIndex: number;
   expected: ExpectedStep;
-  /** For a block's entry: its cycle (1-based) and part. */
-  cycle?: { number: number; part: number };
+  /** One of a cycle block's phase entries. */
+  inBlock: boolean;
 }
 
 /**
@@ -71,12 +71,12 @@ function listExpected(planned: readonly PlannedStep[]): ExpectedEntry[] {
   planned.forEach((entry, planIndex) => {
     const { step } = entry;
     if (step.kind !== "cycle-block") {
-      entries.push({ planIndex, expected: { id: `${step.id}#${entry.cycle}`, kind: step.kind } });
+      entries.push({ planIndex, expected: { id: `${step.id}#${entry.cycle}`, kind: step.kind }, inBlock: false });
       return;
     }
     for (let cycle = 1; cycle <= step.maxCycles; cycle++) {
       CYCLE_PARTS.forEach((kind, part) =>
-        entries.push({ planIndex, expected: { id: `${step.id}#${entry.cycle}/${cycle}.${part}`, kind, optional: true }, cycle: { number: cycle, part } }),
+        entries.push({ planIndex, expected: { id: `${step.id}#${entry.cycle}/${cycle}.${part}`, kind, optional: true }, inBlock: true }),
       );
     }
   });
@@ -129,14 +129,14 @@ export function analyseRunLog({
   }
   // Per planned step: its matched phase, or for a block the phases of its cycles.
   const phaseOfPlanned = new Map<number, number | null>();
-  const blockParts = new Map<number, { cycle: number; part: number; phaseIndex: number }[]>();
+  const blockParts = new Map<number, { phaseIndex: number }[]>();
   entries.forEach((entry, k) => {
     const phaseIndex = matching.value.steps[k]?.phaseIndex ?? null;
-    if (entry.cycle === undefined) {
+    if (!entry.inBlock) {
       phaseOfPlanned.set(entry.planIndex, phaseIndex);
     } else if (phaseIndex !== null) {
       const parts = blockParts.get(entry.planIndex) ?? [];
-      parts.push({ cycle: entry.cycle.number, part: entry.cycle.part, phaseIndex });
+      parts.push({ phaseIndex });
       blockParts.set(entry.planIndex, parts);
     }
   });
@@ -183,17 +183,25 @@ function resultsOf(log: LogColumns, phase: Phase | undefined): StepResults | nul
   return results.ok ? results.value : null;
 }
 
-/** The cycles of a block that reached the log: a cycle counts once its charge or its discharge was found. */
-function collectCycles(log: LogColumns, phases: readonly Phase[], parts: readonly { cycle: number; part: number; phaseIndex: number }[]): LoggedCycle[] {
-  const byCycle = new Map<number, LoggedCycle>();
-  for (const { cycle, part, phaseIndex } of parts) {
-    const kind = CYCLE_PARTS[part];
-    if (kind !== "charge" && kind !== "discharge") continue;
-    const entry = byCycle.get(cycle) ?? { cycle, charge: null, discharge: null };
-    entry[kind] = resultsOf(log, phases[phaseIndex]);
-    byCycle.set(cycle, entry);
+/**
+ * The cycles of a block that reached the log, numbered in log order: each charge starts a cycle, and a
+ * discharge belongs to the cycle its charge started (a discharge with no charge before it in the cycle
+ * starts one of its own). The alignment may put the phases on any of the block's equal cycle entries, so
+ * the numbering is taken from the phases' order, never from the entries.
+ */
+function collectCycles(log: LogColumns, phases: readonly Phase[], parts: readonly { phaseIndex: number }[]): LoggedCycle[] {
+  const cycles: LoggedCycle[] = [];
+  const ordered = [...parts].sort((a, b) => a.phaseIndex - b.phaseIndex);
+  for (const { phaseIndex } of ordered) {
+    const phase = phases[phaseIndex];
+    if (phase === undefined || phase.kind === "rest") continue;
+    const last = cycles[cycles.length - 1];
+    const startsCycle = phase.kind === "charge" || last === undefined || last.discharge !== null;
+    const entry = startsCycle ? { cycle: cycles.length + 1, charge: null, discharge: null } : last;
+    entry[phase.kind] = resultsOf(log, phase);
+    if (startsCycle) cycles.push(entry);
   }
-  return [...byCycle.values()].sort((a, b) => a.cycle - b.cycle);
+  return cycles;
 }
 
 /** The block as one step: the span from its first to its last matched phase. */
