@@ -73,8 +73,7 @@ export const cycleBlockFields = {
   acceptAtLeastPercentOfRated: share('the acceptance share of the rated capacity'),
 };
 
-const cycleBlockObject = z.strictObject(cycleBlockFields);
-export type CycleBlockFields = z.infer<typeof cycleBlockObject>;
+export type CycleBlockFields = z.infer<z.ZodObject<typeof cycleBlockFields>>;
 
 type IssueSink = { addIssue: (issue: { code: 'custom'; path: (string | number)[]; message: string }) => void };
 
