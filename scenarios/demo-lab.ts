@@ -203,3 +203,18 @@ export const DEMO_LOOSE_SPECIMENS = [
   { identifier: "HV30-ENG-01", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
   { identifier: "HV30-ENG-02", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
 ].map((s) => ({ ...s, notes: "Engineering samples sent by the maker without lot papers." }));
+
+/** The demo endurance run: an engineering sample of the invented 3 000 mAh cell, some tens of cycles into TPL-END400. */
+export const DEMO_ENDURANCE_RUN = {
+  specimen: "HV30-END-01",
+  maker: "Halden Voltaic",
+  model: "HV-18N30",
+  notes: "Engineering sample on the endurance test; the cycler log is added as the cycles run.",
+  channel: "CY1-CH01",
+  ambientInstrument: "CC-01",
+  /** The log holds this many cycles of about 5.8 h each. */
+  cycles: 60,
+  startedDaysAgo: 15,
+  /** Capacity lost per cycle in the synthetic log, mAh (a fast-fading sample, so the trend shows). */
+  fadeMahPerCycle: 9,
+};

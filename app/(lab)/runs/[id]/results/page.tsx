@@ -1,6 +1,7 @@
 import { preload } from "react-dom";
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
+import { EnduranceSection } from "@/components/runs/results/endurance-section";
 import { FindingGroups } from "@/components/runs/results/finding-groups";
 import { ObservationsSection } from "@/components/runs/results/observations-section";
 import { ResultsTable } from "@/components/runs/results/results-table";
@@ -98,6 +99,14 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
             Charge retention and recovery
           </h2>
           <RetentionTable retention={evaluation.retention} />
+        </section>
+      )}
+      {evaluation.endurance && (
+        <section aria-labelledby="endurance-heading">
+          <h2 id="endurance-heading" className="mb-2 text-lg font-semibold">
+            Endurance in cycles
+          </h2>
+          <EnduranceSection endurance={evaluation.endurance} />
         </section>
       )}
       {evaluation.observations && (
