@@ -17,3 +17,4 @@ export * from "./uncertainty";
 export * from "./dc-resistance-uncertainty";
 export * from "./discharge-end";
 export * from "./capacity-budget-terms";
+export * from "./cycle-accumulator";
