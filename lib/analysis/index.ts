@@ -18,3 +18,4 @@ export * from "./dc-resistance-uncertainty";
 export * from "./discharge-end";
 export * from "./capacity-budget-terms";
 export * from "./cycle-accumulator";
+export * from "./retention-trend";
