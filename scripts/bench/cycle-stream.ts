@@ -20,7 +20,7 @@ import { getRunCycleState, listRunCycleResults } from "../../db/run-cycles";
 import { createScanFloor } from "../../lib/analysis/log-import";
 import type { SignedInUser } from "../../lib/auth/signed-in-user";
 import { ingestLog } from "../../lib/runs/ingest-log";
-import { enduranceLogPlan, generateEnduranceLog, type EnduranceLogPlan } from "../../scenarios/endurance-log";
+import { countEnduranceSamples, enduranceLogPlan, generateEnduranceLog, type EnduranceLogPlan } from "../../scenarios/endurance-log";
 
 const PART_SAMPLES = Number(process.env.BENCH_PART_SAMPLES ?? 500_000);
 const root = path.join(process.cwd(), ".data", "bench", "cycles");
@@ -40,7 +40,10 @@ interface Manifest {
 
 /** Enough cycles of the plan for `samples` samples; the log is cut there (mid-cycle, as a running test is). */
 function planFor(samples: number): EnduranceLogPlan {
-  return { ...enduranceLogPlan, cycles: Math.ceil(samples / 15_000) + 1, sampleIntervalS: 1, fadePerCycle: 0.0003, pulseEveryCycles: 50 };
+  // Cycles shorten as the capacity fades: add cycles until the plan holds the samples asked for.
+  const plan = { ...enduranceLogPlan, cycles: Math.ceil(samples / 15_600), sampleIntervalS: 1, fadePerCycle: 0.0003, pulseEveryCycles: 50 };
+  while (countEnduranceSamples(plan) < samples) plan.cycles += Math.max(1, Math.ceil((samples - countEnduranceSamples(plan)) / 12_000));
+  return plan;
 }
 
 function make(samples: number): void {
