@@ -294,6 +294,38 @@ export interface LogIngestJobTable {
   machine_label: string | null;
 }
 
+/** One cycle's results, computed while the log was read (migration 0025). */
+export interface RunCycleResultTable {
+  run_id: string;
+  cycle: number;
+  run_log_id: string;
+  charge_ah: number;
+  discharge_ah: number;
+  charge_wh: number;
+  discharge_wh: number;
+  coulombic_efficiency: number | null;
+  energy_efficiency: number | null;
+  end_of_charge_v: number | null;
+  end_of_discharge_v: number | null;
+  dc_resistance_ohm: number | null;
+  first_time_s: number;
+  last_time_s: number;
+  closed: boolean;
+  updated_at: DefaultedTimestamp;
+}
+
+/** Where the per-cycle accumulator stopped, per run (migration 0025); the next log part continues from it. */
+export interface RunCycleStateTable {
+  run_id: string;
+  run_log_id: string;
+  state: JsonColumn;
+  sample_count: ColumnType<string, number, number>;
+  last_sample_time_s: number | null;
+  samples_arrived_at: DefaultedTimestamp;
+  stop_reached_cycle: number | null;
+  updated_at: DefaultedTimestamp;
+}
+
 export interface RunEvaluationTable {
   id: Generated<string>;
   run_id: string;
@@ -352,7 +384,7 @@ export interface CertificateTable {
   revocation_reason: string | null;
 }
 
-export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release";
+export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release" | "endurance-stop-reached" | "run-stalled";
 
 export interface MailMessageTable {
   id: Generated<string>;
@@ -401,6 +433,8 @@ export interface Database {
   run_log_chunk: RunLogChunkTable;
   run_log_part: RunLogPartTable;
   log_ingest_job: LogIngestJobTable;
+  run_cycle_result: RunCycleResultTable;
+  run_cycle_state: RunCycleStateTable;
   run_evaluation: RunEvaluationTable;
   electronic_signature: ElectronicSignatureTable;
   run_review: RunReviewTable;

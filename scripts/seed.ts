@@ -8,6 +8,7 @@ import { repairFramedObjects } from "../lib/integrity/repair-framed-objects";
 import { DEMO_LAB, DEMO_USERS } from "../scenarios/demo-lab";
 import { seedDemoLot } from "./seed-demo-lot";
 import { seedEnduranceRun } from "./seed-endurance-run";
+import { seedEnduranceTrendRun } from "./seed-endurance-trend";
 import { seedLibrary } from "./seed-library";
 
 /**
@@ -71,6 +72,7 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
   // After the library: the second lot needs its cell specification, procedures and instruments.
   created.push(...(await seedDemoLot()));
   created.push(...(await seedEnduranceRun()));
+  created.push(...(await seedEnduranceTrendRun()));
   // Demo databases made before uploads were stored byte-exact hold framed objects: put the sent bytes back.
   const repairs = await repairFramedObjects("demo seed");
   created.push(...repairs.repaired);

@@ -66,6 +66,7 @@ export const ROUTE_ACCESS = {
   "/api/runs": { GET: "run.read" },
   "/api/runs/[id]": { GET: "run.read" },
   "/api/runs/[id]/series": { GET: "run.read" },
+  "/api/runs/[id]/cycles": { GET: "run.read" },
   "/api/runs/[id]/logs": { GET: "run.read", POST: "run.operate" },
   "/api/runs/[id]/log-parts": { POST: "run.operate" },
   "/api/runs/[id]/logs/current": { GET: "run.read" },

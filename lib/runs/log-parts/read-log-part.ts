@@ -48,6 +48,8 @@ export async function runLogPartJob(job: LogIngestJobView, part: NonNullable<Log
       mapping: job.mapping,
       chunks: slices(bytes),
       append: { runLogId, firstChunk, shiftTime: (firstTime) => (tip ? readPartStart(firstTime, job.mapping) - tip.originS : 0) },
+      // The first part starts the run's cycles afresh; each later one continues them.
+      cycles: tip ? { kind: "part", timeOffsetS: 0 } : { kind: "whole-log" },
       onPartStored: opts.onPartStored,
       onProgress: async (p) => {
         const now = Date.now();
