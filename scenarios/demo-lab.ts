@@ -110,6 +110,13 @@ function inventedCellRatings(): CellSpecification {
   return ratings as CellSpecification;
 }
 
+/** Both channels of the invented cycler CY1 share its stated accuracy (one data sheet). */
+const CYCLER_1_ACCURACY: import("../lib/instruments/accuracy").AccuracySpecification = {
+  current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
+  voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
+  time: { ppm: 50 },
+};
+
 /**
  * The demo lab's instruments: two channels of one invented cycler, a climate chamber and a balance.
  * Dates are counted from the day of seeding, so none is overdue (runs can start) and CY1-CH02 falls
@@ -129,11 +136,7 @@ export const DEMO_INSTRUMENTS: {
     identifier: "CY1-CH01",
     serial: "TQ16-20417-01",
     firmware: "3.8.2",
-    accuracy: {
-      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
-      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
-      time: { ppm: 50 },
-    },
+    accuracy: CYCLER_1_ACCURACY,
     calibrationCertificate: "MCL-26-1184",
     dueInDays: 140,
   },
@@ -142,11 +145,7 @@ export const DEMO_INSTRUMENTS: {
     identifier: "CY1-CH02",
     serial: "TQ16-20417-02",
     firmware: "3.8.2",
-    accuracy: {
-      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
-      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
-      time: { ppm: 50 },
-    },
+    accuracy: CYCLER_1_ACCURACY,
     calibrationCertificate: "MCL-25-0977",
     dueInDays: 21,
   },
