@@ -444,6 +444,7 @@ export interface Database {
   run_participant: RunParticipantTable;
   refused_request_tally: RefusedRequestTallyTable;
   lab_signing_key: LabSigningKeyTable;
+  machine_token: MachineTokenTable;
 }
 
 /** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
@@ -457,11 +458,29 @@ export interface RunParticipantTable {
 /** Refused cross-site requests counted per 10-minute window and origin (migration 0013). */
 export interface RefusedRequestTallyTable {
   window_start: Date;
-  kind: "foreign-origin";
+  kind: "foreign-origin" | "unknown-token";
   origin: string;
   last_path: string;
   count: Generated<number>;
   last_at: DefaultedTimestamp;
+}
+
+/** A token a cycler PC pushes log parts with, for one cycler channel (migration 0024): only its SHA-256 is kept. */
+export interface MachineTokenTable {
+  id: Generated<string>;
+  instrument_id: string;
+  label: string;
+  secret_sha256: string;
+  hint: string;
+  issued_by: string;
+  issued_at: DefaultedTimestamp;
+  expires_at: Date;
+  revoked_at: Date | null;
+  revoked_by: string | null;
+  revoke_reason: string | null;
+  last_used_at: Date | null;
+  window_start: Date | null;
+  window_count: Generated<number>;
 }
 
 /** The lab's signing key, sealed (migration 0021): at most one row, never changed or removed. */
