@@ -175,7 +175,7 @@ test("a live endurance run: token, first part in the browser, the push command, 
 
     // The operator marks the end of the cycle block and submits; a second engineer accepts and issues the certificate.
     const [cycles] = await query<{ record: { startedAt: string } }>(`select record from step_record where run_id = $1 and step_id = 'cycles'`, [run.id]);
-    await query(`update step_record set completed = true, record = record || jsonb_build_object('endedAt', $2::text) where run_id = $1 and step_id = 'cycles'`, [
+    await query(`update step_record set completed = true, record = record || jsonb_build_object('endedAt', $2::text, 'completed', true) where run_id = $1 and step_id = 'cycles'`, [
       run.id,
       new Date(Date.parse(cycles!.record.startedAt) + 630_000_000).toISOString(),
     ]);
