@@ -180,6 +180,8 @@ test("a live endurance run: token, first part in the browser, the push command, 
       new Date(Date.parse(cycles!.record.startedAt) + 630_000_000).toISOString(),
     ]);
     await operator.goto(`/runs/${run.id}`);
+    // The invented log is no perfect run of the procedure (its cycles are not the template's): the operator submits with its deviations.
+    await operator.getByRole("checkbox", { name: /I have read the \d+ deviations? on the Findings and results tab/ }).check();
     await operator.getByRole("button", { name: "Submit the run for review" }).click();
     await expect(operator.getByTestId("run-status")).toHaveText(/submitted for review/);
 
@@ -187,6 +189,8 @@ test("a live endurance run: token, first part in the browser, the push command, 
     await signInAs(reviewerContext, baseURL!, "engineer");
     const reviewer = await reviewerContext.newPage();
     await reviewer.goto(`/runs/${run.id}/review`);
+    const notes = reviewer.getByLabel("Your note on this deviation");
+    for (let i = 0; i < (await notes.count()); i++) await notes.nth(i).fill("Invented demo log of a live endurance test; recorded as found.");
     await reviewer.getByLabel("Your password, to sign").fill(password("engineer@brackwater.example"));
     await reviewer.getByRole("button", { name: `Sign as reviewed and accept run ${run.number}` }).click();
     await expect(reviewer.getByTestId("run-status")).toHaveText(/accepted/);
