@@ -8,6 +8,7 @@ import { getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
 import { columnMappingSchema, parseLog } from "@/lib/analysis/log-import";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { abandonRun } from "@/lib/runs/abandon-run";
+import { issueMachineToken } from "@/lib/machine-tokens/token-admin";
 import { runNextLogIngestJob } from "@/lib/runs/log-ingest/run-log-ingest-job";
 import { appendLogPart, type LogPartSender } from "@/lib/runs/log-parts/append-log-part";
 import { recordStep } from "@/lib/runs/record-step";
@@ -44,7 +45,7 @@ async function setUpRun(tag: string, recordSteps: boolean) {
   const run = await startRun(operator, { procedureVersionId: versionId, specimenId: specimen, instrumentIds: [channel] }, TODAY);
   const built = buildRatedCapacityRun({ sampleIntervalS: 0.5 });
   if (recordSteps) for (const record of built.input.stepRecords) await recordStep(operator, run.id, record);
-  return { operator, runId: run.id, built };
+  return { operator, runId: run.id, built, channel };
 }
 
 /** Rows [from, to) of a log as CSV lines, time as the cycler's elapsed seconds (it keeps counting across parts). */
@@ -157,7 +158,9 @@ describe("a run's log in parts", () => {
 
   it("records a gap, refuses time going backwards, an empty part and a part for a closed run, and keeps a machine sender", async () => {
     const l = await setUpRun("B", false);
-    const machine: LogPartSender = { kind: "machine", tokenId: crypto.randomUUID(), label: "cycler CH-PB" };
+    // A real token row: parts and jobs reference the token that sent them.
+    const issued = await issueMachineToken(await makeUser("admin", "Ada Admin B"), { instrumentId: l.channel, label: "cycler CH-PB", days: 30 });
+    const machine: LogPartSender = { kind: "machine", tokenId: issued.id, label: "cycler CH-PB" };
     const c = l.built.log.columns;
     const first = HEADER + rowsCsv(c, 0, 1000);
     const a = await send(machine, l.runId, "p1.csv", first);
