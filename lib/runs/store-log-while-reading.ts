@@ -111,7 +111,6 @@ export async function storeLogWhileReading<T>({
       for await (const chunk of chunks) {
         const refused = parser.push(chunk);
         if (refused) throw new LogRefused(refused);
-        if (cycleProblem !== null) throw new LogRefused(cycleRefusal(cycleProblem));
         if (copy.errored) throw copy.errored;
         for (const part of sent.splice(0)) await onPartStored?.(part);
         // The parser waits while the database is behind; otherwise it goes on reading.
@@ -120,7 +119,6 @@ export async function storeLogWhileReading<T>({
       }
       const parsed = parser.finish();
       if (!parsed.ok) throw new LogRefused(parsed.error);
-      if (cycleProblem !== null) throw new LogRefused(cycleRefusal(cycleProblem));
       for (const part of sent.splice(0)) await onPartStored?.(part);
       copy.end(COPY_BINARY_TRAILER);
       await copied;
@@ -128,6 +126,8 @@ export async function storeLogWhileReading<T>({
       const run = await getRun(tx, runId, { forUpdate: true });
       if (!run || !isRunOpen(run.status)) throw new DomainError("conflict", "The run changed while the log was being read; nothing was stored.");
       const value = await complete(tx, { parsed, runLogId });
+      // After `complete`: a part's own checks (overlap, gap, layout) name the problem in the lab's words first.
+      if (cycleProblem !== null) throw new LogRefused(cycleRefusal(cycleProblem));
       await storeRunCycles(tx, { run, runLogId, cycles });
       await client.query("commit");
       return { ok: true, parsed, runLogId, value };

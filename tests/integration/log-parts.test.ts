@@ -8,8 +8,8 @@ import { getCurrentRunLog, readRunLogColumns } from "@/db/run-logs";
 import { columnMappingSchema, parseLog } from "@/lib/analysis/log-import";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { abandonRun } from "@/lib/runs/abandon-run";
-import { runNextLogIngestJob } from "@/lib/runs/log-ingest/run-log-ingest-job";
 import { issueMachineToken } from "@/lib/machine-tokens/token-admin";
+import { runNextLogIngestJob } from "@/lib/runs/log-ingest/run-log-ingest-job";
 import { appendLogPart, type LogPartSender } from "@/lib/runs/log-parts/append-log-part";
 import { recordStep } from "@/lib/runs/record-step";
 import { startRun } from "@/lib/runs/start-run";
@@ -158,8 +158,8 @@ describe("a run's log in parts", () => {
 
   it("records a gap, refuses time going backwards, an empty part and a part for a closed run, and keeps a machine sender", async () => {
     const l = await setUpRun("B", false);
-    // A real token of the run's channel: parts and jobs sent with a token reference its row.
-    const issued = await issueMachineToken(await makeUser("admin", "Ada Admin PB"), { instrumentId: l.channel, label: "cycler CH-PB" });
+    // A real token row: parts and jobs reference the token that sent them.
+    const issued = await issueMachineToken(await makeUser("admin", "Ada Admin B"), { instrumentId: l.channel, label: "cycler CH-PB", days: 30 });
     const machine: LogPartSender = { kind: "machine", tokenId: issued.id, label: "cycler CH-PB" };
     const c = l.built.log.columns;
     const first = HEADER + rowsCsv(c, 0, 1000);
