@@ -214,6 +214,9 @@ export const DEMO_LOOSE_SPECIMENS = [
 export const DEMO_LIVE_ENDURANCE_RUN = {
   specimen: "HV30-ENG-02",
   channel: "CY1-CH02",
+  ambientInstrument: "CC-01",
+  /** The cycle block started this many days before seeding (250 cycles of about 4 h). */
+  startedDaysAgo: 43,
   /** Cycles in the part the seed sends. */
   seededCycles: 250,
   /** Cycles in each file the demo cycler writes. */
