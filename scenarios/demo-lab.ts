@@ -205,6 +205,27 @@ export const DEMO_LOOSE_SPECIMENS = [
 ].map((s) => ({ ...s, notes: "Engineering samples sent by the maker without lot papers." }));
 
 /** The demo endurance run: an engineering sample of the invented 3 000 mAh cell, some tens of cycles into TPL-END400. */
+/**
+ * The demo's live endurance run: TPL-END400 on another engineering sample, on the second cycler channel, so
+ * its token and its log never meet the other endurance run's. The seed sends its first 250 cycles as the
+ * log's first part; while `npm run demo` runs, an invented cycler (scripts/demo-cycler.ts) writes the next
+ * cycles file by file and the push command sends them.
+ */
+export const DEMO_LIVE_ENDURANCE_RUN = {
+  specimen: "HV30-ENG-02",
+  channel: "CY1-CH02",
+  ambientInstrument: "CC-01",
+  /** The cycle block started this many days before seeding (250 cycles of about 4 h). */
+  startedDaysAgo: 43,
+  /** Cycles in the part the seed sends. */
+  seededCycles: 250,
+  /** Cycles in each file the demo cycler writes. */
+  cyclesPerPart: 2,
+  /** The invented fade (scenarios/endurance-log.ts): 30 s samples, 0.06 % of rated lost per cycle. */
+  plan: { cycles: 400, sampleIntervalS: 30, fadePerCycle: 0.0006, pulseEveryCycles: 50 },
+  tokenLabel: "Demo cycler PC (invented)",
+};
+
 export const DEMO_ENDURANCE_RUN = {
   specimen: "HV30-END-01",
   maker: "Halden Voltaic",

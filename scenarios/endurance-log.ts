@@ -125,3 +125,29 @@ export function* generateEnduranceLog(plan: EnduranceLogPlan, chunkSamples = 65_
 function newBuffer(size: number): { timeS: Float64Array; voltageV: Float64Array; currentA: Float64Array } {
   return { timeS: new Float64Array(size), voltageV: new Float64Array(size), currentA: new Float64Array(size) };
 }
+
+/** The header row of the CSV files the invented cycler writes. */
+export const ENDURANCE_LOG_HEADER = "Time (s),Voltage (V),Current (A)";
+
+/**
+ * Cycles `fromCycle` to `toCycle` (1-based, inclusive) of a plan as one CSV file, the way a cycler that
+ * writes its log in files hands over one of them: the header row, then the samples, time as the elapsed
+ * seconds since cycle 1 began (it keeps counting from file to file). Regenerates the plan from cycle 1, so
+ * keep it to plans of some thousands of samples per cycle.
+ */
+export function formatEnduranceLogPart(plan: EnduranceLogPlan, fromCycle: number, toCycle: number): string {
+  if (!(fromCycle >= 1 && toCycle >= fromCycle)) throw new Error(`cycles ${fromCycle} to ${toCycle} are no range`);
+  let start = 0;
+  for (let k = 1; k < fromCycle; k++) start += cycleSamples(plan, k);
+  let end = start;
+  for (let k = fromCycle; k <= toCycle; k++) end += cycleSamples(plan, k);
+  const lines = [ENDURANCE_LOG_HEADER];
+  let index = 0;
+  for (const c of generateEnduranceLog({ ...plan, cycles: toCycle })) {
+    for (let i = 0; i < c.length; i++, index++) {
+      if (index < start || index >= end) continue;
+      lines.push(`${(c.timeS[i] as number).toFixed(1)},${(c.voltageV[i] as number).toFixed(4)},${(c.currentA[i] as number).toFixed(4)}`);
+    }
+  }
+  return `${lines.join("\n")}\n`;
+}

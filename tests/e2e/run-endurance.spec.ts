@@ -18,7 +18,10 @@ test("an engineer drafts an endurance procedure; the demo endurance run shows it
   await page.locator('.ProseMirror[contenteditable="true"]').first().waitFor();
 
   const block = page.getByRole("region", { name: /Step 2/ });
-  await block.getByRole("button", { name: "Edit fields of step 2" }).click();
+  // The editor may already show the block's fields ("Hide fields of step 2"); open them only if not.
+  await expect(block.getByRole("button", { name: /(Edit|Hide) fields of step 2/ })).toBeVisible();
+  const edit = block.getByRole("button", { name: "Edit fields of step 2" });
+  if ((await edit.count()) > 0) await edit.click();
   const cycles = block.getByLabel("Number of cycles");
   await expect(cycles).toHaveValue("400");
   await cycles.fill("120");

@@ -9,6 +9,8 @@ import type { LogJobStatus } from "@/lib/runs/log-ingest/log-job-status";
 const pollMs = 1000;
 
 function formatMiB(bytes: number): string {
+  // A pushed part is often some kilobytes: "0.0 MiB" would say it was empty.
+  if (bytes < 102400) return `${(bytes / 1024).toFixed(1)} kB`;
   return `${(bytes / 1048576).toFixed(1)} MiB`;
 }
 

@@ -11,7 +11,7 @@ import { DomainError } from "@/lib/errors";
 import { deleteObject, putObjectFromChunks } from "@/lib/storage";
 import { LOG_INGEST_CHANNEL } from "../log-ingest/stage-log-upload";
 import { getRememberedLogMapping } from "../remember-log-mapping";
-import { isRunOpen } from "../run-status";
+import { isRunOpen, RUN_STATUS_WORDS } from "../run-status";
 import { senderAuditActor, type LogPartSender } from "./part-sender";
 
 export type { LogPartSender } from "./part-sender";
@@ -34,7 +34,7 @@ export async function appendLogPart(
   if (!run) throw new DomainError("not-found", "No such run.");
   const name = part.name.trim().slice(0, 200) || "log part";
   if (!isRunOpen(run.status)) {
-    await auditRefusal(sender, runId, name, `Run ${run.number} is ${run.status.replace("_", " ")}; no more log parts can be added to it.`);
+    await auditRefusal(sender, runId, name, `Run ${run.number} is ${RUN_STATUS_WORDS[run.status].words}; no more log parts can be added to it. Nothing was stored.`);
   }
   if (part.sizeBytes === 0) await auditRefusal(sender, runId, name, `${name} is empty (0 bytes); a log part must hold samples.`);
   const mapping = part.mapping ?? (await getPartedLogTip(getDb(), runId))?.mapping ?? (await getRememberedLogMapping(runId))?.mapping;

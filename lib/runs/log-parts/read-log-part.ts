@@ -47,7 +47,7 @@ export async function runLogPartJob(job: LogIngestJobView, part: NonNullable<Log
       runId: job.runId,
       mapping: job.mapping,
       chunks: slices(bytes),
-      append: { runLogId, firstChunk, shiftTime: (firstTime) => (tip ? readPartStart(firstTime, job.mapping) - tip.originS : 0) },
+      append: { runLogId, firstChunk, shiftTime: (firstTime) => (tip ? placeAfterTip(tip, firstTime, job.mapping) : 0) },
       // The first part starts the run's cycles afresh; each later one continues them.
       cycles: tip ? { kind: "part", timeOffsetS: 0 } : { kind: "whole-log" },
       onPartStored: opts.onPartStored,
@@ -79,6 +79,20 @@ export async function runLogPartJob(job: LogIngestJobView, part: NonNullable<Log
   }
   const stored = await getDb().selectFrom("log_ingest_job").select("run_log_id").where("id", "=", job.id).executeTakeFirstOrThrow();
   await finishLogIngestJob(getDb(), job.id, { state: outcome.verdict ? "evaluated" : "stored", rowsRead: outcome.rows ?? job.rowsRead, runLogId: stored.run_log_id ?? undefined, outcome });
+}
+
+/**
+ * Where the part's samples go in the log's time base (its first sample's shift), once its first time cell is
+ * read. A part starting before the previous part ends is refused here, in the words of checkNextPart, before
+ * any of its samples meet the earlier ones (they would otherwise be refused as time going backwards, by sample
+ * number); acceptPart checks the whole part again under the run's lock.
+ */
+function placeAfterTip(tip: PartedLogTip, firstTime: string, mapping: LogIngestJobView["mapping"]): number {
+  const firstS = readPartStart(firstTime, mapping);
+  const previous = { number: tip.last.number, firstS: tip.last.firstTimeS, lastS: tip.last.lastTimeS, samples: tip.last.sampleCount, header: tip.last.header };
+  const fit = checkNextPart(previous, { firstS, lastS: firstS, samples: 1, header: tip.last.header }, mapping.time.form);
+  if (!fit.ok) throw new DomainError("conflict", fit.problem);
+  return firstS - tip.originS;
 }
 
 async function acceptPart(
