@@ -3,10 +3,10 @@
 import { createDuration } from "./draft-values";
 import { DurationInput } from "./duration-input";
 import { fieldId } from "./field-paths";
-import { inputClass } from "./field-shell";
 import { OptionalPart } from "./optional-part";
 import { QuantityReferenceInput } from "./quantity-reference-input";
 import { useDraftValue, useUpdateDraft } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 /** CC-CV charge: current, voltage, how the charge ends, and an optional longest duration. */
 export function ChargeFields({ path }: { path: string }) {
@@ -17,12 +17,10 @@ export function ChargeFields({ path }: { path: string }) {
     <div className="grid gap-4 lg:grid-cols-2">
       <QuantityReferenceInput path={`${path}.current`} label="Charge current (constant-current phase)" quantity="current" />
       <QuantityReferenceInput path={`${path}.voltage`} label="Charge voltage (constant-voltage phase)" quantity="voltage" />
-      <div className="flex flex-col gap-1 sm:w-72">
-        <label htmlFor={endsId} className="text-sm font-medium">
-          The charge ends
-        </label>
-        <select
+      <div className="sm:w-72">
+        <SelectField
           id={endsId}
+          label="The charge ends"
           value={termination?.kind ?? "current"}
           onChange={(e) =>
             update(
@@ -32,11 +30,12 @@ export function ChargeFields({ path }: { path: string }) {
                 : { kind: "current", current: { spec: "chargeTerminationCurrent" } },
             )
           }
-          className={inputClass}
-        >
-          <option value="current">when the current falls to a limit</option>
-          <option value="time">after a set time</option>
-        </select>
+          className="w-full"
+          options={[
+            { value: "current", label: "when the current falls to a limit" },
+            { value: "time", label: "after a set time" },
+          ]}
+        />
       </div>
       {termination?.kind === "time" ? (
         <DurationInput path={`${path}.termination.duration`} label="Charge time" />
