@@ -83,7 +83,10 @@ function refusalPage(message: string): string {
  * read a byte, and count the body as it arrives (lib/api/limited-body.ts).
  * The public certificate check is left out too: it changes nothing, needs no session, and an
  * assessor may call it from a script (`curl --data-binary @certificate.pdf`), which sends no Origin.
+ * The cycler's part route is the one write left out on purpose: a cycler PC sends a bearer token, no
+ * cookie and no Origin; its handler admits nothing but a token (ROUTE_ACCESS "machine-token"), and
+ * tests/e2e/cycler-tokens.spec.ts proves a session cannot use it and the token opens nothing else.
  */
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/specs/[^/]+/datasheet$|api/check/).*)"],
+  matcher: ["/((?!_next/static|_next/image|favicon.ico|api/runs/[^/]+/logs$|api/runs/[^/]+/log-parts$|api/specs/[^/]+/datasheet$|api/check/|api/channel/log-parts$).*)"],
 };

@@ -18,6 +18,8 @@ export interface RunLogView {
   /** When the first sample was taken, if the log has timestamps. */
   loggedFrom: Date | null;
   current: boolean;
+  /** Built from parts appended over time (run_log_part); its file is then the first part's. */
+  inParts: boolean;
   uploadedAt: Date;
 }
 
@@ -45,7 +47,7 @@ export async function insertRunLog(
 /** The log's own row; its chunks may already be written in the same transaction (the reference is checked at commit, 0022). */
 export async function insertRunLogRow(
   db: Executor,
-  l: { id?: string; runId: string; storedFileId: string; mapping: ColumnMapping; sampleCount: number; loggedFrom: Date | null; uploadedBy: string },
+  l: { id?: string; runId: string; storedFileId: string; mapping: ColumnMapping; sampleCount: number; loggedFrom: Date | null; uploadedBy: string | null; inParts?: boolean },
 ): Promise<string> {
   const { id } = await db
     .insertInto("run_log")
@@ -57,6 +59,7 @@ export async function insertRunLogRow(
       sample_count: l.sampleCount,
       logged_from: l.loggedFrom,
       uploaded_by: l.uploadedBy,
+      ...(l.inParts ? { in_parts: true } : {}),
     })
     .returning("id")
     .executeTakeFirstOrThrow();
@@ -94,7 +97,7 @@ export async function getCurrentRunLog(db: Executor, runId: string): Promise<Run
   const r = await db
     .selectFrom("run_log as l")
     .innerJoin("stored_file as f", "f.id", "l.stored_file_id")
-    .select(["l.id", "l.run_id", "f.id as file_id", "f.original_name", "f.sha256", "f.size_bytes", "l.mapping", "l.sample_count", "l.logged_from", "l.current", "l.uploaded_at"])
+    .select(["l.id", "l.run_id", "f.id as file_id", "f.original_name", "f.sha256", "f.size_bytes", "l.mapping", "l.sample_count", "l.logged_from", "l.current", "l.in_parts", "l.uploaded_at"])
     .where("l.run_id", "=", runId)
     .where("l.current", "=", true)
     .executeTakeFirst();
@@ -110,6 +113,7 @@ export async function getCurrentRunLog(db: Executor, runId: string): Promise<Run
     sampleCount: r.sample_count,
     loggedFrom: r.logged_from,
     current: r.current,
+    inParts: r.in_parts,
     uploadedAt: r.uploaded_at,
   };
 }

@@ -201,3 +201,9 @@ export async function upsertStepRecord(db: Executor, runId: string, record: Step
     .onConflict((oc) => oc.columns(["run_id", "step_id", "cycle"]).doUpdateSet(values))
     .execute();
 }
+
+/** A run's id and state by its number ("R-00012"): what a cycler names a run by. */
+export async function findRunByNumber(db: Executor, number: string): Promise<{ id: string; number: string; status: RunStatus } | null> {
+  const r = await db.selectFrom("run").select(["id", "number", "status"]).where("number", "=", number).executeTakeFirst();
+  return r ?? null;
+}

@@ -77,7 +77,8 @@ export interface StoredFileTable {
   size_bytes: ColumnType<string, number | string, number | string>;
   sha256: string;
   purpose: string;
-  uploaded_by: string;
+  /** Null for a log part pushed by a machine (0023). */
+  uploaded_by: string | null;
   uploaded_at: DefaultedTimestamp;
 }
 
@@ -224,8 +225,35 @@ export interface RunLogTable {
   sample_count: number;
   logged_from: Date | null;
   current: ColumnType<boolean, boolean | undefined, boolean>;
-  uploaded_by: string;
+  /** Null when the log's first part was pushed by a machine (0023). */
+  uploaded_by: string | null;
   uploaded_at: DefaultedTimestamp;
+  /** A log built from parts appended over time (run_log_part), not one whole upload (0023). */
+  in_parts: Generated<boolean>;
+}
+
+/** One accepted part of a run's log (migration 0023): never changed or removed once written. */
+export interface RunLogPartTable {
+  id: string;
+  run_id: string;
+  run_log_id: string;
+  part_number: number;
+  stored_file_id: string;
+  sha256: string;
+  header: JsonColumn;
+  first_chunk: number;
+  chunk_count: number;
+  sample_count: number;
+  /** Seconds in the run's time base: Unix time for timestamped logs, the cycler's elapsed time otherwise. */
+  first_time_s: number;
+  last_time_s: number;
+  starts_at: Date | null;
+  ends_at: Date | null;
+  gap_before_s: number | null;
+  uploaded_by: string | null;
+  machine_token_id: string | null;
+  machine_label: string | null;
+  received_at: DefaultedTimestamp;
 }
 
 export interface RunLogChunkTable {
@@ -242,10 +270,11 @@ export interface RunLogChunkTable {
 export interface LogIngestJobTable {
   id: Generated<string>;
   run_id: string;
-  stored_file_id: string;
+  /** Null for a log part until it is accepted: only its staged object exists before (0023). */
+  stored_file_id: string | null;
   mapping: JsonColumn;
   remember_mapping: Generated<boolean>;
-  requested_by: string;
+  requested_by: string | null;
   state: Generated<"waiting" | "reading" | "stored" | "evaluated" | "refused" | "failed">;
   rows_read: Generated<number>;
   attempts: Generated<number>;
@@ -255,6 +284,46 @@ export interface LogIngestJobTable {
   created_at: Generated<Date>;
   updated_at: Generated<Date>;
   finished_at: Date | null;
+  part_id: string | null;
+  file_name: string | null;
+  staged_key: string | null;
+  staged_sha256: string | null;
+  staged_size: ColumnType<string | null, number | string | null | undefined, number | string | null>;
+  mapping_given: Generated<boolean>;
+  machine_token_id: string | null;
+  machine_label: string | null;
+}
+
+/** One cycle's results, computed while the log was read (migration 0025). */
+export interface RunCycleResultTable {
+  run_id: string;
+  cycle: number;
+  run_log_id: string;
+  charge_ah: number;
+  discharge_ah: number;
+  charge_wh: number;
+  discharge_wh: number;
+  coulombic_efficiency: number | null;
+  energy_efficiency: number | null;
+  end_of_charge_v: number | null;
+  end_of_discharge_v: number | null;
+  dc_resistance_ohm: number | null;
+  first_time_s: number;
+  last_time_s: number;
+  closed: boolean;
+  updated_at: DefaultedTimestamp;
+}
+
+/** Where the per-cycle accumulator stopped, per run (migration 0025); the next log part continues from it. */
+export interface RunCycleStateTable {
+  run_id: string;
+  run_log_id: string;
+  state: JsonColumn;
+  sample_count: ColumnType<string, number, number>;
+  last_sample_time_s: number | null;
+  samples_arrived_at: DefaultedTimestamp;
+  stop_reached_cycle: number | null;
+  updated_at: DefaultedTimestamp;
 }
 
 export interface RunEvaluationTable {
@@ -315,7 +384,7 @@ export interface CertificateTable {
   revocation_reason: string | null;
 }
 
-export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release";
+export type MailKind = "run-submitted" | "run-returned" | "certificate-issued" | "calibration-due" | "procedure-awaiting-release" | "endurance-stop-reached" | "run-stalled";
 
 export interface MailMessageTable {
   id: Generated<string>;
@@ -362,7 +431,10 @@ export interface Database {
   step_record: StepRecordTable;
   run_log: RunLogTable;
   run_log_chunk: RunLogChunkTable;
+  run_log_part: RunLogPartTable;
   log_ingest_job: LogIngestJobTable;
+  run_cycle_result: RunCycleResultTable;
+  run_cycle_state: RunCycleStateTable;
   run_evaluation: RunEvaluationTable;
   electronic_signature: ElectronicSignatureTable;
   run_review: RunReviewTable;
@@ -372,6 +444,7 @@ export interface Database {
   run_participant: RunParticipantTable;
   refused_request_tally: RefusedRequestTallyTable;
   lab_signing_key: LabSigningKeyTable;
+  machine_token: MachineTokenTable;
 }
 
 /** Who took part in a run; written by triggers (migration 0012) and by submitRun. */
@@ -385,11 +458,29 @@ export interface RunParticipantTable {
 /** Refused cross-site requests counted per 10-minute window and origin (migration 0013). */
 export interface RefusedRequestTallyTable {
   window_start: Date;
-  kind: "foreign-origin";
+  kind: "foreign-origin" | "unknown-token";
   origin: string;
   last_path: string;
   count: Generated<number>;
   last_at: DefaultedTimestamp;
+}
+
+/** A token a cycler PC pushes log parts with, for one cycler channel (migration 0024): only its SHA-256 is kept. */
+export interface MachineTokenTable {
+  id: Generated<string>;
+  instrument_id: string;
+  label: string;
+  secret_sha256: string;
+  hint: string;
+  issued_by: string;
+  issued_at: DefaultedTimestamp;
+  expires_at: Date;
+  revoked_at: Date | null;
+  revoked_by: string | null;
+  revoke_reason: string | null;
+  last_used_at: Date | null;
+  window_start: Date | null;
+  window_count: Generated<number>;
 }
 
 /** The lab's signing key, sealed (migration 0021): at most one row, never changed or removed. */

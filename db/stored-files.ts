@@ -14,7 +14,7 @@ export interface StoredFileView {
 
 export async function insertStoredFile(
   db: Executor,
-  f: { storageKey: string; originalName: string; contentType: string; sizeBytes: number; sha256: string; purpose: string; uploadedBy: string },
+  f: { storageKey: string; originalName: string; contentType: string; sizeBytes: number; sha256: string; purpose: string; uploadedBy: string | null },
 ): Promise<StoredFileView> {
   const row = await db
     .insertInto("stored_file")

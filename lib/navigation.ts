@@ -16,4 +16,5 @@ export const NAV_ITEMS: readonly { href: string; label: string; permission: Perm
   { href: "/admin/mail", label: "E-mail", permission: "mail.read" },
   { href: "/admin/signing-key", label: "Signing key", permission: "signing-key.manage" },
   { href: "/admin/integrity", label: "Integrity", permission: "lab.manage" },
+  { href: "/admin/cycler-tokens", label: "Cycler tokens", permission: "cycler-token.manage" },
 ];

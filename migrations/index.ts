@@ -17,6 +17,9 @@ import * as m0019 from "./0019_release_signature";
 import * as m0020 from "./0020_evaluation_waits_for_acceptance";
 import * as m0021 from "./0021_lab_signing_key";
 import * as m0022 from "./0022_log_ingest_job";
+import * as m0023 from "./0023_run_log_parts";
+import * as m0024 from "./0024_machine_tokens";
+import * as m0025 from "./0025_run_cycle_results";
 
 /**
  * Every migration, in order. Listed statically (not read from the folder at run time) so the same
@@ -41,4 +44,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   "0020_evaluation_waits_for_acceptance": m0020,
   "0021_lab_signing_key": m0021,
   "0022_log_ingest_job": m0022,
+  "0023_run_log_parts": m0023,
+  "0024_machine_tokens": m0024,
+  "0025_run_cycle_results": m0025,
 };

@@ -69,6 +69,18 @@ export function describeStep(step: Step): string {
       return describeMeasurement(step.measurement);
     case 'observe':
       return describeObservation(step.records, step.compareWith);
+    case 'cycle-block': {
+      const check = step.capacityCheck
+        ? `, a capacity check at ${phrase(step.capacityCheck.current)} every ${step.capacityCheck.everyCycles} cycles`
+        : '';
+      return (
+        `Up to ${step.maxCycles} cycles of: CC-CV charge at ${phrase(step.charge.current)} to ${phrase(step.charge.voltage)}, ` +
+        `${describeTermination(step.charge.termination)}; rest ${describeSpan(step.restAfterCharge.minDuration, step.restAfterCharge.maxDuration)}; ` +
+        `discharge at ${phrase(step.discharge.current)} to ${phrase(step.discharge.endVoltage)}; ` +
+        `rest ${describeSpan(step.restAfterDischarge.minDuration, step.restAfterDischarge.maxDuration)}${check}. ` +
+        `Stops below ${step.stopBelowPercentOfRated} % of the rated capacity; accepted at ${step.acceptAtLeastPercentOfRated} % or more after the last cycle`
+      );
+    }
     default:
       return assertNever(step);
   }

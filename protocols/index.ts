@@ -11,6 +11,7 @@ export * from './describe-caution-code';
 export * from './describe-criterion';
 export * from './describe-step';
 export * from './designation';
+export * from './endurance';
 export * from './format-number';
 export * from './format-quantity';
 export * from './identifier';

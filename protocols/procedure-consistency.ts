@@ -93,6 +93,25 @@ function checkRepeatRule(parts: ProcedureParts, ctx: IssueSink): void {
   }
 }
 
+/** One cycle block per procedure (its results and limits are the run's endurance), never inside a repeat rule. */
+function checkCycleBlocks(parts: ProcedureParts, ctx: IssueSink): void {
+  let seen = false;
+  parts.steps.forEach((step, index) => {
+    if (step.kind !== 'cycle-block') return;
+    if (seen) {
+      ctx.addIssue({ code: 'custom', path: ['steps', index, 'kind'], message: 'a procedure has at most one cycle block' });
+    }
+    seen = true;
+    if (parts.repeat?.stepIds.includes(step.id)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['steps', index, 'kind'],
+        message: `the cycle block "${step.id}" repeats itself; leave it out of the repeated block`,
+      });
+    }
+  });
+}
+
 /** A discharge must end below the voltage the preceding charge reached, where that is known. */
 function checkEndVoltages(parts: ProcedureParts, ctx: IssueSink): void {
   let lastCharge: ChargeStep | undefined;
@@ -179,6 +198,7 @@ export function checkProcedureConsistency(parts: ProcedureParts, ctx: IssueSink)
   checkRepeatRule(parts, ctx);
   checkChargeRetentionSteps(parts.retention, parts.steps, ctx);
   checkObservationSteps(parts.steps, ctx);
+  checkCycleBlocks(parts, ctx);
   checkEndVoltages(parts, ctx);
   checkLabelsAgainstSetPoints(parts, ctx);
 }

@@ -25,7 +25,7 @@ import type {
   ResolvedStep,
   ResolvedTolerances,
 } from './resolved-procedure';
-import type { ChargeStep, ChargeTermination, DischargeStep, PulseStep, Step } from './step';
+import type { ChargeStep, ChargeTermination, CycleBlockStep, DischargeStep, PulseStep, Step } from './step';
 
 export interface StepIssues {
   errors: ResolutionError[];
@@ -236,6 +236,68 @@ function resolvePulse(context: StepContext, step: PulseStep) {
   };
 }
 
+/**
+ * Runs a resolver on one part of a cycle block (its charge or discharge), naming the part in the
+ * issues' paths, codes and messages: "steps.3.charge.current", "Step 4 "Cycles" (charge): …".
+ */
+function resolvePart<Result>(context: StepContext, part: 'charge' | 'discharge', resolve: (inner: StepContext) => Result): Result {
+  const inner: StepContext = { ...context, issues: { errors: [], cautions: [] } };
+  const result = resolve(inner);
+  const prefix = `steps.${context.index}.`;
+  const named = <Issue extends { code: string; path: string; message: string }>(issue: Issue): Issue => {
+    const [kind, id, ...field] = issue.code.split('/');
+    return {
+      ...issue,
+      code: [kind, id, `${part}.${field.join('/')}`].join('/'),
+      path: issue.path.startsWith(prefix) ? `${prefix}${part}.${issue.path.slice(prefix.length)}` : issue.path,
+      message: issue.message.replace(nameStep(context), `${nameStep(context)} (${part} of each cycle)`),
+    };
+  };
+  context.issues.errors.push(...inner.issues.errors.map(named));
+  context.issues.cautions.push(...inner.issues.cautions.map(named));
+  return result;
+}
+
+function resolveRestSpan(span: CycleBlockStep['restAfterCharge']) {
+  return {
+    minDuration: resolveDuration(span.minDuration),
+    ...(span.maxDuration && { maxDuration: resolveDuration(span.maxDuration) }),
+  };
+}
+
+function resolveCycleBlock(context: StepContext, step: CycleBlockStep, ambient: ResolvedTemperatureRange) {
+  const { cell } = context;
+  checkBelowZero(context, { range: ambient, kind: 'charge-below-zero-celsius', field: 'ambient' });
+  const charge = resolvePart(context, 'charge', (inner) =>
+    resolveCharge(inner, { kind: 'charge', id: step.id, label: step.label, ...step.charge }),
+  );
+  const discharge = resolvePart(context, 'discharge', (inner) =>
+    resolveDischarge(
+      { ...inner, precedingChargeVoltage: charge.voltage ?? undefined },
+      { kind: 'discharge', id: step.id, label: step.label, purpose: 'measure', ...step.discharge },
+    ),
+  );
+  const check = step.capacityCheck;
+  let capacityCheck: { everyCycles: number; current: ResolvedSetPoint } | undefined;
+  if (check !== undefined) {
+    const current = take(context, { field: 'capacityCheck.current', resolution: resolveCurrent(check.current, cell) });
+    checkDischargeCurrent(context, { current, field: 'capacityCheck.current' });
+    capacityCheck = { everyCycles: check.everyCycles, current };
+  }
+  return {
+    kind: 'cycle-block' as const,
+    charge: { current: charge.current, voltage: charge.voltage, termination: charge.termination },
+    restAfterCharge: resolveRestSpan(step.restAfterCharge),
+    discharge: { current: discharge.current, endVoltage: discharge.endVoltage },
+    restAfterDischarge: resolveRestSpan(step.restAfterDischarge),
+    maxCycles: step.maxCycles,
+    ...(capacityCheck && { capacityCheck }),
+    stopBelowPercentOfRated: step.stopBelowPercentOfRated,
+    acceptAtLeastPercentOfRated: step.acceptAtLeastPercentOfRated,
+    ratedCapacityMah: cell.ratedCapacityMah,
+  };
+}
+
 function resolveKindFields(context: StepContext, ambient: ResolvedTemperatureRange) {
   const step = context.step;
   switch (step.kind) {
@@ -275,6 +337,8 @@ function resolveKindFields(context: StepContext, ambient: ResolvedTemperatureRan
         ...(step.compareWith !== undefined && { compareWith: step.compareWith }),
         ...(step.criteria !== undefined && { criteria: step.criteria }),
       };
+    case 'cycle-block':
+      return resolveCycleBlock(context, step, ambient);
     default:
       return assertNever(step);
   }

@@ -4,6 +4,7 @@ import type { StoredDecisionRule } from './decision-rule';
 import type { SetPointToleranceName } from './measurement-tolerances';
 import type { RepeatRule } from './repeat-rule';
 import type { ResolvedTemperatureRange, ResolvedValue } from './resolve-quantity';
+import type { ResolvedCycleBlockParts } from './endurance';
 import type { ObservationCriteria, ObservedQuantity } from './observation';
 import type { DischargePurpose, Measurement } from './step';
 
@@ -80,6 +81,11 @@ export interface ResolvedObserveStep extends ResolvedStepBase {
   criteria?: ObservationCriteria;
 }
 
+/** A cycle block: the cycle's set-points, the number of cycles and the stop and acceptance shares. */
+export interface ResolvedCycleBlockStep extends ResolvedStepBase, ResolvedCycleBlockParts {
+  kind: 'cycle-block';
+}
+
 export type ResolvedStep =
   | ResolvedChargeStep
   | ResolvedDischargeStep
@@ -87,7 +93,8 @@ export type ResolvedStep =
   | ResolvedSoakStep
   | ResolvedPulseStep
   | ResolvedMeasureStep
-  | ResolvedObserveStep;
+  | ResolvedObserveStep
+  | ResolvedCycleBlockStep;
 
 /** Limits in Ah (capacity), s (duration) and Ω (resistance). */
 export type ResolvedCriterion =

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { assertNever } from './assert-never';
+import { chargeTerminationSchema } from './charge-termination';
+import { cycleBlockFields, checkCycleBlock } from './endurance';
 import { explainTypeError } from './explain-type-error';
 import { compareCurrentsWithoutSpecification, compareNumbers } from './compare-references';
 import { identifierSchema } from './identifier';
@@ -16,6 +18,8 @@ import {
 import { convertToSeconds } from './units';
 
 type IssueSink = { addIssue: (issue: { code: 'custom'; path: string[]; message: string }) => void };
+
+export { chargeTerminationSchema };
 
 /** Fields every step has. A soak sets its own temperature, so it takes no ambient range. */
 const commonFields = {
@@ -52,15 +56,6 @@ function checkDurationOrder({
     });
   }
 }
-
-export const chargeTerminationSchema = z.discriminatedUnion(
-  'kind',
-  [
-    z.strictObject({ kind: z.literal('current'), current: currentReferenceSchema }),
-    z.strictObject({ kind: z.literal('time'), duration: durationSchema }),
-  ],
-  { error: explainTypeError('a charge ends at a termination current ({ kind: "current" }) or after a time ({ kind: "time" })') },
-);
 
 /** CC-CV charge: constant current to the voltage, then constant voltage until the termination. */
 export const chargeStepSchema = z
@@ -196,11 +191,23 @@ export const observeStepSchema = z.strictObject({
   ...observationFieldsSchema,
 });
 
-export const stepKinds = ['charge', 'discharge', 'rest', 'soak', 'pulse', 'measure', 'observe'] as const;
+/**
+ * Endurance in cycles: charge, rest, discharge, rest repeated up to `maxCycles` times, recorded once on
+ * the step sheet while the data log carries the cycles (protocols/endurance.ts).
+ */
+export const cycleBlockStepSchema = z
+  .strictObject({
+    kind: z.literal('cycle-block'),
+    ...commonFields,
+    ...cycleBlockFields,
+  })
+  .superRefine((step, ctx) => checkCycleBlock(step, ctx));
+
+export const stepKinds = ['charge', 'discharge', 'rest', 'soak', 'pulse', 'measure', 'observe', 'cycle-block'] as const;
 
 export const stepSchema = z.discriminatedUnion(
   'kind',
-  [chargeStepSchema, dischargeStepSchema, restStepSchema, soakStepSchema, pulseStepSchema, measureStepSchema, observeStepSchema],
+  [chargeStepSchema, dischargeStepSchema, restStepSchema, soakStepSchema, pulseStepSchema, measureStepSchema, observeStepSchema, cycleBlockStepSchema],
   { error: explainTypeError(`the step kind is one of ${stepKinds.join(', ')}`) },
 );
 
@@ -214,5 +221,6 @@ export type Measurement = z.infer<typeof measurementSchema>;
 export type MeasurementQuantity = Measurement['quantity'];
 export type MeasureStep = z.infer<typeof measureStepSchema>;
 export type ObserveStep = z.infer<typeof observeStepSchema>;
+export type CycleBlockStep = z.infer<typeof cycleBlockStepSchema>;
 export type Step = z.infer<typeof stepSchema>;
 export type StepKind = Step['kind'];

@@ -110,6 +110,13 @@ function inventedCellRatings(): CellSpecification {
   return ratings as CellSpecification;
 }
 
+/** Both channels of the invented cycler CY1 share its stated accuracy (one data sheet). */
+const CYCLER_1_ACCURACY: import("../lib/instruments/accuracy").AccuracySpecification = {
+  current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
+  voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
+  time: { ppm: 50 },
+};
+
 /**
  * The demo lab's instruments: two channels of one invented cycler, a climate chamber and a balance.
  * Dates are counted from the day of seeding, so none is overdue (runs can start) and CY1-CH02 falls
@@ -129,11 +136,7 @@ export const DEMO_INSTRUMENTS: {
     identifier: "CY1-CH01",
     serial: "TQ16-20417-01",
     firmware: "3.8.2",
-    accuracy: {
-      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
-      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
-      time: { ppm: 50 },
-    },
+    accuracy: CYCLER_1_ACCURACY,
     calibrationCertificate: "MCL-26-1184",
     dueInDays: 140,
   },
@@ -142,11 +145,7 @@ export const DEMO_INSTRUMENTS: {
     identifier: "CY1-CH02",
     serial: "TQ16-20417-02",
     firmware: "3.8.2",
-    accuracy: {
-      current: { percentOfReading: 0.02, percentOfRange: 0.02, range: 10 },
-      voltage: { percentOfReading: 0.01, percentOfRange: 0.01, range: 5 },
-      time: { ppm: 50 },
-    },
+    accuracy: CYCLER_1_ACCURACY,
     calibrationCertificate: "MCL-25-0977",
     dueInDays: 21,
   },
@@ -204,3 +203,18 @@ export const DEMO_LOOSE_SPECIMENS = [
   { identifier: "HV30-ENG-01", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
   { identifier: "HV30-ENG-02", specification: { maker: "Halden Voltaic", model: "HV-18N30" }, receivedDaysAgo: 4, conditionOnReceipt: AS_RECEIVED },
 ].map((s) => ({ ...s, notes: "Engineering samples sent by the maker without lot papers." }));
+
+/** The demo endurance run: an engineering sample of the invented 3 000 mAh cell, some tens of cycles into TPL-END400. */
+export const DEMO_ENDURANCE_RUN = {
+  specimen: "HV30-END-01",
+  maker: "Halden Voltaic",
+  model: "HV-18N30",
+  notes: "Engineering sample on the endurance test; the cycler log is added as the cycles run.",
+  channel: "CY1-CH01",
+  ambientInstrument: "CC-01",
+  /** The log holds this many cycles of about 5.8 h each. */
+  cycles: 60,
+  startedDaysAgo: 15,
+  /** Capacity lost per cycle in the synthetic log, mAh (a fast-fading sample, so the trend shows). */
+  fadeMahPerCycle: 9,
+};

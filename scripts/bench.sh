@@ -14,6 +14,7 @@ export DATABASE_URL="$OWNER_DATABASE_URL"
 log "2-million-row log: ingest, store, evaluate, read back"
 npx tsx scripts/bench/log-ingest.ts --make
 node --import tsx scripts/bench/log-ingest.ts
+log "streaming per-cycle evaluation: 10⁶ and 10⁷ samples in parts"; bash scripts/bench/cycle-stream.sh
 # Two fresh processes: one as before any preloading, one after what instrumentation.ts does at server start.
 log "certificate: render and sign, in a process that did not preload"; NODE_ENV=production npx tsx scripts/bench/certificate.ts
 log "certificate: render and sign, after the start-up preload"; NODE_ENV=production npx tsx scripts/bench/certificate.ts --preloaded

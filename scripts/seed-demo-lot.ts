@@ -30,7 +30,7 @@ const OVER_CURRENT_NOTES: Partial<Record<Finding["rule"], string>> = {
   "current-held": "Follows from the 10.2 A set-point noted on the same step; the current itself was steady.",
 };
 
-async function asUser(email: string): Promise<SignedInUser> {
+export async function asUser(email: string): Promise<SignedInUser> {
   const r = await getDb().selectFrom("app_user").select(["id", "email", "display_name", "role"]).where("email", "=", email).executeTakeFirstOrThrow();
   return { id: r.id, email: r.email, displayName: r.display_name, role: r.role };
 }
@@ -39,7 +39,7 @@ async function findId(table: "lot" | "specimen", identifier: string): Promise<st
   return (await getDb().selectFrom(table).select("id").where("identifier", "=", identifier).executeTakeFirst())?.id;
 }
 
-async function findReleasedVersion(code: string): Promise<{ procedureId: string; versionId: string }> {
+export async function findReleasedVersion(code: string): Promise<{ procedureId: string; versionId: string }> {
   const procedureId = await getProcedureIdByCode(getDb(), code);
   if (!procedureId) throw new Error(`the demo library has no procedure ${code}`);
   const v = await getDb().selectFrom("procedure_version").select("id").where("procedure_id", "=", procedureId).where("status", "=", "released").orderBy("number", "desc").executeTakeFirstOrThrow();
@@ -101,8 +101,10 @@ interface DemoRun {
   programmed?: Record<string, { current: number }>;
 }
 
-async function uploadLog(operator: SignedInUser, runId: string, name: string, columns: Parameters<typeof formatLogCsv>[0]) {
-  const csv = formatLogCsv(columns, { columns: ["time", "voltage", "current", "temperature"] });
+/** Uploads a demo log as a cycler would write it (CSV, elapsed seconds), through the app's own ingest. */
+export async function uploadLog(operator: SignedInUser, runId: string, name: string, columns: Parameters<typeof formatLogCsv>[0]) {
+  const withTemperature = columns.temperatureC !== undefined;
+  const csv = formatLogCsv(columns, { columns: withTemperature ? ["time", "voltage", "current", "temperature"] : ["time", "voltage", "current"] });
   if (!csv.ok) throw new Error(csv.error.message);
   const bytes = new TextEncoder().encode(csv.value);
   async function* chunks() {
@@ -112,7 +114,7 @@ async function uploadLog(operator: SignedInUser, runId: string, name: string, co
     time: { form: "elapsed", column: "Time (s)", unit: "s" },
     voltage: { column: "Voltage (V)", unit: "V" },
     current: { column: "Current (A)", unit: "A", dischargeSign: "negative" },
-    temperature: { column: "Temperature (°C)" },
+    ...(withTemperature && { temperature: { column: "Temperature (°C)" } }),
     delimiter: ",",
     decimalSeparator: ".",
     headerLine: 1,

@@ -7,6 +7,8 @@ import { closePool } from "../db/pool";
 import { repairFramedObjects } from "../lib/integrity/repair-framed-objects";
 import { DEMO_LAB, DEMO_USERS } from "../scenarios/demo-lab";
 import { seedDemoLot } from "./seed-demo-lot";
+import { seedEnduranceRun } from "./seed-endurance-run";
+import { seedEnduranceTrendRun } from "./seed-endurance-trend";
 import { seedLibrary } from "./seed-library";
 
 /**
@@ -69,6 +71,8 @@ export async function seedDemo(databaseUrl: string): Promise<{ created: string[]
   created.push(...(await seedLibrary()));
   // After the library: the second lot needs its cell specification, procedures and instruments.
   created.push(...(await seedDemoLot()));
+  created.push(...(await seedEnduranceRun()));
+  created.push(...(await seedEnduranceTrendRun()));
   // Demo databases made before uploads were stored byte-exact hold framed objects: put the sent bytes back.
   const repairs = await repairFramedObjects("demo seed");
   created.push(...repairs.repaired);

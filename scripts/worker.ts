@@ -6,10 +6,25 @@ import pg from "pg";
 import { closePool, getDatabaseUrl } from "../db/pool";
 import { LOG_INGEST_CHANNEL } from "../lib/runs/log-ingest/stage-log-upload";
 import { runNextLogIngestJob } from "../lib/runs/log-ingest/run-log-ingest-job";
+import { noticeStalledRuns, readStallAfterHours } from "../lib/runs/notice-stalled-runs";
 
 /** Between looks when no notice arrives (a notice is lost if the worker was reconnecting). */
 const pollMs = Number(process.env.LOG_INGEST_POLL_MS ?? 2000);
+/** Between looks for endurance runs that stopped receiving samples (a stalled test: lib/runs/notice-stalled-runs.ts). */
+const stallCheckMs = Number(process.env.STALL_CHECK_MS ?? 15 * 60_000);
 let stopping = false;
+let nextStallCheck = 0;
+
+async function checkStalledRuns(): Promise<void> {
+  if (Date.now() < nextStallCheck) return;
+  nextStallCheck = Date.now() + stallCheckMs;
+  try {
+    const noticed = await noticeStalledRuns(new Date(), readStallAfterHours());
+    if (noticed.length > 0) console.log(`worker ${process.pid}: ${noticed.length} stalled run(s) noticed`);
+  } catch (e) {
+    console.error("worker: could not look for stalled runs", e);
+  }
+}
 let wake: (() => void) | null = null;
 
 async function listen(): Promise<pg.Client | null> {
@@ -37,6 +52,7 @@ async function main(): Promise<void> {
   }
   console.log(`worker ${process.pid}: reading data logs${once ? " (once)" : ""}`);
   while (!stopping) {
+    if (!once) await checkStalledRuns();
     let id: string | null = null;
     try {
       id = await runNextLogIngestJob();

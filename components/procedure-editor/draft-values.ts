@@ -41,6 +41,7 @@ const STEP_LABELS: Record<StepKind, string> = {
   pulse: "DC resistance pulse",
   measure: "Measurement",
   observe: "Observation (mass, voltage, visual state)",
+  "cycle-block": "Cycle block (endurance: repeated charge, rest, discharge)",
 };
 
 export function describeStepKind(kind: StepKind): string {
@@ -82,6 +83,23 @@ export function createStep(kind: StepKind, existingIds: readonly string[]): Step
       return { kind, ...common, measurement: { quantity: "openCircuitVoltage" } };
     case "observe":
       return { kind, ...common, label: "Observation", records: ["mass", "openCircuitVoltage", "visual"] };
+    case "cycle-block":
+      return {
+        kind,
+        ...common,
+        label: "Endurance cycles",
+        charge: {
+          current: { spec: "standardChargeCurrent" },
+          voltage: { spec: "chargeVoltage" },
+          termination: { kind: "current", current: { spec: "chargeTerminationCurrent" } },
+        },
+        restAfterCharge: { minDuration: { value: blank, unit: "h" } },
+        discharge: { current: { multipleOfIt: blank }, endVoltage: { spec: "endOfDischargeVoltage" } },
+        restAfterDischarge: { minDuration: { value: blank, unit: "h" } },
+        maxCycles: blank,
+        stopBelowPercentOfRated: blank,
+        acceptAtLeastPercentOfRated: blank,
+      };
     default:
       return assertNever(kind);
   }

@@ -2,6 +2,7 @@
 
 import { assertNever, type StepKind } from "@/protocols";
 import { ChargeFields } from "./charge-fields";
+import { CycleBlockFields } from "./cycle-block-fields";
 import { DischargeFields } from "./discharge-fields";
 import { MeasureFields } from "./measure-fields";
 import { ObserveFields } from "./observe-fields";
@@ -25,6 +26,8 @@ export function StepKindFields({ kind, path }: { kind: StepKind; path: string })
       return <MeasureFields path={path} />;
     case "observe":
       return <ObserveFields path={path} />;
+    case "cycle-block":
+      return <CycleBlockFields path={path} />;
     default:
       return assertNever(kind);
   }

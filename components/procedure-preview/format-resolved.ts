@@ -126,6 +126,43 @@ export function listSetPoints(step: ResolvedStep): SetPointLine[] {
         ...(step.compareWith ? [{ name: "Compared with", value: `observation "${step.compareWith}"`, explanation: "", missing: false }] : []),
         ...describeObservationCriteria(step.criteria).map((value) => ({ name: "Criterion", value, explanation: "the procedure's limit", missing: false })),
       ];
+    case "cycle-block": {
+      const termination =
+        step.charge.termination.kind === "current"
+          ? toLines("Charge ends at current", step.charge.termination.current)
+          : toLines("Charge ends after", step.charge.termination.duration);
+      const check = step.capacityCheck;
+      return [
+        ...toLines("Charge current", step.charge.current),
+        ...toLines("Charge voltage", step.charge.voltage),
+        ...termination,
+        ...toLines("Rest after charge, shortest", step.restAfterCharge.minDuration),
+        ...toLines("Rest after charge, longest", step.restAfterCharge.maxDuration),
+        ...toLines("Discharge current", step.discharge.current),
+        ...toLines("End voltage", step.discharge.endVoltage),
+        ...toLines("Rest after discharge, shortest", step.restAfterDischarge.minDuration),
+        ...toLines("Rest after discharge, longest", step.restAfterDischarge.maxDuration),
+        { name: "Cycles", value: `at most ${formatNumber(step.maxCycles)}`, explanation: "the procedure's number of cycles", missing: false },
+        ...(check
+          ? [
+              { name: "Capacity check", value: `every ${formatNumber(check.everyCycles)} cycles`, explanation: "the procedure's interval", missing: false },
+              ...toLines("Capacity-check current", check.current),
+            ]
+          : []),
+        {
+          name: "Stops",
+          value: `below ${formatNumber(step.stopBelowPercentOfRated, { maxDecimals: 2 })} % of rated`,
+          explanation: `${formatNumber((step.stopBelowPercentOfRated / 100) * step.ratedCapacityMah, { maxDecimals: 1 })} mAh of the rated ${formatNumber(step.ratedCapacityMah, { maxDecimals: 1 })} mAh`,
+          missing: false,
+        },
+        {
+          name: "Accepted",
+          value: `at least ${formatNumber(step.acceptAtLeastPercentOfRated, { maxDecimals: 2 })} % of rated after the last cycle`,
+          explanation: `${formatNumber((step.acceptAtLeastPercentOfRated / 100) * step.ratedCapacityMah, { maxDecimals: 1 })} mAh of the rated ${formatNumber(step.ratedCapacityMah, { maxDecimals: 1 })} mAh`,
+          missing: false,
+        },
+      ];
+    }
     default:
       return assertNever(step);
   }
@@ -136,6 +173,7 @@ export function describeResolvedKind(step: ResolvedStep): string {
   if (step.kind === "discharge") return step.purpose === "measure" ? "discharge (measured)" : "discharge (precondition)";
   if (step.kind === "pulse") return "DC pulse";
   if (step.kind === "observe") return "observation";
+  if (step.kind === "cycle-block") return "cycle block";
   return step.kind;
 }
 

@@ -62,14 +62,19 @@ export async function countEvaluationsAfter(db: Executor, runId: string, evaluat
 }
 
 /** The data log an evaluation was made from, with its stored file's hash. */
-export async function getEvaluatedLog(db: Executor, runLogId: string): Promise<{ fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date; current: boolean } | null> {
+export async function getEvaluatedLog(
+  db: Executor,
+  runLogId: string,
+): Promise<{ fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date; current: boolean; inParts: boolean; timeForm: "elapsed" | "timestamp" } | null> {
   const r = await db
     .selectFrom("run_log as l")
     .innerJoin("stored_file as f", "f.id", "l.stored_file_id")
-    .select(["f.original_name", "f.sha256", "f.size_bytes", "l.sample_count", "l.uploaded_at", "l.current"])
+    .select(["f.original_name", "f.sha256", "f.size_bytes", "l.sample_count", "l.uploaded_at", "l.current", "l.in_parts", "l.mapping"])
     .where("l.id", "=", runLogId)
     .executeTakeFirst();
-  return r ? { fileName: r.original_name, sha256: r.sha256, sizeBytes: Number(r.size_bytes), samples: r.sample_count, uploadedAt: r.uploaded_at, current: r.current } : null;
+  if (!r) return null;
+  const timeForm = (r.mapping as { time?: { form?: string } }).time?.form === "timestamp" ? "timestamp" : "elapsed";
+  return { fileName: r.original_name, sha256: r.sha256, sizeBytes: Number(r.size_bytes), samples: r.sample_count, uploadedAt: r.uploaded_at, current: r.current, inParts: r.in_parts, timeForm };
 }
 
 /** The customer of a lot (7.8.2.1 d); null for in-house work. */

@@ -17,3 +17,5 @@ export * from "./uncertainty";
 export * from "./dc-resistance-uncertainty";
 export * from "./discharge-end";
 export * from "./capacity-budget-terms";
+export * from "./cycle-accumulator";
+export * from "./retention-trend";

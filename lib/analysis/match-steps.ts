@@ -7,6 +7,8 @@ export type ExpectedStepKind = "charge" | "discharge" | "rest" | "pulse" | "soak
 export interface ExpectedStep {
   id: string;
   kind: ExpectedStepKind;
+  /** A step the log may lack without a finding: a cycle of an endurance block the run has not reached. */
+  optional?: boolean;
 }
 
 /** What matching needs to know of a phase; a segmented Phase fits. */
@@ -77,15 +79,17 @@ export function matchSteps(expected: readonly ExpectedStep[], phases: readonly M
   if ((m + 1) * (n + 1) > maxTableCells) {
     return fail("invalid-input", `Matching ${m} steps to ${n} phases is too large; match one cycle at a time.`);
   }
-  // Matching more steps comes first, match quality second: each match is worth more than any sum of quality points.
-  const perMatch = 3 * (Math.min(m, n) + 1);
-  const valueOf = (quality: number) => (quality > 0 ? perMatch + quality : 0);
+  // Matching more steps comes first, then match quality, with a point less for an optional step so that a
+  // required step takes a phase an optional one could also take: each match is worth more than any sum of
+  // those points (at most 4 a match).
+  const perMatch = 5 * (Math.min(m, n) + 1);
+  const valueOf = (quality: number, step: ExpectedStep) => (quality > 0 ? perMatch + quality - (step.optional === true ? 1 : 0) : 0);
   const width = n + 1;
   const best = new Int32Array((m + 1) * width);
   for (let i = 1; i <= m; i++) {
-    const kind = (expected[i - 1] as ExpectedStep).kind;
+    const step = expected[i - 1] as ExpectedStep;
     for (let j = 1; j <= n; j++) {
-      const score = valueOf(scoreMatch(kind, phases[j - 1] as MatchablePhase));
+      const score = valueOf(scoreMatch(step.kind, phases[j - 1] as MatchablePhase), step);
       const skipStep = best[(i - 1) * width + j] as number;
       const skipPhase = best[i * width + j - 1] as number;
       const take = score > 0 ? (best[(i - 1) * width + j - 1] as number) + score : -1;
@@ -99,7 +103,8 @@ export function matchSteps(expected: readonly ExpectedStep[], phases: readonly M
   let j = n;
   while (i > 0 && j > 0) {
     const here = best[i * width + j] as number;
-    const score = valueOf(scoreMatch((expected[i - 1] as ExpectedStep).kind, phases[j - 1] as MatchablePhase));
+    const step = expected[i - 1] as ExpectedStep;
+    const score = valueOf(scoreMatch(step.kind, phases[j - 1] as MatchablePhase), step);
     if (score > 0 && here === (best[(i - 1) * width + j - 1] as number) + score) {
       phaseOfStep[i - 1] = j - 1;
       used[j - 1] = 1;
@@ -116,7 +121,7 @@ export function matchSteps(expected: readonly ExpectedStep[], phases: readonly M
     stepId: step.id,
     kind: step.kind,
     phaseIndex: phaseOfStep[k] ?? null,
-    required: step.kind !== "soak" && step.kind !== "measure" && step.kind !== "observe",
+    required: step.optional !== true && step.kind !== "soak" && step.kind !== "measure" && step.kind !== "observe",
   }));
   const extraPhaseIndexes: number[] = [];
   used.forEach((isUsed, k) => {

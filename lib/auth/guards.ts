@@ -15,6 +15,7 @@ import {
   type MethodOf,
   type PagePattern,
 } from "./route-access";
+import { authenticateMachineToken, type MachineCaller } from "@/lib/machine-tokens/authenticate-machine-token";
 import { getCurrentSession } from "./session";
 import type { SignedInUser } from "./signed-in-user";
 
@@ -22,8 +23,8 @@ import type { SignedInUser } from "./signed-in-user";
 // pages call requirePageAccess("/pattern"), layouts requireAreaAccess("/area"), route handlers are
 // wrapped by apiRoute("/api/pattern", "GET", …), server actions by serverAction (lib/forms/server-action.ts).
 
-/** Who a guard hands on: nobody may be signed in on a public route. */
-export type CallerOf<A> = A extends "public" ? SignedInUser | null : SignedInUser;
+/** Who a guard hands on: nobody may be signed in on a public route; a token route hands on the cycler PC. */
+export type CallerOf<A> = A extends "public" ? SignedInUser | null : A extends "machine-token" ? MachineCaller : SignedInUser;
 
 /** The dynamic segments of a route pattern as the handler's params: "/api/runs/[id]" → { id: string }. */
 export type ParamsOf<R extends string> = R extends `${string}[${infer K}]${infer Rest}` ? { [P in K]: string } & ParamsOf<Rest> : unknown;
@@ -79,8 +80,9 @@ type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
 /**
  * Wraps a route handler: reads the access ROUTE_ACCESS declares for this route and method, establishes
- * the caller (none on a public route), refuses with 401/403, and sends every error through the one
- * error handler. The handler never checks roles itself.
+ * the caller (none on a public route; the token's cycler PC on a token route, whose cookies are never
+ * read), refuses with 401/403, and sends every error through the one error handler. The handler never
+ * checks roles itself.
  */
 export function apiRoute<R extends ApiPattern, M extends MethodOf<R>>(
   route: R,
@@ -91,8 +93,10 @@ export function apiRoute<R extends ApiPattern, M extends MethodOf<R>>(
   if (access === undefined) throw new Error(`No access is declared for ${method} ${route} in lib/auth/route-access.ts.`);
   return async (req, ctx) => {
     try {
-      let user: SignedInUser | null = null;
-      if (access !== "public") {
+      let user: SignedInUser | MachineCaller | null = null;
+      if (access === "machine-token") {
+        user = await authenticateMachineToken(req);
+      } else if (access !== "public") {
         const session = await getCurrentSession();
         if (!session) throw new DomainError("unauthenticated", "Sign in first.");
         if (!admits(access, session.user.role)) throw new DomainError("forbidden", "Your role does not allow this.");

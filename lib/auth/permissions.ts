@@ -27,6 +27,7 @@ export const PERMISSIONS = [
   "certificate.read",
   "certificate.sign",
   "mail.read",
+  "cycler-token.manage",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -44,6 +45,7 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
     "run.read",
     "certificate.read",
     "mail.read",
+    "cycler-token.manage",
   ],
   engineer: [
     "workbench.enter",

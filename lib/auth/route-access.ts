@@ -1,7 +1,10 @@
 import { can, type Permission, type Role } from "./permissions";
 
-/** A list admits a caller holding any one of its permissions. */
-export type Access = Permission | readonly Permission[] | "public" | "signed-in";
+/**
+ * A list admits a caller holding any one of its permissions. `machine-token`: only a cycler PC with a
+ * token an administrator issued (lib/machine-tokens); no session, whatever its role, is admitted.
+ */
+export type Access = Permission | readonly Permission[] | "public" | "signed-in" | "machine-token";
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
 /**
@@ -11,7 +14,7 @@ export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
  * tests/unit/route-access.test.ts checks every page and handler names its own pattern; the route × role
  * matrix checks every role gets the answer this table implies.
  * Pages have one access; route handlers one per exported method.
- * `public`: no sign-in; `signed-in`: any active user.
+ * `public`: no sign-in; `signed-in`: any active user; `machine-token`: a cycler PC's token, never a session.
  */
 export const ROUTE_ACCESS = {
   "/": "workbench.enter",
@@ -66,7 +69,10 @@ export const ROUTE_ACCESS = {
   "/api/runs": { GET: "run.read" },
   "/api/runs/[id]": { GET: "run.read" },
   "/api/runs/[id]/series": { GET: "run.read" },
+  "/api/runs/[id]/cycles": { GET: "run.read" },
   "/api/runs/[id]/logs": { GET: "run.read", POST: "run.operate" },
+  "/api/runs/[id]/log-parts": { POST: "run.operate" },
+  "/api/channel/log-parts": { POST: "machine-token" },
   "/api/runs/[id]/logs/current": { GET: "run.read" },
   "/api/runs/[id]/evaluations": { POST: ["run.operate", "run.review"] },
   "/api/runs/[id]/results.csv": { GET: "run.read" },
@@ -91,6 +97,7 @@ export const ROUTE_ACCESS = {
   "/api/compare/results.csv": { GET: "run.read" },
   "/account": "workbench.enter",
   "/admin/security": "user.manage",
+  "/admin/cycler-tokens": "cycler-token.manage",
 } as const satisfies Record<string, Access | Partial<Record<HttpMethod, Access>>>;
 
 type Table = typeof ROUTE_ACCESS;
@@ -118,7 +125,7 @@ export function routeAccess(route: string, method: HttpMethod = "GET"): Access |
 /** Whether a caller (null: signed out) is admitted by an access. */
 export function admits(access: Access, role: Role | null): boolean {
   if (access === "public") return true;
-  if (role === null) return false;
+  if (role === null || access === "machine-token") return false;
   if (access === "signed-in") return true;
   if (typeof access === "string") return can(role, access as Permission);
   return access.some((p) => can(role, p));
@@ -130,7 +137,7 @@ export function admits(access: Access, role: Role | null): boolean {
  */
 export function areaAccess(area: string): Access | undefined {
   const within = (Object.entries(ROUTE_ACCESS) as [string, Access | object][]).filter(
-    ([route, access]) => (route === area || route.startsWith(area === "/" ? "/" : `${area}/`)) && isPageAccess(access) && access !== "public",
+    ([route, access]) => (route === area || route.startsWith(area === "/" ? "/" : `${area}/`)) && isPageAccess(access) && access !== "public" && access !== "machine-token",
   );
   if (within.length === 0) return undefined;
   const accesses = within.map(([, a]) => a as Access);

@@ -41,11 +41,11 @@ export async function clearSignInLimit(actor: SignedInUser, input: z.input<typeo
   });
 }
 
-/** Refused cross-site requests of the last day, counted per 10-minute window and origin. */
+/** Refused cross-site requests and requests with an unknown cycler token of the last day, counted per 10-minute window and origin (or address). */
 export async function listRefusedRequests(now = new Date()) {
   return getDb()
     .selectFrom("refused_request_tally")
-    .select(["window_start", "origin", "last_path", "count", "last_at"])
+    .select(["window_start", "kind", "origin", "last_path", "count", "last_at"])
     .where("window_start", ">", new Date(now.getTime() - 24 * 3_600_000))
     .orderBy("last_at", "desc")
     .limit(100)

@@ -1,4 +1,4 @@
-import { describeObservedValues, formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type ObservationsResult, type StepRecord, type StoredEvaluation } from "@/lib/conformance";
+import { describeObservedValues, summariseEnduranceCycles, type EnduranceResult, formatRetentionBasis, listCountedReadings, listRetentionRows, type ChargeRetentionResult, type Finding, type ObservationsResult, type StepRecord, type StoredEvaluation } from "@/lib/conformance";
 import type { CellSpecification, ProcedureResolution, StoredDecisionRule } from "@/protocols";
 import { hashCanonicalJson } from "./canonical-json";
 import { formatMomentsInText } from "./certificate-format";
@@ -6,6 +6,7 @@ import {
   CERTIFICATE_PAYLOAD_FORMAT,
   type CertificateAmbient,
   type CertificateCriterion,
+  type CertificateEndurance,
   type CertificateFinding,
   type CertificateInstrument,
   type CertificateObservations,
@@ -38,6 +39,32 @@ function describeObservations(observations: ObservationsResult): CertificateObse
       source: criterion.source,
     })),
     decisionRule: observations.decisionRule,
+  };
+}
+
+const ENDURANCE_STATUS: Record<EnduranceResult["status"], string> = {
+  stopped: "stopped by the stop criterion",
+  completed: "all cycles completed",
+  "in progress": "in progress when evaluated",
+};
+
+/** The endurance block as the log shows it: its criteria in words and a summary of its cycles. */
+function describeEndurance(endurance: EnduranceResult): CertificateEndurance {
+  return {
+    blockLabel: endurance.label,
+    maxCycles: endurance.maxCycles,
+    cyclesLogged: endurance.cyclesLogged,
+    checks: endurance.checkEveryCycles === null ? "every cycle's capacity counts" : `a capacity check every ${endurance.checkEveryCycles} cycles`,
+    status: ENDURANCE_STATUS[endurance.status],
+    stop: `Stop criterion: capacity below ${endurance.stopBelowPercentOfRated} % of the rated capacity. ${endurance.stop.statement}`,
+    acceptance: { outcome: endurance.acceptance.outcome, statement: endurance.acceptance.statement, clause: endurance.acceptance.clause },
+    cycles: summariseEnduranceCycles(endurance).map((cycle) => ({
+      cycle: cycle.cycle,
+      capacityCheck: endurance.checkEveryCycles !== null && cycle.capacityCheck,
+      dischargeMAh: cycle.dischargeCapacityAh === null ? null : cycle.dischargeCapacityAh * 1000,
+      percentOfRated: cycle.percentOfRated,
+    })),
+    cyclesInAll: endurance.cycles.length,
   };
 }
 
@@ -80,7 +107,7 @@ export interface RunCertificateRecords {
   instruments: RecordedInstrument[];
   stepRecords: StepRecord[];
   evaluation: { evaluatedAt: Date; value: StoredEvaluation; stored: unknown };
-  logs: { fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date }[];
+  logs: { fileName: string; sha256: string; sizeBytes: number; samples: number; uploadedAt: Date; part?: number; span?: string }[];
   review: { printedName: string; signedAt: Date; comments: string; acknowledged: AcknowledgedDeviation[] };
   approval: { printedName: string; signedAt: Date };
   meaningWords: { reviewed: string; approved: string };
@@ -339,6 +366,7 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     results: listResults(evaluation, records.run.resolution, records.stepRecords, records.cell.data.ratedCapacityMah),
     ...(evaluation.retention && { retention: describeRetention(evaluation.retention) }),
     ...(evaluation.observations && { observations: describeObservations(evaluation.observations) }),
+    ...(evaluation.endurance && { endurance: describeEndurance(evaluation.endurance) }),
     conformity: {
       decisionRule: readDecisionRule(evaluation),
       specimenConforms: evaluation.verdict.specimenConforms,
@@ -358,7 +386,14 @@ export function buildRunCertificatePayload(records: RunCertificateRecords): RunC
     evidence: {
       evaluatedAt: records.evaluation.evaluatedAt.toISOString(),
       evaluationSha256: hashCanonicalJson(records.evaluation.stored),
-      logs: records.logs.map((l) => ({ fileName: l.fileName, sha256: l.sha256, sizeBytes: l.sizeBytes, samples: l.samples, uploadedAt: l.uploadedAt.toISOString() })),
+      logs: records.logs.map((l) => ({
+        fileName: l.fileName,
+        sha256: l.sha256,
+        sizeBytes: l.sizeBytes,
+        samples: l.samples,
+        uploadedAt: l.uploadedAt.toISOString(),
+        ...(l.part === undefined ? {} : { part: l.part, span: l.span }),
+      })),
     },
     review: { ...sign(records.review.printedName, "reviewed", records.meaningWords.reviewed, records.review.signedAt), comments: records.review.comments },
   };

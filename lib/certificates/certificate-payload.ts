@@ -144,6 +144,9 @@ export interface CertificateLog {
   sizeBytes: number;
   samples: number;
   uploadedAt: string;
+  /** For a log sent in parts: the part's place in the log and the time it spans, in words. */
+  part?: number;
+  span?: string;
 }
 
 export interface CertificateRetention {
@@ -157,6 +160,22 @@ export interface CertificateObservations {
   records: { stepLabel: string; rows: { name: string; value: string }[] }[];
   criteria: { name: string; rule: string; observed: string; outcome: ConformityOutcome; source: string | null }[];
   decisionRule: string;
+}
+
+/** The endurance block: where the test stood, its stop criterion, its acceptance statement and a summary of the cycles. */
+export interface CertificateEndurance {
+  blockLabel: string;
+  maxCycles: number;
+  cyclesLogged: number;
+  /** "a capacity check every 50 cycles" or "every cycle's capacity counts". */
+  checks: string;
+  status: string;
+  stop: string;
+  acceptance: { outcome: ConformityOutcome; statement: string; clause: string };
+  /** The first cycle, every capacity check (every 10th without checks), the stop cycle and the last; capacities in mAh. */
+  cycles: { cycle: number; capacityCheck: boolean; dischargeMAh: number | null; percentOfRated: number | null }[];
+  /** How many cycles the log holds in all (the table shows a summary). */
+  cyclesInAll: number;
 }
 
 /** A certificate of one run on one specimen. */
@@ -191,6 +210,8 @@ export interface RunCertificatePayload extends CertificateCommon {
   retention?: CertificateRetention;
   /** Observation steps and their criteria. Absent when the procedure has none, and in certificates issued before they existed. */
   observations?: CertificateObservations;
+  /** The endurance block's cycles and criteria. Absent when the procedure has none, and in certificates issued before blocks existed. */
+  endurance?: CertificateEndurance;
   /** 7.8.3.1 b, 7.8.6: the statement of conformity and the decision rule. */
   conformity: {
     /** As the evaluation applied it; certificates of evaluations stored before ILAC-G8's three rules may say "guarded acceptance". */

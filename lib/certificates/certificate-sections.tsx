@@ -220,12 +220,22 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
     ...(withResistance ? [{ title: "DC resistance", width: 10, align: "right" as const }] : []),
   ];
   // A run of observations alone has no logged step: its results are the observations.
-  if (payload.results.length === 0 && payload.observations) {
+  if (payload.results.length === 0 && payload.observations && !payload.endurance) {
     return (
       <View>
         <Heading number={6}>Results</Heading>
         <Tx style={{ ...styles.small, marginBottom: 3 }}>No step of this procedure is logged by a cycler; the results are the observations recorded on the step sheet.</Tx>
         <ObservationsTables observations={payload.observations} />
+      </View>
+    );
+  }
+  // An endurance run's results are its cycles.
+  if (payload.results.length === 0 && payload.endurance) {
+    return (
+      <View>
+        <Heading number={6}>Results</Heading>
+        <EnduranceTables endurance={payload.endurance} />
+        {payload.observations && <ObservationsTables observations={payload.observations} />}
       </View>
     );
   }
@@ -254,10 +264,40 @@ export function ResultsSection({ payload, curves }: P & { curves: DischargeCurve
       />
       {payload.retention && <RetentionTable retention={payload.retention} />}
       {payload.observations && <ObservationsTables observations={payload.observations} />}
+      {payload.endurance && <EnduranceTables endurance={payload.endurance} />}
       {curves.map((curve, i) => (
         <VqPlot key={`${curve.stepId}#${curve.cycle}`} curve={curve} figure={i + 1} />
       ))}
     </View>
+  );
+}
+
+/** The endurance block: where it stood, the stop criterion and a summary of the discharge capacity per cycle. */
+function EnduranceTables({ endurance }: { endurance: NonNullable<RunCertificatePayload["endurance"]> }) {
+  const summary = endurance.cycles.length < endurance.cyclesInAll ? ` The table shows the first cycle, each capacity check, the stop cycle and the last, of ${formatNumber(endurance.cyclesInAll)} cycles in the log.` : "";
+  return (
+    <Table
+      lead={
+        <>
+          <Tx style={{ ...styles.strong, marginTop: 6 }}>{`Endurance in cycles: "${endurance.blockLabel}"`}</Tx>
+          <Tx style={{ ...styles.small, marginBottom: 3 }}>
+            {`${formatNumber(endurance.cyclesLogged)} of at most ${formatNumber(endurance.maxCycles)} cycles in the log (${endurance.status}); ${endurance.checks}. ${endurance.stop} Capacity Q = integral of |I| dt over each cycle's discharge, trapezoid rule on the stored log.${summary}`}
+          </Tx>
+        </>
+      }
+      columns={[
+        { title: "Cycle", width: 20 },
+        { title: "Discharge", width: 30 },
+        { title: "Discharge capacity", width: 25, align: "right" as const },
+        { title: "Of rated", width: 25, align: "right" as const },
+      ]}
+      rows={endurance.cycles.map((c) => [
+        String(c.cycle),
+        c.capacityCheck ? "capacity check" : "cycle",
+        c.dischargeMAh === null ? "–" : formatMah(c.dischargeMAh),
+        c.percentOfRated === null ? "–" : `${formatNumber(c.percentOfRated, { minDecimals: 1, maxDecimals: 1 })} %`,
+      ])}
+    />
   );
 }
 
@@ -330,6 +370,7 @@ export function ConformitySection({ payload }: P) {
   const c = payload.conformity;
   const [first, ...rest] = c.criteria;
   const observationCriteria = payload.observations?.criteria ?? [];
+  const endurance = payload.endurance;
   return (
     <View>
       <View wrap={false}>
@@ -337,7 +378,7 @@ export function ConformitySection({ payload }: P) {
         <Field label="Decision rule">{describeDecisionRule(c.decisionRule)}</Field>
         {first ? (
           <CriterionItem k={first} />
-        ) : observationCriteria.length === 0 ? (
+        ) : observationCriteria.length === 0 && !endurance ? (
           <Tx>The procedure states no acceptance criterion, so no statement of conformity is made.</Tx>
         ) : null}
       </View>
@@ -352,6 +393,13 @@ export function ConformitySection({ payload }: P) {
           <Tx style={styles.small}>{payload.observations?.decisionRule ?? ""}</Tx>
         </View>
       ))}
+      {endurance && (
+        <View style={{ marginTop: 4 }} wrap={false}>
+          <OutcomeLine tone={toneOfConformity(endurance.acceptance.outcome)} words={endurance.acceptance.outcome} rest={` — capacity after the cycles of "${endurance.blockLabel}"`} />
+          <Tx>{endurance.acceptance.statement}</Tx>
+          <Tx style={styles.small}>{`Requirement from ${endurance.acceptance.clause}.`}</Tx>
+        </View>
+      )}
     </View>
   );
 }
@@ -410,8 +458,8 @@ export function EvidenceSection({ payload, payloadSha256 }: P & { payloadSha256:
       {payload.evidence.logs.map((l) => (
         <HashField
           key={l.sha256}
-          label="Data log"
-          text={`${l.fileName}: ${formatFigure(l.samples, 0)} samples, ${formatFigure(l.sizeBytes, 0)} bytes, uploaded ${formatMoment(l.uploadedAt)}; SHA-256`}
+          label={l.part === undefined ? "Data log" : `Data log, part ${l.part}`}
+          text={`${l.fileName}: ${formatFigure(l.samples, 0)} samples${l.span ? ` from ${l.span}` : ""}, ${formatFigure(l.sizeBytes, 0)} bytes, ${l.part === undefined ? "uploaded" : "received"} ${formatMoment(l.uploadedAt)}; SHA-256`}
           hash={l.sha256}
         />
       ))}

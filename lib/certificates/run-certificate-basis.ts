@@ -1,4 +1,6 @@
 import "server-only";
+import { listPartsOfLog } from "@/db/run-log-parts";
+import { formatPartTime } from "@/lib/runs/log-parts/part-sequence";
 import { getDb, type Executor } from "@/db";
 import { getCellSpecification } from "@/db/cell-specifications";
 import {
@@ -123,6 +125,21 @@ export async function gatherRunCertificateBasis(
   const registered = await listCertificateInstruments(db, { ids: instrumentIds, identifiers: thermometers });
   const instruments: RecordedInstrument[] = registered.map((i) => ({ ...i, usedFor: instrumentIds.includes(i.id) ? "run" : "ambient readings" }));
   const curves = await readCurves(run, evaluation.value);
+  // A log sent in parts is listed part by part: the parts the evaluation read (those received before it).
+  const parts =
+    log?.inParts && evaluation.runLogId
+      ? (await listPartsOfLog(db, evaluation.runLogId))
+          .filter((p) => p.receivedAt.getTime() <= new Date(evaluation.evaluatedAt).getTime())
+          .map((p) => ({
+            fileName: p.fileName,
+            sha256: p.sha256,
+            sizeBytes: p.sizeBytes,
+            samples: p.sampleCount,
+            uploadedAt: p.receivedAt,
+            part: p.number,
+            span: `${formatPartTime(p.firstTimeS, log.timeForm)} to ${formatPartTime(p.lastTimeS, log.timeForm)}`,
+          }))
+      : [];
   return {
     curves,
     basis: {
@@ -139,7 +156,7 @@ export async function gatherRunCertificateBasis(
       instruments,
       stepRecords,
       evaluation: { evaluatedAt: evaluation.evaluatedAt, value: evaluation.value, stored: evaluation.stored },
-      logs: log ? [{ fileName: log.fileName, sha256: log.sha256, sizeBytes: log.sizeBytes, samples: log.samples, uploadedAt: log.uploadedAt }] : [],
+      logs: parts.length > 0 ? parts : log ? [{ fileName: log.fileName, sha256: log.sha256, sizeBytes: log.sizeBytes, samples: log.samples, uploadedAt: log.uploadedAt }] : [],
       review: { printedName: review.signature.printedName, signedAt: review.signature.signedAt, comments: review.comments, acknowledged },
       meaningWords: SIGNATURE_MEANING_WORDS,
     },

@@ -19,10 +19,11 @@ function formatMillivolts(volts: number): string {
  */
 export function checkChargeVoltage(context: StepContext): Finding[] {
   const { step, cellRating } = context;
-  if (step.kind !== "charge") return [];
+  // A cycle block's charges are judged over the whole block: its highest logged voltage.
+  if (step.kind !== "charge" && step.kind !== "cycle-block") return [];
   const allowance = context.settings.chargeVoltageReadingAllowanceV;
   const rated = cellRating.chargeVoltageV;
-  const stepVoltage = step.voltage?.value;
+  const stepVoltage = step.kind === "charge" ? step.voltage?.value : step.charge.voltage?.value;
   const limit = stepVoltage === undefined ? rated : Math.min(stepVoltage, rated);
   const whose = stepVoltage !== undefined && stepVoltage < rated ? "the step's charge voltage" : "the cell's rated charge voltage";
   const max = limit + allowance;

@@ -28,6 +28,8 @@ function listRatedCurrents(context: StepContext): RatedCurrent[] {
     case "soak":
     case "measure":
     case "observe":
+    // A cycle block is judged cycle by cycle from the log in evaluate-endurance.ts.
+    case "cycle-block":
       return [];
     default:
       return assertNever(step);

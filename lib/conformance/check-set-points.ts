@@ -80,6 +80,9 @@ function listSetPoints(step: ResolvedStep): SetPoint[] {
       return [];
     case "observe":
       return [];
+    case "cycle-block":
+      // The operator programs the cycle once on the cycler; the block's cycles are judged from the log (evaluate-endurance.ts).
+      return [];
     default:
       return assertNever(step);
   }

@@ -18,6 +18,7 @@ import { decideVerdict, type CriterionConformity, type RunVerdict } from "./deci
 import { evaluateAcceptance, type AcceptanceResult } from "./evaluate-acceptance";
 import { evaluateRepeatRule, type RepeatOutcome } from "./evaluate-repeat-rule";
 import { evaluateObservations, toObservationConformity, type ObservationsResult } from "./evaluate-observations";
+import { evaluateEndurance, toEnduranceConformity, type EnduranceResult } from "./evaluate-endurance";
 import { evaluateChargeRetention, type ChargeRetentionResult } from "./evaluate-retention";
 import {
   evaluateStepUncertainties,
@@ -91,6 +92,11 @@ export interface RunEvaluation {
    * when the procedure has no observation step, and in evaluations stored before observations existed.
    */
   observations?: ObservationsResult;
+  /**
+   * The endurance block's cycles (discharge capacity per cycle), its stop criterion and its acceptance
+   * statement. Absent when the procedure has no cycle block, and in evaluations stored before blocks existed.
+   */
+  endurance?: EnduranceResult;
   /** The statement of conformity per criterion, on the cycle it rests on. */
   conformity: CriterionConformity[];
   verdict: RunVerdict;
@@ -256,7 +262,8 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       recorded: context.record !== null,
       logPhase,
       logNote: evidence.kind === "found" ? null : evidence.reason,
-      results: evidence.kind === "found" ? evidence.results : null,
+      // A cycle block's span holds charges and discharges alike: its figures are per cycle, in `endurance`.
+      results: evidence.kind === "found" && context.step.kind !== "cycle-block" ? evidence.results : null,
       dcResistance: evidence.kind === "found" ? evidence.dcResistance : null,
       findings: checkStep({ placed: current, previous: placed[k - 1], next: placed[k + 1], resolution }),
     };
@@ -294,12 +301,13 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
   ];
   const conformity = stateConformity({ resolution, acceptance, repeat });
   const observations = evaluateObservations(resolution.steps, stepRecords, citation);
+  const endurance = evaluateEndurance({ resolution, cycleBlocks: logAnalysis.cycleBlocks, decisionRule, citation });
   const otherVersionNote = describeOtherVersion(evaluatedAgainst);
   const logSpan = findLogSpan(log, logStartMs, logStartedFrom);
   const verdict = decideVerdict({
     findings: [...runFindings, ...steps.flatMap((step) => step.findings)],
     // The observation criteria judge the specimen too; they keep their own section, apart from the acceptance criteria.
-    conformity: [...conformity, ...toObservationConformity(observations)],
+    conformity: [...conformity, ...toObservationConformity(observations), ...toEnduranceConformity(endurance)],
     otherVersionNote,
   });
   return {
@@ -318,6 +326,7 @@ export function evaluateRun(input: RunEvaluationInput): RunEvaluationResult {
       repeat,
       ...(resolution.retention && { retention: evaluateChargeRetention(resolution.retention, steps, citation) }),
       ...(observations !== undefined && { observations }),
+      ...(endurance !== undefined && { endurance }),
       conformity,
       verdict,
     },

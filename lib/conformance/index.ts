@@ -25,6 +25,7 @@ export * from "./evaluate-uncertainty";
 export * from "./evaluate-repeat-rule";
 export * from "./evaluate-retention";
 export * from "./evaluate-observations";
+export * from "./evaluate-endurance";
 export * from "./decide-verdict";
 export * from "./evaluate-run";
 export * from "./list-findings";

@@ -8,6 +8,7 @@ import type { ChargeRetentionResult } from "./evaluate-retention";
 import type { RunEvaluation, StepEvaluation } from "./evaluate-run";
 import type { StepUncertainty, UncertaintyNotEvaluated } from "./evaluate-uncertainty";
 import type { ObservationsResult } from "./evaluate-observations";
+import type { EnduranceResult } from "./evaluate-endurance";
 import type { Finding } from "./finding";
 import type { EvaluationOptions } from "./run-evaluation-input";
 
@@ -68,6 +69,7 @@ const commonShape = {
   repeat: shaped<RepeatOutcome>("the repeat outcome").nullable(),
   retention: shaped<ChargeRetentionResult>("the charge retention", (r) => isRecord(r.basis)).optional(),
   observations: shaped<ObservationsResult>("the observations", (o) => Array.isArray(o.records) && Array.isArray(o.criteria) && isText(o.decisionRule)).optional(),
+  endurance: shaped<EnduranceResult>("the endurance cycles", (e) => isText(e.stepId) && Array.isArray(e.cycles) && isRecord(e.stop) && isRecord(e.acceptance)).optional(),
   conformity: z.array(shaped<CriterionConformity>("a statement of conformity", (c) => isText(c.criterionId) && isText(c.outcome) && isText(c.statement))),
   verdict: shaped<RunVerdict>("the verdict", (v) => isText(v.procedureFollowed) && isText(v.specimenConforms) && typeof v.beyondRating === "boolean" && Array.isArray(v.reasons)),
 };

@@ -12,6 +12,7 @@ import { DomainError } from "@/lib/errors";
 import { formatResultsCsv, listExportedResults, toFileName } from "@/lib/lots/results/export-results";
 import { readLotResults } from "@/lib/lots/results/read-results";
 import { readVerifiedFile, type Reader } from "@/lib/integrity/read-verified-file";
+import { formatPartTime } from "@/lib/runs/log-parts/part-sequence";
 import { formatAuditTrailCsv } from "./audit-trail-csv";
 
 interface BundleFile {
@@ -40,7 +41,10 @@ async function gatherRunEvidence(certificate: CertificateView, runId: string, pd
   for (const [i, log] of logs.entries()) {
     const { bytes, file } = await readVerifiedFile(log.storedFileId, reader, `evidence bundle of certificate ${certificate.number}`);
     const name = `logs/${String(i + 1).padStart(2, "0")}-${log.fileName.replace(/[^\w.\- ]/g, "_")}`;
-    files.push({ name, bytes, recordedSha256: file.sha256, what: `data log as uploaded by ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? " (the one evaluated)" : " (replaced by a later upload)"}` });
+    const what = log.part
+      ? `part ${log.part.number} of the data log, samples from ${formatPartTime(log.part.firstTimeS, log.part.timeForm)} to ${formatPartTime(log.part.lastTimeS, log.part.timeForm)}, received from ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? "" : " (its log was replaced by a later upload)"}`
+      : `data log as uploaded by ${log.uploadedBy} on ${log.uploadedAt.toISOString()}${log.current ? " (the one evaluated)" : " (replaced by a later upload)"}`;
+    files.push({ name, bytes, recordedSha256: file.sha256, what });
   }
   if (evaluation) {
     files.push({

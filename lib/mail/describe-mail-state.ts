@@ -43,4 +43,6 @@ export const MAIL_KIND_LABELS: Record<MailKind, string> = {
   "certificate-issued": "certificate issued",
   "calibration-due": "calibration due",
   "procedure-awaiting-release": "procedure waiting for release",
+  "endurance-stop-reached": "endurance stop criterion met",
+  "run-stalled": "test without new data",
 };

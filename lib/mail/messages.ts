@@ -59,3 +59,24 @@ export function composeCalibrationDue(input: { instrument: string; dueOn: string
       FOOTER,
   };
 }
+
+export function composeEnduranceStopReached(input: { runNumber: string; runId: string; specimen: string; cycle: number; reason: string }): ComposedMail {
+  return {
+    subject: `Run ${input.runNumber}: stop criterion met at cycle ${input.cycle}`,
+    body:
+      `The endurance test of run ${input.runNumber} (specimen ${input.specimen}) met its stop criterion at cycle ${input.cycle}: ${input.reason}.\n\n` +
+      `Stop the cycler channel as your lab's rules say, record the remaining steps, and look at the trend: ${publicUrl(`/runs/${input.runId}/results`)}` +
+      FOOTER,
+  };
+}
+
+export function composeRunStalled(input: { runNumber: string; runId: string; hours: number; lastArrival: string; lastCycle: number | null }): ComposedMail {
+  return {
+    subject: `Run ${input.runNumber}: no log data for ${input.hours} hours`,
+    body:
+      `No samples have reached run ${input.runNumber} since ${input.lastArrival} UTC (more than ${input.hours} hours)` +
+      `${input.lastCycle === null ? "" : `; the last cycle with results is cycle ${input.lastCycle}`}. The cycler, its computer or the connection may have stopped.\n\n` +
+      `Check the channel and the cell under the lab's own safety rules, then the run: ${publicUrl(`/runs/${input.runId}/results`)}` +
+      FOOTER,
+  };
+}

@@ -22,7 +22,7 @@ import { resolveProcedure, type ProcedureResolution } from "@/protocols";
  * evaluation is then marked as made against a version other than the one the run was carried out under.
  */
 export async function evaluateStoredRun(
-  actor: SignedInUser,
+  actor: SignedInUser | { machineLabel: string },
   runId: string,
   opts: { columns?: LogColumns; againstVersionId?: string } = {},
 ): Promise<RunEvaluation> {
@@ -74,8 +74,7 @@ export async function evaluateStoredRun(
       })
       .execute();
     await recordAuditEvent(tx, {
-      actorId: actor.id,
-      actorLabel: `${actor.displayName} <${actor.email}>`,
+      ...("machineLabel" in actor ? { actorId: null, actorLabel: `push from ${actor.machineLabel}` } : { actorId: actor.id, actorLabel: `${actor.displayName} <${actor.email}>` }),
       action: "run.evaluate",
       entityType: "run",
       entityId: runId,

@@ -12,6 +12,7 @@ import { columnMappingSchema, type ColumnMapping, type LogImportError, type Pars
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { deleteObject, putObjectFromFile } from "@/lib/storage";
+import type { CycleMode } from "./cycle-results";
 import { isRunOpen } from "./run-status";
 import { LOG_MAX_BYTES, storeLogWhileReading } from "./store-log-while-reading";
 
@@ -31,7 +32,7 @@ export type IngestResult =
 export async function ingestLog(
   actor: SignedInUser,
   runId: string,
-  upload: { name: string; chunks: AsyncIterable<Uint8Array>; mapping: unknown; onProgress?: (p: { bytes: number; rows: number }) => void },
+  upload: { name: string; chunks: AsyncIterable<Uint8Array>; mapping: unknown; onProgress?: (p: { bytes: number; rows: number }) => void; cycles?: CycleMode },
 ): Promise<IngestResult> {
   const mapping: ColumnMapping = columnMappingSchema.parse(upload.mapping);
   const run = await getRun(getDb(), runId);
@@ -60,6 +61,7 @@ export async function ingestLog(
       mapping,
       chunks: spooled(),
       onProgress: upload.onProgress,
+      ...(upload.cycles ? { cycles: upload.cycles } : {}),
       complete: async (tx, { parsed, runLogId }) => {
         await file.close();
         const sha256 = hash.digest("hex");

@@ -3,6 +3,7 @@ import { acResistanceTemplate } from './ac-resistance';
 import { chargeRetentionTemplate } from './charge-retention';
 import { dcResistanceTemplate } from './dc-resistance';
 import { dischargeAtMinus20cTemplate } from './discharge-at-minus-20c';
+import { enduranceInCyclesTemplate } from './endurance-in-cycles';
 import { observationBeforeAfterTemplate } from './observation-before-after';
 import { rateCapabilityTemplate } from './rate-capability';
 import { ratedCapacityAt20cTemplate } from './rated-capacity-20c';
@@ -21,6 +22,7 @@ export const procedureTemplates: readonly ProcedureTemplate[] = [
   { key: 'discharge-at-minus-20c', procedure: dischargeAtMinus20cTemplate },
   { key: 'charge-retention', procedure: chargeRetentionTemplate },
   { key: 'observation-before-after', procedure: observationBeforeAfterTemplate },
+  { key: 'endurance-in-cycles', procedure: enduranceInCyclesTemplate },
 ];
 
 export function findProcedureTemplate(key: string): ProcedureTemplate | undefined {
@@ -32,6 +34,7 @@ export {
   chargeRetentionTemplate,
   dcResistanceTemplate,
   dischargeAtMinus20cTemplate,
+  enduranceInCyclesTemplate,
   observationBeforeAfterTemplate,
   rateCapabilityTemplate,
   ratedCapacityAt20cTemplate,

@@ -1,6 +1,7 @@
 import { expect, test } from "@playwright/test";
 import pg from "pg";
-import { can, ROLES, type Role } from "../../lib/auth/permissions";
+import { ROLES, type Role } from "../../lib/auth/permissions";
+import { admits } from "../../lib/auth/route-access";
 import { signInAs } from "./fixtures";
 import { accessOf, discoverRoutes, sampleParams, toUrl } from "./route-samples";
 
@@ -33,8 +34,7 @@ const pages = discoverRoutes().filter((r) => r.kind === "page");
 function mayOpen(role: Role, route: string): boolean {
   const access = accessOf(route, "GET");
   if (!access) return false;
-  if (access === "public" || access === "signed-in") return true;
-  return typeof access === "string" ? can(role, access) : access.some((a) => can(role, a));
+  return admits(access, role);
 }
 
 /**

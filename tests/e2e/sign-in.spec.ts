@@ -4,7 +4,7 @@ import { DEMO_USERS } from "@/scenarios/demo-lab";
 // Only this spec signs in through the form; the others start with a session (fixtures.ts).
 const LAB = ["Runs", "Lots", "Specimens", "Compare discharges", "Instruments"];
 const NAV: Record<string, string[]> = {
-  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail", "Users", "E-mail", "Signing key", "Integrity"],
+  admin: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail", "Users", "E-mail", "Signing key", "Integrity", "Cycler tokens"],
   engineer: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates"],
   operator: ["Home", "Procedures", "Cell specifications", ...LAB],
   auditor: ["Home", "Procedures", "Cell specifications", ...LAB, "Certificates", "Audit trail"],

@@ -22,6 +22,7 @@ const GRANTED: Record<Permission, Role[]> = {
   "certificate.read": ["admin", "engineer", "auditor"],
   "certificate.sign": ["engineer"],
   "mail.read": ["admin"],
+  "cycler-token.manage": ["admin"],
 };
 
 describe("role → permission map", () => {

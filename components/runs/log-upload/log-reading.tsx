@@ -73,8 +73,10 @@ export function LogReading({ runId, initial }: { runId: string; initial: LogJobS
     case "evaluated":
     case "stored":
       return (
-        <Notice tone="done" role="status" title="Log stored">
-          {file}: {(job.outcome?.rows ?? job.rowsRead).toLocaleString("en-GB")} rows read and stored (shown under “Current data log” above).{" "}
+        <Notice tone="done" role="status" title={job.outcome?.partNumber ? `Part ${job.outcome.partNumber} stored` : "Log stored"}>
+          {file}: {(job.outcome?.rows ?? job.rowsRead).toLocaleString("en-GB")} rows read and stored
+          {job.outcome?.partNumber ? " after the earlier parts (listed under “Log parts” above)." : " (shown under “Current data log” above)."}{" "}
+          {job.outcome?.notice && <span className="block font-semibold">{job.outcome.notice}</span>}
           {job.outcome?.verdict ? `Evaluated: ${describeVerdictInline(job.outcome.verdict)}` : (job.outcome?.evaluationProblem ?? "")}
           {(job.outcome?.warnings ?? []).map((w) => (
             <span key={w} className="block">

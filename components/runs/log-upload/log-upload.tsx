@@ -30,12 +30,15 @@ export function LogUpload({
   runId,
   remembered,
   storedLog,
+  inParts,
   reading,
 }: {
   runId: string;
   remembered: { instrument: string; mapping: ColumnMapping } | null;
   /** The log stored now, if any: its file name. */
   storedLog: string | null;
+  /** The stored log is made of parts: the next file is offered as its next part. */
+  inParts: boolean;
   /** A log of this run is waiting or being read. */
   reading: boolean;
 }) {
@@ -47,9 +50,14 @@ export function LogUpload({
   const [sniffProblem, setSniffProblem] = useState<string | null>(null);
   const [remember, setRemember] = useState(true);
   const [progress, setProgress] = useState<SendProgress | null>(null);
-  const [outcome, setOutcome] = useState<Extract<SendOutcome, { type: "failed" }> | null>(null);
-  const [replacing, setReplacing] = useState(false);
-  const formOpen = !reading && (storedLog === null || replacing);
+  const [outcome, setOutcome] = useState<Exclude<SendOutcome, { type: "queued" }> | null>(null);
+  const [open, setOpen] = useState(false);
+  const [mode, setMode] = useState<"whole" | "part">(inParts ? "part" : "whole");
+  const formOpen = !reading && (storedLog === null || open);
+  const openAs = (m: "whole" | "part") => {
+    setMode(m);
+    setOpen(true);
+  };
 
   const choose = async (file: File | undefined) => {
     setChosen(null);
@@ -79,13 +87,13 @@ export function LogUpload({
     if (!chosen || !preview?.ok) return;
     setOutcome(null);
     setProgress({ sentBytes: 0, totalBytes: chosen.file.size });
-    const result = await sendLog({ runId, file: chosen.file, mapping: draft as ColumnMapping, remember, onProgress: setProgress });
-    setOutcome(result.type === "failed" ? result : null);
+    const result = await sendLog({ runId, file: chosen.file, mapping: draft as ColumnMapping, remember, part: mode === "part", onProgress: setProgress });
+    setOutcome(result.type === "queued" ? null : result);
     setProgress(null);
-    if (result.type === "queued") {
+    if (result.type !== "failed") {
       setChosen(null);
       setDraft(null);
-      setReplacing(false);
+      setOpen(false);
       router.refresh();
     }
   };
@@ -93,9 +101,14 @@ export function LogUpload({
   return (
     <section aria-labelledby="upload-heading" className="flex flex-col gap-4" data-testid="log-upload">
       <h2 id="upload-heading" className="text-lg font-semibold">
-        {storedLog === null ? "Upload the cycler's log" : "Replace the stored log"}
+        {storedLog === null ? "Upload the cycler's log" : inParts ? "Add a part, or replace the log" : "Replace the stored log, or add a part"}
       </h2>
-      {outcome && (
+      {outcome?.type === "already-stored" && (
+        <Notice role="status" title="Already have it">
+          {outcome.message}
+        </Notice>
+      )}
+      {outcome?.type === "failed" && (
         <Notice tone="problem" role="alert" title="The upload did not complete; nothing was stored">
           {outcome.message}
         </Notice>
@@ -104,21 +117,36 @@ export function LogUpload({
       {!reading && !formOpen && (
         <div className="flex flex-col items-start gap-2 text-sm">
           <p>
-            {storedLog} is stored and evaluated. Replace it only if it is the wrong file or incomplete: the stored one stays on file, marked as replaced, and
-            the run is evaluated again from the new one.
+            {storedLog} is stored and evaluated. Add the cycler&apos;s next file as a part: it is appended after the stored samples and the run is
+            evaluated again from all of them. Replace the log only if it is the wrong file: the stored one stays on file, marked as replaced.
           </p>
-          <Button onClick={() => setReplacing(true)} className="min-h-11 px-4">
-            Replace the stored log…
-          </Button>
+          <div className="flex flex-wrap gap-2">
+            <Button onClick={() => openAs("part")} className="min-h-11 px-4">
+              Add the next part…
+            </Button>
+            <Button onClick={() => openAs("whole")} className="min-h-11 px-4">
+              Replace the stored log…
+            </Button>
+          </div>
         </div>
       )}
-      {formOpen && storedLog !== null && (
-        <p className="text-sm">
-          Replacing {storedLog}. It stays on file, marked as replaced.{" "}
-          <button type="button" onClick={() => setReplacing(false)} className="text-copper-deep underline">
-            Keep the stored log
-          </button>
-        </p>
+      {formOpen && (
+        <fieldset className="flex flex-col gap-1 text-sm">
+          <legend className="font-semibold">Send the file as</legend>
+          <label className="flex items-center gap-2">
+            <input type="radio" name="log-mode" checked={mode === "part"} onChange={() => setMode("part")} />
+            {storedLog === null ? "the first part of a log the cycler writes in parts" : "the next part, appended after the stored samples"}
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" name="log-mode" checked={mode === "whole"} onChange={() => setMode("whole")} />
+            {storedLog === null ? "the whole log" : `the whole log, replacing ${storedLog} (it stays on file, marked as replaced)`}
+          </label>
+          {storedLog !== null && (
+            <button type="button" onClick={() => setOpen(false)} className="self-start text-copper-deep underline">
+              Keep the stored log as it is
+            </button>
+          )}
+        </fieldset>
       )}
       {formOpen && (
       <div>
@@ -146,13 +174,13 @@ export function LogUpload({
           )}
           <MappingFields columns={chosen.sniff.columns} draft={draft} onChange={setDraft} />
           {preview && <MappingPreviewView preview={preview} />}
-          <label className="flex items-center gap-2 text-sm">
+          {mode === "whole" && <label className="flex items-center gap-2 text-sm">
             <input type="checkbox" checked={remember} onChange={(e) => setRemember(e.target.checked)} />
             Keep this mapping for the run&apos;s cycler channel, to offer next time
-          </label>
+          </label>}
           <div>
             <Button onClick={() => void send()} disabled={!preview?.ok || progress !== null}>
-              Upload {chosen.file.name} ({formatMiB(chosen.file.size)})
+              {mode === "part" ? "Add" : "Upload"} {chosen.file.name} ({formatMiB(chosen.file.size)}){mode === "part" ? " as a part" : ""}
             </Button>
           </div>
         </>

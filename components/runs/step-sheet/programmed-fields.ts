@@ -53,6 +53,7 @@ export function listProgrammedFields(step: ResolvedStep): ProgrammedFieldSpec[] 
       ];
     case "measure":
     case "observe":
+    case "cycle-block":
       return [];
     default:
       return assertNever(step);

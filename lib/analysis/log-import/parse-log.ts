@@ -36,6 +36,8 @@ export interface ParsedLog {
   bytes: number;
   /** The first data row's time cell as written, e.g. the wall-clock start of a timestamped log. */
   firstTime: string;
+  /** The header row's column names as written (trimmed), to compare the layout of a log sent in parts. */
+  header: string[];
   warnings: LogImportWarning[];
 }
 
@@ -46,6 +48,8 @@ export interface LogParser {
   push(chunk: Uint8Array): LogImportError | null;
   /** Reads what is left and returns the whole log, or why it was refused. Nothing is kept on refusal. */
   finish(): LogParseResult;
+  /** The first data row's time cell as written, once a data row has been read ("" before). */
+  readonly firstTime: string;
 }
 
 const defaultMaxLineChars = 1 << 20;
@@ -162,7 +166,7 @@ export function createLogParser(mapping: ColumnMapping, options: LogParserOption
     const firstTime = (rows as DataRows).firstTime;
     const { columns, capacityAh } = (store as LogColumnStore).finish();
     if (onRows && handedOut < columns.length) onRows({ first: handedOut, columns: sliceColumns(columns, handedOut) });
-    return { ok: true, columns, ...(capacityAh ? { capacityAh } : {}), rows: columns.length, bytes: framer.bytes, firstTime, warnings };
+    return { ok: true, columns, ...(capacityAh ? { capacityAh } : {}), rows: columns.length, bytes: framer.bytes, firstTime, header: (headerLines.found as NonNullable<HeaderLines["found"]>).header.map((h) => h.trim()), warnings };
   }
 
   /** The final line when the file does not end with a line break. */
@@ -177,7 +181,13 @@ export function createLogParser(mapping: ColumnMapping, options: LogParserOption
     rows.readLastLine(line, lineNumber);
   }
 
-  return { push, finish };
+  return {
+    push,
+    finish,
+    get firstTime() {
+      return rows?.firstTime ?? "";
+    },
+  };
 }
 
 function sliceColumns(c: LogColumns, from: number): LogColumns {

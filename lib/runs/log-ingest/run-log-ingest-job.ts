@@ -17,6 +17,7 @@ import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { DomainError } from "@/lib/errors";
 import { readVerifiedFile } from "@/lib/integrity/read-verified-file";
 import { evaluateStoredRun } from "../evaluate-stored-run";
+import { runLogPartJob } from "../log-parts/read-log-part";
 import { writeRunLog } from "../ingest-log";
 import { rememberLogMapping } from "../remember-log-mapping";
 import { storeLogWhileReading } from "../store-log-while-reading";
@@ -36,7 +37,7 @@ export interface JobRunOptions {
   onPartStored?: (part: { index: number; rows: number }) => void | Promise<void>;
 }
 
-class LeaseLost extends Error {}
+export class LeaseLost extends Error {}
 
 /** Claims the next due job and runs it. Returns the job's id, or null when none was due. */
 export async function runNextLogIngestJob(opts: JobRunOptions = {}): Promise<string | null> {
@@ -66,7 +67,10 @@ export async function runNextLogIngestJob(opts: JobRunOptions = {}): Promise<str
  * stored before its worker stopped goes straight to evaluation, so nothing is stored twice.
  */
 export async function runLogIngestJob(job: LogIngestJobView, opts: JobRunOptions = {}): Promise<void> {
+  if (job.part) return runLogPartJob(job, job.part, opts);
   const leaseSeconds = opts.leaseSeconds ?? LEASE_SECONDS;
+  if (!job.storedFileId || !job.requestedBy) throw new Error("a whole-log job names its stored file and its requester");
+  const storedFileId = job.storedFileId;
   const actor = await readRequester(job.requestedBy);
   let runLogId = job.runLogId;
   let rows = job.rowsRead;
@@ -77,7 +81,7 @@ export async function runLogIngestJob(job: LogIngestJobView, opts: JobRunOptions
   if (!runLogId) {
     let bytes: Uint8Array;
     try {
-      ({ bytes } = await readVerifiedFile(job.storedFileId, actor, "reading an uploaded data log"));
+      ({ bytes } = await readVerifiedFile(storedFileId, actor, "reading an uploaded data log"));
     } catch (error) {
       if (!(error instanceof DomainError)) throw error;
       await refuse(job, actor, { message: error.message });
@@ -96,8 +100,8 @@ export async function runLogIngestJob(job: LogIngestJobView, opts: JobRunOptions
         if (!(await reportLogIngestProgress(getDb(), job.id, job.attempts, p.rows, leaseSeconds))) throw new LeaseLost();
       },
       complete: async (tx, { parsed, runLogId: id }) => {
-        const file = await readStagedFile(job);
-        await writeRunLog(tx, { actor, runId: job.runId, runLogId: id, storedFileId: job.storedFileId, fileName: file.name, sha256: file.sha256, sizeBytes: file.sizeBytes, mapping: job.mapping, parsed });
+        const file = await readStagedFile(storedFileId);
+        await writeRunLog(tx, { actor, runId: job.runId, runLogId: id, storedFileId, fileName: file.name, sha256: file.sha256, sizeBytes: file.sizeBytes, mapping: job.mapping, parsed });
         await markLogIngestJobStored(tx, job.id, { runLogId: id, rowsRead: parsed.rows });
         return file.sha256;
       },
@@ -148,17 +152,17 @@ async function refuse(job: LogIngestJobView, actor: SignedInUser, error: Pick<Lo
     });
 }
 
-async function readRequester(id: string): Promise<SignedInUser> {
+export async function readRequester(id: string): Promise<SignedInUser> {
   const user = await getUser(getDb(), id);
   if (!user) throw new Error("the job's requester is missing");
   return { id: user.id, email: user.email, displayName: user.displayName, role: user.role };
 }
 
-async function readStagedFile(job: LogIngestJobView): Promise<{ name: string; sha256: string; sizeBytes: number }> {
-  const f = await getDb().selectFrom("stored_file").select(["original_name", "sha256", "size_bytes"]).where("id", "=", job.storedFileId).executeTakeFirstOrThrow();
+async function readStagedFile(storedFileId: string): Promise<{ name: string; sha256: string; sizeBytes: number }> {
+  const f = await getDb().selectFrom("stored_file").select(["original_name", "sha256", "size_bytes"]).where("id", "=", storedFileId).executeTakeFirstOrThrow();
   return { name: f.original_name, sha256: f.sha256, sizeBytes: Number(f.size_bytes) };
 }
 
-function* slices(bytes: Uint8Array): Iterable<Uint8Array> {
+export function* slices(bytes: Uint8Array): Iterable<Uint8Array> {
   for (let at = 0; at < bytes.length; at += readSlice) yield bytes.subarray(at, at + readSlice);
 }

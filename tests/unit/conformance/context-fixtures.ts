@@ -75,6 +75,21 @@ export const steps = {
   },
   measure: { ...common, id: "measure", label: "AC resistance", kind: "measure", measurement: { quantity: "acResistance", frequency: { value: 1, unit: "kHz" } } },
   observe: { ...common, id: "observe", label: "Observation after", kind: "observe", records: ["mass", "openCircuitVoltage", "visual"] },
+  "cycle-block": {
+    ...common,
+    id: "cycles",
+    label: "Endurance cycles",
+    kind: "cycle-block",
+    charge: { current: valueOf(1.5, "A"), voltage: valueOf(4.2, "V"), termination: { kind: "current", current: valueOf(0.06, "A") } },
+    restAfterCharge: { minDuration: valueOf(1800, "s") },
+    discharge: { current: valueOf(1.5, "A"), endVoltage: valueOf(2.75, "V") },
+    restAfterDischarge: { minDuration: valueOf(1800, "s") },
+    maxCycles: 400,
+    capacityCheck: { everyCycles: 50, current: valueOf(0.6, "A") },
+    stopBelowPercentOfRated: 60,
+    acceptAtLeastPercentOfRated: 60,
+    ratedCapacityMah: 3000,
+  },
 } satisfies Record<ResolvedStep["kind"], ResolvedStep>;
 
 export const rating: CellRating = { maxContinuousDischargeCurrentA: 15, maxChargeCurrentA: 4, chargeVoltageV: 4.2 };

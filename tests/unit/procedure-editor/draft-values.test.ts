@@ -40,6 +40,14 @@ const blanksOf: Record<StepKind, string[]> = {
   pulse: ["baseCurrent.multipleOfIt", "baseDuration.value", "pulseCurrent.multipleOfIt", "pulseDuration.value"],
   measure: [],
   observe: [],
+  "cycle-block": [
+    "restAfterCharge.minDuration.value",
+    "discharge.current.multipleOfIt",
+    "restAfterDischarge.minDuration.value",
+    "maxCycles",
+    "stopBelowPercentOfRated",
+    "acceptAtLeastPercentOfRated",
+  ],
 };
 
 describe("createStep", () => {

@@ -27,7 +27,7 @@ function resolutionOf(procedure: Procedure) {
 
 describe('the decision rule of a procedure', () => {
   it('is stated by every template', () => {
-    expect(procedureTemplates.map((template) => template.procedure.decisionRule)).toEqual(Array(7).fill('simple acceptance'));
+    expect(procedureTemplates.map((template) => template.procedure.decisionRule)).toEqual(Array(8).fill('simple acceptance'));
   });
 
   it('accepts the three rules of ILAC-G8:09/2019 4.2, refuses any other, and still reads a stored definition without one', () => {

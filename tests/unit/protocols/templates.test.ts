@@ -9,7 +9,7 @@ import {
 import { inventedCell, prismaticLcoCell } from '@/scenarios/invented-cells';
 
 describe('built-in procedure templates', () => {
-  it('has seven templates with distinct keys and codes', () => {
+  it('has eight templates with distinct keys and codes', () => {
     expect(procedureTemplates.map((template) => template.key)).toEqual([
       'rated-capacity-20c',
       'rate-capability',
@@ -18,8 +18,9 @@ describe('built-in procedure templates', () => {
       'discharge-at-minus-20c',
       'charge-retention',
       'observation-before-after',
+      'endurance-in-cycles',
     ]);
-    expect(new Set(procedureTemplates.map((template) => template.procedure.header.code)).size).toBe(7);
+    expect(new Set(procedureTemplates.map((template) => template.procedure.header.code)).size).toBe(8);
     expect(findProcedureTemplate('dc-resistance')?.procedure.header.title).toBe('DC internal resistance');
     expect(findProcedureTemplate('no-such-template')).toBeUndefined();
   });

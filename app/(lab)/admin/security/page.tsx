@@ -59,16 +59,20 @@ export default async function SignInSecurityPage() {
       </section>
       <section aria-labelledby="refused">
         <h2 id="refused" className="mb-2 text-lg font-bold">
-          Requests from other sites refused (last 24 hours)
+          Requests refused (last 24 hours)
         </h2>
-        <p className="mb-2 text-sm text-ink-soft">Counted per 10 minutes and origin; the first of each is in the audit trail. The origin is as the caller sent it, cut to 200 characters.</p>
+        <p className="mb-2 text-sm text-ink-soft">
+          Writes from other sites, and cycler uploads with an unknown token. Counted per 10 minutes and origin (or address); the first of each is in
+          the audit trail. The origin is as the caller sent it, cut to 200 characters.
+        </p>
         {refused.length === 0 ? (
           <p className="text-sm text-ink-soft">None.</p>
         ) : (
           <Table>
             <TableHead>
               <HeaderCell>From</HeaderCell>
-              <HeaderCell>Origin sent</HeaderCell>
+              <HeaderCell>Why</HeaderCell>
+              <HeaderCell>Origin or address</HeaderCell>
               <HeaderCell>Last address asked for</HeaderCell>
               <HeaderCell>Refused</HeaderCell>
             </TableHead>
@@ -76,6 +80,7 @@ export default async function SignInSecurityPage() {
               {refused.map((r) => (
                 <Row key={`${r.window_start.toISOString()}|${r.origin}`} top>
                   <Cell className="tabular-nums">{formatDateTime(r.window_start)}</Cell>
+                  <Cell>{r.kind === "unknown-token" ? "unknown cycler token" : "from another site"}</Cell>
                   <Cell className="[overflow-wrap:anywhere]">{r.origin}</Cell>
                   <Cell className="[overflow-wrap:anywhere]">{r.last_path}</Cell>
                   <Cell className="tabular-nums">{r.count} {r.count === 1 ? "time" : "times"}</Cell>

@@ -1,11 +1,12 @@
 import { preload } from "react-dom";
 import { z } from "zod";
 import { ConformityTable } from "@/components/runs/results/conformity-table";
+import { EnduranceSection } from "@/components/runs/results/endurance-section";
 import { FindingGroups } from "@/components/runs/results/finding-groups";
 import { ObservationsSection } from "@/components/runs/results/observations-section";
 import { ResultsTable } from "@/components/runs/results/results-table";
 import { RetentionTable } from "@/components/runs/results/retention-table";
-import { CapacityPlot, TimePlot } from "@/components/runs/results/run-plots-lazy";
+import { CapacityPlot, CycleTrend, TimePlot } from "@/components/runs/results/run-plots-lazy";
 import { ReEvaluateButton } from "@/components/runs/results/re-evaluate-button";
 import { UncertaintySection } from "@/components/runs/results/uncertainty-section";
 import { VerdictWords } from "@/components/runs/results/verdict-words";
@@ -18,16 +19,30 @@ import { getRunSummary } from "@/db/runs";
 import { getLatestRunEvaluationHead } from "@/db/run-series";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
+import { readCycleTrend } from "@/lib/runs/read-cycle-trend";
 import { readEvaluationView } from "@/lib/runs/read-evaluation-view";
 import { formatRunSeriesUrl } from "@/lib/runs/run-series-url";
 import { loadFindingGroupAction } from "./actions";
+
+/** How often the trend asks for new cycles while log parts arrive. */
+const TREND_REFRESH_MS = 30_000;
 
 export default async function RunResultsPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageAccess("/runs/[id]/results");
   const runId = z.uuid().parse((await params).id);
   const mayEvaluate = can(user.role, "run.operate") || can(user.role, "run.review");
   // The latest evaluation's id first: its view (findings grouped, result rows) is worked out once per process.
-  const [stored, log, run] = await Promise.all([getLatestRunEvaluationHead(getDb(), runId), getCurrentRunLog(getDb(), runId), getRunSummary(getDb(), runId)]);
+  const [stored, log, run, trend] = await Promise.all([getLatestRunEvaluationHead(getDb(), runId), getCurrentRunLog(getDb(), runId), getRunSummary(getDb(), runId), readCycleTrend(runId)]);
+  // A run of many cycles (an endurance test) shows its trend first, also before it can be evaluated.
+  const trendSection =
+    trend && (trend.rows.length >= 2 || trend.stop) ? (
+      <section aria-labelledby="cycles-heading">
+        <h2 id="cycles-heading" className="mb-2 text-lg font-semibold">
+          Capacity per cycle
+        </h2>
+        <CycleTrend runId={runId} initial={trend} refreshMs={TREND_REFRESH_MS} />
+      </section>
+    ) : null;
   const view = stored ? await readEvaluationView(stored.id) : null;
   // Other versions of the same procedure the records can be judged against (marked as such).
   const otherVersions = run && mayEvaluate
@@ -39,6 +54,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   if (!stored || !view) {
     return (
       <div className="flex flex-col items-start gap-3">
+        {trendSection}
         <Notice>This run has not been evaluated yet. It is evaluated when a data log is uploaded, or when you press “Evaluate again”.</Notice>
         {action}
       </div>
@@ -53,6 +69,7 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
   }
   return (
     <div className="flex flex-col gap-8">
+      {trendSection}
       <section aria-labelledby="verdict-heading" className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <h2 id="verdict-heading" className="mb-2 text-lg font-semibold">
@@ -98,6 +115,14 @@ export default async function RunResultsPage({ params }: { params: Promise<{ id:
             Charge retention and recovery
           </h2>
           <RetentionTable retention={evaluation.retention} />
+        </section>
+      )}
+      {evaluation.endurance && (
+        <section aria-labelledby="endurance-heading">
+          <h2 id="endurance-heading" className="mb-2 text-lg font-semibold">
+            Endurance in cycles
+          </h2>
+          <EnduranceSection endurance={evaluation.endurance} />
         </section>
       )}
       {evaluation.observations && (

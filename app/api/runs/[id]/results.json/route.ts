@@ -14,6 +14,8 @@ export const GET = apiRoute("/api/runs/[id]/results.json", "GET", async (_req, {
     conformity: evaluation.conformity,
     results: listResultRows(evaluation),
     ...(evaluation.retention && { retention: evaluation.retention }),
+    // Every cycle of an endurance block (the page and the certificate show a summary).
+    ...(evaluation.endurance && { endurance: evaluation.endurance }),
     findings: [...evaluation.runFindings, ...evaluation.steps.flatMap((s) => s.findings)],
   };
   return new Response(JSON.stringify(body, null, 2), {

@@ -1,0 +1,3 @@
+"use client";
+
+export { SectionError as default } from "@/components/ui/section-error";
