@@ -96,3 +96,31 @@ test("the run list pages 25 at a time, sorts by a header and keeps the filter, a
   await expect(pager).toContainText("Page 1 of 2");
   await expect(rows.first().locator("td").last()).toHaveText("2020-01-31");
 });
+
+test("a home queue pages in place by its own address parameter", async ({ page, context, baseURL }) => {
+  await signInAsUser(context, baseURL!, FILLER.email);
+  await page.goto("/");
+  const open = page.getByTestId("open-runs-queue");
+  const rows = open.locator("tbody tr");
+  await expect(open.getByRole("heading")).toContainText(`(${RUNS})`);
+  await expect(rows).toHaveCount(25);
+  await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
+  // The returned queue beside it is empty and shows no pager of its own.
+  await expect(page.getByTestId("returned-queue")).toContainText("No run of yours has been returned.");
+  await expect(page.getByTestId("returned-queue").getByTestId("pager")).toHaveCount(0);
+
+  const firstPage = await rows.locator("td:first-child").allInnerTexts();
+  await open.getByRole("link", { name: "Next page →" }).click();
+  await expect(open.getByTestId("pager")).toContainText("Page 2 of 2");
+  await expect(rows).toHaveCount(RUNS - 25);
+  const secondPage = await rows.locator("td:first-child").allInnerTexts();
+  expect(secondPage.filter((n) => firstPage.includes(n)), "no run is on both pages").toEqual([]);
+  const url = new URL(page.url());
+  expect(url.pathname).toBe("/");
+  expect(url.searchParams.get("open-runs-queue")).toBe("2");
+  expect(url.searchParams.has("page")).toBe(false);
+
+  await open.getByRole("link", { name: "← Previous page" }).click();
+  await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
+  expect(await rows.locator("td:first-child").allInnerTexts()).toEqual(firstPage);
+});
