@@ -124,3 +124,32 @@ test("a home queue pages in place by its own address parameter", async ({ page, 
   await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
   expect(await rows.locator("td:first-child").allInnerTexts()).toEqual(firstPage);
 });
+
+test("the JSON run list answers 100 runs a page with the page, the page count and the total", async ({ page, context, baseURL }) => {
+  // 100 more planned runs of the filler operator (the clean-up above removes them with the others).
+  await asOwner((c) =>
+    c.query(
+      `insert into run (procedure_version_id, specimen_id, operator_id, resolution, cell_rating, procedure_source, created_at)
+       select r.procedure_version_id, r.specimen_id, $1, r.resolution, r.cell_rating, r.procedure_source, timestamptz '2019-01-01 09:00Z' + g * interval '1 hour'
+       from (select * from run order by created_at limit 1) r, generate_series(1, 100) g`,
+      [FILLER.id],
+    ),
+  );
+  const planned = await asOwner(async (c) => (await c.query<{ id: string }>("select id from run where status = 'planned' order by created_at desc, id")).rows.map((r) => r.id));
+  expect(planned.length).toBeGreaterThan(100);
+  await signInAsUser(context, baseURL!, FILLER.email);
+  const read = async (query: string) => {
+    const res = await page.request.get(`/api/runs?status=planned${query}`);
+    expect(res.status()).toBe(200);
+    return (await res.json()) as { page: number; pageCount: number; total: number; runs: { id: string; status: string }[] };
+  };
+  const first = await read("");
+  expect({ page: first.page, pageCount: first.pageCount, total: first.total }).toEqual({ page: 1, pageCount: Math.ceil(planned.length / 100), total: planned.length });
+  expect(first.runs.map((r) => r.id)).toEqual(planned.slice(0, 100));
+  const second = await read("&page=2");
+  expect(second.page).toBe(2);
+  expect(second.runs.map((r) => r.id)).toEqual(planned.slice(100, 200));
+  // A page past the end answers the last page; a page that is not a number answers the first.
+  expect((await read("&page=999")).page).toBe(first.pageCount);
+  expect((await read("&page=x")).runs.map((r) => r.id)).toEqual(planned.slice(0, 100));
+});
