@@ -143,6 +143,8 @@ export function RunQueue({
     { header: since, className: "whitespace-nowrap", cell: (e) => formatDateTime(e.changedAt) },
     {
       header: "Next",
+      // Wide enough that "Continue run R-00001" never breaks inside the run number (at its hyphen).
+      className: "min-w-[10rem]",
       cell: (e) => {
         const next = act(e);
         return <TextLink href={next.href}>{next.label}</TextLink>;
