@@ -43,6 +43,11 @@ function QueueSection<T>({
   );
 }
 
+/** A run's number kept on one line: a narrow column wraps the words before it, never at its hyphen. */
+function RunNumber({ number }: { number: string }) {
+  return <span className="whitespace-nowrap">{number}</span>;
+}
+
 const submittedAt = (e: { submittedAt: Date | null }) => (e.submittedAt ? formatDateTime(e.submittedAt) : "—");
 
 const RELEASE_COLUMNS: DataColumn<ReleaseQueueEntry>[] = [
@@ -93,7 +98,9 @@ const REVIEW_COLUMNS: DataColumn<ReviewQueueEntry>[] = [
       e.operatedByYou ? (
         <span className="text-ink-soft">you operated this run — another engineer reviews it</span>
       ) : (
-        <TextLink href={`/runs/${e.runId}/review`}>Review run {e.runNumber}</TextLink>
+        <TextLink href={`/runs/${e.runId}/review`}>
+          Review run <RunNumber number={e.runNumber} />
+        </TextLink>
       ),
   },
 ];
@@ -133,7 +140,8 @@ export function RunQueue({
   /** What the time column means: "Returned", "Last change", "Accepted". */
   since: string;
   showOperator?: boolean;
-  act: (e: RunQueueEntry) => { href: string; label: string };
+  /** The next thing to do: where, and its words, which the run's number follows. */
+  act: (e: RunQueueEntry) => { href: string; words: string };
 }) {
   const columns: DataColumn<RunQueueEntry>[] = [
     { header: "Run", className: "whitespace-nowrap font-mono", cell: (e) => e.runNumber },
@@ -143,11 +151,13 @@ export function RunQueue({
     { header: since, className: "whitespace-nowrap", cell: (e) => formatDateTime(e.changedAt) },
     {
       header: "Next",
-      // Wide enough that "Continue run R-00001" never breaks inside the run number (at its hyphen).
-      className: "min-w-[10rem]",
       cell: (e) => {
         const next = act(e);
-        return <TextLink href={next.href}>{next.label}</TextLink>;
+        return (
+          <TextLink href={next.href}>
+            {next.words} <RunNumber number={e.runNumber} />
+          </TextLink>
+        );
       },
     },
   ];

@@ -39,7 +39,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           page={returned}
           kept={kept}
           since="Returned"
-          act={(e) => ({ href: `/runs/${e.runId}`, label: `Read the comments and correct run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}`, words: "Read the comments and correct run" })}
         />
       )}
       {open && (
@@ -50,7 +50,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           page={open}
           kept={kept}
           since="Last change"
-          act={(e) => ({ href: `/runs/${e.runId}`, label: `Continue run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}`, words: "Continue run" })}
         />
       )}
       {release && <ReleaseQueue page={release} kept={kept} />}
@@ -64,7 +64,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
           kept={kept}
           since="Accepted"
           showOperator
-          act={(e) => ({ href: `/runs/${e.runId}/review`, label: `Issue the certificate of run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}/review`, words: "Issue the certificate of run" })}
         />
       )}
       <section aria-labelledby="job" className="rounded border border-rule bg-white p-5">
