@@ -37,7 +37,7 @@ function QueueSection<T>({
       {page.total === 0 ? (
         <p className="text-sm text-ink-soft">{empty}</p>
       ) : (
-        <DataTable rows={page.rows} rowKey={rowKey} columns={columns} path="/" kept={kept} page={page} pageParam={id} empty={empty} noun={noun} />
+        <DataTable rows={page.rows} rowKey={rowKey} columns={columns} path="/" kept={kept} page={page} pageParam={id} pagerLabel={`Pages of ${title.toLowerCase()}`} empty={empty} noun={noun} />
       )}
     </section>
   );

@@ -105,6 +105,8 @@ test("a home queue pages in place by its own address parameter", async ({ page, 
   await expect(open.getByRole("heading")).toContainText(`(${RUNS})`);
   await expect(rows).toHaveCount(25);
   await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
+  // Each queue's pager has a name of its own for a screen reader, not one "Pages" landmark per queue.
+  await expect(open.getByRole("navigation", { name: "Pages of your runs in progress" })).toBeVisible();
   // The returned queue beside it is empty and shows no pager of its own.
   await expect(page.getByTestId("returned-queue")).toContainText("No run of yours has been returned.");
   await expect(page.getByTestId("returned-queue").getByTestId("pager")).toHaveCount(0);
