@@ -1,8 +1,9 @@
 import "server-only";
 import type { Executor } from "./index";
+import { readPage, type Page } from "./paginate";
 import type { RunStatus } from "./schema";
 
-// What waits for whom: the home page's queues. Each list is short and the longest-waiting comes first.
+// What waits for whom: the home page's queues, a page at a time, the longest-waiting first.
 
 export interface ReleaseQueueEntry {
   procedureId: string;
@@ -14,8 +15,12 @@ export interface ReleaseQueueEntry {
 }
 
 /** Procedure versions in review that this engineer may release: not written or submitted by them. */
-export async function listProceduresAwaitingRelease(db: Executor, userId: string): Promise<ReleaseQueueEntry[]> {
-  const rows = await db
+export async function listProceduresAwaitingRelease(
+  db: Executor,
+  userId: string,
+  request: { page: number; pageSize: number },
+): Promise<Page<ReleaseQueueEntry>> {
+  const query = db
     .selectFrom("procedure_version as v")
     .innerJoin("procedure as p", "p.id", "v.procedure_id")
     .leftJoin("app_user as s", "s.id", "v.submitted_by")
@@ -24,9 +29,8 @@ export async function listProceduresAwaitingRelease(db: Executor, userId: string
     .where("v.author_id", "<>", userId)
     .where((eb) => eb.or([eb("v.submitted_by", "is", null), eb("v.submitted_by", "<>", userId)]))
     .orderBy("v.submitted_at")
-    .limit(100)
-    .execute();
-  return rows.map((r) => ({
+    .orderBy("v.id");
+  return readPage(db, query, request, (r) => ({
     procedureId: r.procedure_id,
     number: r.number,
     code: r.code,
@@ -48,14 +52,14 @@ export interface RunQueueEntry {
 }
 
 /**
- * Runs in some states, oldest change first: an operator's own (operatorId), those someone other than
- * their operator may act on (notOperatedBy, e.g. accepted runs waiting for a certificate), or every run
- * of one specimen (specimenId).
+ * Runs in some states, oldest change first: an operator's own (operatorId), or those someone other than
+ * their operator may act on (notOperatedBy, e.g. accepted runs waiting for a certificate).
  */
 export async function listRunsInStates(
   db: Executor,
-  filter: { statuses?: readonly RunStatus[]; operatorId?: string; notOperatedBy?: string; specimenId?: string },
-): Promise<RunQueueEntry[]> {
+  filter: { statuses: readonly RunStatus[]; operatorId?: string; notOperatedBy?: string },
+  request: { page: number; pageSize: number },
+): Promise<Page<RunQueueEntry>> {
   let q = db
     .selectFrom("run as r")
     .innerJoin("specimen as s", "s.id", "r.specimen_id")
@@ -65,13 +69,10 @@ export async function listRunsInStates(
     .select(["r.id", "r.number", "r.status", "r.updated_at", "s.identifier", "p.code", "v.number as version_number", "v.title", "o.display_name"])
     .orderBy("r.updated_at")
     .orderBy("r.number")
-    .limit(100);
-  if (filter.statuses) q = q.where("r.status", "in", [...filter.statuses]);
-  if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
+    .where("r.status", "in", [...filter.statuses]);
   if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
   if (filter.notOperatedBy) q = q.where("r.operator_id", "<>", filter.notOperatedBy);
-  const rows = await q.execute();
-  return rows.map((r) => ({
+  return readPage(db, q, request, (r) => ({
     runId: r.id,
     runNumber: r.number,
     status: r.status,

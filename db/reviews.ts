@@ -1,43 +1,33 @@
 import "server-only";
 import { sql } from "kysely";
 import type { SignatureManifestation } from "@/lib/signatures/sign-record";
-import { parseStoredEvaluation } from "@/lib/conformance/stored-evaluation";
 import type { Executor } from "./index";
+import { readPage, type Page } from "./paginate";
 import type { ReviewDecision, RunStatus } from "./schema";
 
-/** A reviewer's note on one deviating finding, with the finding's title from the evaluation reviewed. */
-export interface AcknowledgedDeviation {
+/** A reviewer's note on one deviating finding, as stored. */
+export interface DeviationNote {
   findingId: string;
   note: string;
-  /** The finding's step and check ("Rest after charge: Ambient temperature within its range"), or null if unknown. */
-  findingTitle: string | null;
 }
 
-export interface RunReviewView {
+/** One review as stored; lib/reviews/run-reviews.ts titles its notes from the evaluation reviewed. */
+export interface RunReviewRecord {
   id: string;
   decision: ReviewDecision;
   comments: string;
   reviewer: { id: string; name: string };
   createdAt: Date;
   runEvaluationId: string | null;
-  acknowledgedDeviations: AcknowledgedDeviation[];
+  deviationNotes: DeviationNote[];
+  /** The stored evaluation reviewed (unparsed), only when there are notes to title; else null. */
+  evaluationForNotes: unknown;
   /** The reviewer's signature (accepted reviews only). */
   signature: SignatureManifestation | null;
 }
 
-/** "Step label: check" by finding id, from a stored evaluation. */
-function findingTitles(stored: unknown): Map<string, string> {
-  if (stored === null || stored === undefined) return new Map();
-  const e = parseStoredEvaluation(stored);
-  const titles = new Map<string, string>(e.runFindings.map((f) => [f.id, `The run as a whole: ${f.title}`]));
-  for (const step of e.steps) {
-    for (const f of step.findings) titles.set(f.id, `${step.label}${step.cycle > 1 ? ` (cycle ${step.cycle})` : ""}: ${f.title}`);
-  }
-  return titles;
-}
-
 /** Every review of a run, oldest first: returns with their comments, the acceptance with its signature. */
-export async function listRunReviews(db: Executor, runId: string): Promise<RunReviewView[]> {
+export async function listRunReviewRecords(db: Executor, runId: string): Promise<RunReviewRecord[]> {
   const rows = await db
     .selectFrom("run_review as rr")
     .innerJoin("app_user as u", "u.id", "rr.reviewer_id")
@@ -64,9 +54,8 @@ export async function listRunReviews(db: Executor, runId: string): Promise<RunRe
     .orderBy("rr.id")
     .execute();
   return rows.map((r) => {
-    const titles = findingTitles(r.evaluation);
     // Written only by lib/reviews/accept-run.ts from checked input.
-    const notes = (r.acknowledged_deviations as { findingId: string; note: string }[]) ?? [];
+    const notes = (r.acknowledged_deviations as DeviationNote[]) ?? [];
     return {
       id: r.id,
       decision: r.decision,
@@ -74,25 +63,14 @@ export async function listRunReviews(db: Executor, runId: string): Promise<RunRe
       reviewer: { id: r.reviewer_id, name: r.reviewer_name },
       createdAt: r.created_at,
       runEvaluationId: r.run_evaluation_id,
-      acknowledgedDeviations: notes.map((n) => ({ ...n, findingTitle: titles.get(n.findingId) ?? null })),
+      deviationNotes: notes,
+      evaluationForNotes: r.evaluation ?? null,
       signature:
         r.signature_id && r.printed_name && r.meaning && r.signed_at
           ? { id: r.signature_id, printedName: r.printed_name, meaning: r.meaning, signedAt: r.signed_at }
           : null,
     };
   });
-}
-
-/** The run's latest review, or null: what the step sheet shows a returned run's operator. */
-export async function getLatestRunReview(db: Executor, runId: string): Promise<RunReviewView | null> {
-  const all = await listRunReviews(db, runId);
-  return all.at(-1) ?? null;
-}
-
-/** The review that accepted the run (at most one: the run leaves "submitted" when accepted). */
-export async function getRunAcceptance(db: Executor, runId: string): Promise<RunReviewView | null> {
-  const all = await listRunReviews(db, runId);
-  return all.findLast((r) => r.decision === "accepted") ?? null;
 }
 
 /**
@@ -140,8 +118,8 @@ export interface ReviewQueueEntry {
 }
 
 /** Runs waiting for review, the longest-waiting first, marked where the asking user operated them. */
-export async function listReviewQueue(db: Executor, userId: string): Promise<ReviewQueueEntry[]> {
-  const rows = await db
+export async function listReviewQueue(db: Executor, userId: string, request: { page: number; pageSize: number }): Promise<Page<ReviewQueueEntry>> {
+  const query = db
     .selectFrom("run as r")
     .innerJoin("specimen as s", "s.id", "r.specimen_id")
     .innerJoin("procedure_version as v", "v.id", "r.procedure_version_id")
@@ -150,10 +128,8 @@ export async function listReviewQueue(db: Executor, userId: string): Promise<Rev
     .select(["r.id", "r.number", "r.status", "r.submitted_at", "r.operator_id", "s.identifier", "p.code", "v.number as version_number", "v.title", "o.display_name"])
     .where("r.status", "=", "submitted")
     .orderBy("r.submitted_at")
-    .orderBy("r.number")
-    .limit(200)
-    .execute();
-  return rows.map((r) => ({
+    .orderBy("r.number");
+  return readPage(db, query, request, (r) => ({
     runId: r.id,
     runNumber: r.number,
     status: r.status,

@@ -110,17 +110,6 @@ export async function getRunSummary(db: Executor, id: string): Promise<RunSummar
   return r ? toSummary(r) : null;
 }
 
-export async function listRuns(
-  db: Executor,
-  filter: { status?: RunStatus; specimenId?: string; operatorId?: string; limit?: number } = {},
-): Promise<RunSummary[]> {
-  let q = runSummaryQuery(db).orderBy("r.created_at", "desc").limit(filter.limit ?? 200);
-  if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
-  if (filter.status) q = q.where("r.status", "=", filter.status);
-  if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
-  return (await q.execute()).map(toSummary);
-}
-
 /** The columns the run list sorts by, and the column each stands for. */
 export const RUN_SORTS = ["number", "procedure", "specimen", "operator", "status", "planned"] as const;
 export type RunSort = (typeof RUN_SORTS)[number];
@@ -136,13 +125,14 @@ const RUN_SORT_COLUMNS = {
 /** One page of the run list, sorted in SQL; ties fall back to the newest first, then the id. */
 export async function listRunsPage(
   db: Executor,
-  filter: { status?: RunStatus; operatorId?: string },
+  filter: { status?: RunStatus; operatorId?: string; specimenId?: string },
   list: { page: number; pageSize: number; sort: RunSort; direction: SortDirection },
-): Promise<Page<RunView>> {
-  let q = runQuery(db).orderBy(RUN_SORT_COLUMNS[list.sort], list.direction).orderBy("r.created_at", "desc").orderBy("r.id");
+): Promise<Page<RunSummary>> {
+  let q = runSummaryQuery(db).orderBy(RUN_SORT_COLUMNS[list.sort], list.direction).orderBy("r.created_at", "desc").orderBy("r.id");
   if (filter.operatorId) q = q.where("r.operator_id", "=", filter.operatorId);
   if (filter.status) q = q.where("r.status", "=", filter.status);
-  return readPage(db, q, list, toView);
+  if (filter.specimenId) q = q.where("r.specimen_id", "=", filter.specimenId);
+  return readPage(db, q, list, toSummary);
 }
 
 export async function insertRun(

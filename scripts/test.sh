@@ -59,7 +59,8 @@ npx next build >test-reports/next-build.log 2>&1 || { tail -50 test-reports/next
 # Uploaded logs are read by the worker, as in production; it stops with the test cluster (db.sh stop test).
 trap 'stop_worker e2e >/dev/null 2>&1 || true; bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true' EXIT
 start_worker e2e "$E2E_DATABASE_URL"
-PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json
+# CW_E2E_SPECS names spec files to run alone (e.g. "tests/e2e/home-queues.spec.ts"); CI runs them all.
+PLAYWRIGHT_JSON_OUTPUT_NAME=test-reports/playwright.json npx playwright test --reporter=list,json ${CW_E2E_SPECS:-}
 
 node scripts/test-summary.mjs test-reports/vitest-unit.json test-reports/vitest-integration.json test-reports/playwright.json
 echo "npm test took $(( $(date +%s) - started )) s"

@@ -5,21 +5,28 @@ import { listProceduresAwaitingRelease, listRunsInStates } from "@/db/queues";
 import { listReviewQueue } from "@/db/reviews";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can, ROLE_LABELS } from "@/lib/auth/permissions";
-import { ReleaseQueue, RunQueue } from "./home-queues";
-import { ReviewQueue } from "./review-queue";
+import { keptParams, PAGE_SIZE, parsePageNumber, type RawSearchParams } from "@/lib/lists/list-params";
+import { ReleaseQueue, ReviewQueue, RunQueue } from "./home-queues";
 import { ROLE_OVERVIEW } from "./role-overview";
 
-/** Home: what waits for you, queue by queue for your role, then your part in the lab. */
-export default async function HomePage() {
+/**
+ * Home: what waits for you, queue by queue for your role, then your part in the lab. Each queue pages in
+ * place by its own parameter (named after its section): a queue is defined by who is asking (not your own
+ * runs to certify, not your own versions to release), which no filter of the full lists expresses.
+ */
+export default async function HomePage({ searchParams }: { searchParams: Promise<RawSearchParams> }) {
   const user = await requirePageAccess("/");
   const overview = ROLE_OVERVIEW[user.role];
   const db = getDb();
+  const raw = await searchParams;
+  const kept = keptParams(raw);
+  const pageOf = (queue: string) => ({ page: parsePageNumber(raw, queue), pageSize: PAGE_SIZE });
   const [release, review, toCertify, returned, open] = await Promise.all([
-    can(user.role, "procedure.release") ? listProceduresAwaitingRelease(db, user.id) : null,
-    can(user.role, "run.review") ? listReviewQueue(db, user.id) : null,
-    can(user.role, "certificate.sign") ? listRunsInStates(db, { statuses: ["accepted"], notOperatedBy: user.id }) : null,
-    can(user.role, "run.operate") ? listRunsInStates(db, { statuses: ["returned"], operatorId: user.id }) : null,
-    can(user.role, "run.operate") ? listRunsInStates(db, { statuses: ["planned", "in_progress"], operatorId: user.id }) : null,
+    can(user.role, "procedure.release") ? listProceduresAwaitingRelease(db, user.id, pageOf("release-queue")) : null,
+    can(user.role, "run.review") ? listReviewQueue(db, user.id, pageOf("review-queue")) : null,
+    can(user.role, "certificate.sign") ? listRunsInStates(db, { statuses: ["accepted"], notOperatedBy: user.id }, pageOf("certify-queue")) : null,
+    can(user.role, "run.operate") ? listRunsInStates(db, { statuses: ["returned"], operatorId: user.id }, pageOf("returned-queue")) : null,
+    can(user.role, "run.operate") ? listRunsInStates(db, { statuses: ["planned", "in_progress"], operatorId: user.id }, pageOf("open-runs-queue")) : null,
   ]);
   return (
     <>
@@ -29,9 +36,10 @@ export default async function HomePage() {
           id="returned-queue"
           title="Your runs returned with comments"
           empty="No run of yours has been returned."
-          entries={returned}
+          page={returned}
+          kept={kept}
           since="Returned"
-          act={(e) => ({ href: `/runs/${e.runId}`, label: `Read the comments and correct run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}`, words: "Read the comments and correct run" })}
         />
       )}
       {open && (
@@ -39,22 +47,24 @@ export default async function HomePage() {
           id="open-runs-queue"
           title="Your runs in progress"
           empty="You have no run planned or in progress."
-          entries={open}
+          page={open}
+          kept={kept}
           since="Last change"
-          act={(e) => ({ href: `/runs/${e.runId}`, label: `Continue run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}`, words: "Continue run" })}
         />
       )}
-      {release && <ReleaseQueue entries={release} />}
-      {review && <ReviewQueue entries={review} />}
+      {release && <ReleaseQueue page={release} kept={kept} />}
+      {review && <ReviewQueue page={review} kept={kept} />}
       {toCertify && (
         <RunQueue
           id="certify-queue"
           title="Certificates to issue"
           empty="No accepted run waits for its certificate."
-          entries={toCertify}
+          page={toCertify}
+          kept={kept}
           since="Accepted"
           showOperator
-          act={(e) => ({ href: `/runs/${e.runId}/review`, label: `Issue the certificate of run ${e.runNumber}` })}
+          act={(e) => ({ href: `/runs/${e.runId}/review`, words: "Issue the certificate of run" })}
         />
       )}
       <section aria-labelledby="job" className="rounded border border-rule bg-white p-5">

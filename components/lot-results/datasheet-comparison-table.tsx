@@ -1,5 +1,5 @@
 import { Notice } from "@/components/ui/notice";
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, RowHeaderCell, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { ClaimVerdict, DatasheetComparison } from "@/lib/analysis/datasheet-comparison";
 
@@ -19,9 +19,9 @@ export function DatasheetComparisonTable({ comparison }: { comparison: AnalysisR
       <Table data-testid="datasheet-comparison" className="min-w-[40rem]">
         <TableHead>
           {["Datasheet claim", "Claimed", "Measured", "Verdict", "Why"].map((h) => (
-            <th key={h} scope="col" className="px-2 py-1">
+            <HeaderCell key={h} dense>
               {h}
-            </th>
+            </HeaderCell>
           ))}
         </TableHead>
         <tbody>
@@ -29,20 +29,20 @@ export function DatasheetComparisonTable({ comparison }: { comparison: AnalysisR
             const v = VERDICT[line.verdict];
             return (
               <Row key={line.key} top>
-                <th scope="row" className="px-2 py-1 text-left font-normal">
+                <RowHeaderCell dense>
                   {line.claim[0]?.toUpperCase()}
                   {line.claim.slice(1)}
-                </th>
-                <td className="w-36 px-2 py-1">
+                </RowHeaderCell>
+                <Cell dense className="w-36">
                   <span className="whitespace-nowrap">{line.claimed.text}</span>
                   {line.claimOrigin === "derived" && <span className="block text-xs text-ink-soft">derived: {line.claimNote}</span>}
-                </td>
-                <td className="w-48 px-2 py-1">{line.measured?.text ?? "nothing on record"}</td>
-                <td className={`px-2 py-1 whitespace-nowrap font-medium ${v.tone}`}>
+                </Cell>
+                <Cell dense className="w-48">{line.measured?.text ?? "nothing on record"}</Cell>
+                <Cell dense className={`whitespace-nowrap font-medium ${v.tone}`}>
                   <span aria-hidden="true">{v.mark} </span>
                   {line.verdict}
-                </td>
-                <td className="px-2 py-1">{line.basis}</td>
+                </Cell>
+                <Cell dense>{line.basis}</Cell>
               </Row>
             );
           })}

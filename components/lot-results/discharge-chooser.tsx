@@ -1,4 +1,4 @@
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { TextLink } from "@/components/ui/text-link";
 import type { CellSpecificationView } from "@/db/cell-specifications";
 import type { DischargeResultRow } from "@/db/discharge-results";
@@ -100,9 +100,9 @@ export function DischargeChooser({
             </caption>
             <TableHead>
               {["Overlay", "Run", "Specimen", "Lot", "Step", "Current", "Capacity (mAh)"].map((h) => (
-                <th key={h} scope="col" className="px-2 py-1">
+                <HeaderCell key={h} dense>
                   {h}
-                </th>
+                </HeaderCell>
               ))}
             </TableHead>
             <tbody>
@@ -111,23 +111,23 @@ export function DischargeChooser({
                 const id = `d-${key}`;
                 return (
                   <Row key={key}>
-                    <td className="px-2 py-1">
+                    <Cell dense>
                       <input id={id} type="checkbox" name="d" value={key} defaultChecked={chosen.has(key)} className="h-4 w-4 accent-copper" />
-                    </td>
-                    <td className="px-2 py-1 whitespace-nowrap">
+                    </Cell>
+                    <Cell dense className="whitespace-nowrap">
                       <label htmlFor={id}>{r.runNumber}</label>
-                    </td>
-                    <td className="px-2 py-1 whitespace-nowrap">{r.specimenIdentifier}</td>
-                    <td className="px-2 py-1 whitespace-nowrap">{r.lotIdentifier ?? "none"}</td>
-                    <td className="px-2 py-1">
+                    </Cell>
+                    <Cell dense className="whitespace-nowrap">{r.specimenIdentifier}</Cell>
+                    <Cell dense className="whitespace-nowrap">{r.lotIdentifier ?? "none"}</Cell>
+                    <Cell dense>
                       {r.stepLabel}
                       {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
-                    </td>
-                    <td className="px-2 py-1 whitespace-nowrap">
+                    </Cell>
+                    <Cell dense className="whitespace-nowrap">
                       {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
                       {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) ? " ⚠ above the rating" : ""}
-                    </td>
-                    <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
+                    </Cell>
+                    <Cell dense className="text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</Cell>
                   </Row>
                 );
               })}

@@ -1,4 +1,4 @@
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { PlainLink } from "@/components/ui/text-link";
 import type { DischargeResultRow } from "@/db/discharge-results";
 import { computeMultipleOfIt, formatDischargeKey } from "@/lib/lots/results/compare-selection";
@@ -21,9 +21,9 @@ export function OverlayLegend({ rows, styles }: { rows: DischargeResultRow[]; st
       <caption className="mb-1 text-left font-semibold">Legend</caption>
       <TableHead>
         {["Curve", "Run", "Specimen", "Cell", "Current", "Capacity (mAh)", "Energy (Wh)", "Mean voltage (V)"].map((h) => (
-          <th key={h} scope="col" className="px-2 py-1">
+          <HeaderCell key={h} dense>
             {h}
-          </th>
+          </HeaderCell>
         ))}
       </TableHead>
       <tbody>
@@ -32,10 +32,10 @@ export function OverlayLegend({ rows, styles }: { rows: DischargeResultRow[]; st
           const style = styles[key]!;
           return (
             <Row key={key}>
-              <td className="px-2 py-1 whitespace-nowrap">
+              <Cell dense className="whitespace-nowrap">
                 <Swatch style={style} /> <span className="text-xs text-ink-soft">{style.pattern}</span>
-              </td>
-              <td className="px-2 py-1">
+              </Cell>
+              <Cell dense>
                 <PlainLink href={`/runs/${r.runId}/results`}>
                   {r.runNumber}
                 </PlainLink>
@@ -43,16 +43,16 @@ export function OverlayLegend({ rows, styles }: { rows: DischargeResultRow[]; st
                   {r.procedureCode}: {r.stepLabel}
                   {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
                 </span>
-              </td>
-              <td className="px-2 py-1">{r.specimenIdentifier}</td>
-              <td className="px-2 py-1">{r.specificationName}</td>
-              <td className="px-2 py-1 whitespace-nowrap">
+              </Cell>
+              <Cell dense>{r.specimenIdentifier}</Cell>
+              <Cell dense>{r.specificationName}</Cell>
+              <Cell dense className="whitespace-nowrap">
                 {formatNumber(computeMultipleOfIt(r), { maxDecimals: 3 })} It ({formatNumber(r.currentA, { minDecimals: 3, maxDecimals: 3 })} A)
                 {isAboveRating(r, r.rating.maxContinuousDischargeCurrentA) && <span className="block text-xs text-deviates">⚠ above the rating</span>}
-              </td>
-              <td className="px-2 py-1 text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</td>
-              <td className="px-2 py-1 text-right">{formatNumber(r.energyWh, { minDecimals: 2, maxDecimals: 2 })}</td>
-              <td className="px-2 py-1 text-right">{formatNumber(r.meanVoltageV, { minDecimals: 3, maxDecimals: 3 })}</td>
+              </Cell>
+              <Cell dense className="text-right">{formatNumber(r.capacityAh * 1000, { maxDecimals: 0 })}</Cell>
+              <Cell dense className="text-right">{formatNumber(r.energyWh, { minDecimals: 2, maxDecimals: 2 })}</Cell>
+              <Cell dense className="text-right">{formatNumber(r.meanVoltageV, { minDecimals: 3, maxDecimals: 3 })}</Cell>
             </Row>
           );
         })}

@@ -1,6 +1,6 @@
 import { Fragment } from "react";
 import { Notice } from "@/components/ui/notice";
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { RateCapabilityTable } from "@/lib/analysis/rate-capability";
 import { formatNumber } from "@/protocols";
@@ -27,28 +27,28 @@ export function RateCapabilityTableView({ table, emptyWords }: { table: Analysis
         <caption className="sr-only">Rate capability, It = {fmt(itA, 3)} A</caption>
         <TableHead>
           {["Current (A)", "× It", "Results", "Capacity (mAh)", "% of 0.2 It", "% of rated", "Energy (Wh)", "% of 0.2 It energy", "Mean voltage (V)", "Rating"].map((h) => (
-            <th key={h} scope="col" className={`px-2 py-1 ${h === "Rating" ? "" : "text-right"}`}>
+            <HeaderCell key={h} dense className={h === "Rating" ? "" : "text-right"}>
               {h}
-            </th>
+            </HeaderCell>
           ))}
         </TableHead>
         <tbody>
           {rows.map((r) => (
             <Fragment key={r.currentA}>
               <tr className={`${r.aboveRating ? "" : "border-b"} border-rule ${r.isReference ? "bg-paper-deep" : ""}`}>
-                <td className="px-2 py-1 text-right">{fmt(r.currentA, 3)}</td>
-                <td className="px-2 py-1 text-right">
+                <Cell dense className="text-right">{fmt(r.currentA, 3)}</Cell>
+                <Cell dense className="text-right">
                   {formatNumber(r.multipleOfIt, { maxDecimals: 3 })}
                   {r.isReference ? " (reference)" : ""}
-                </td>
-                <td className="px-2 py-1 text-right">{r.count}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.capacityMAh, 0)}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfReference, 1)}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.capacityPercentOfRated, 1)}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.energyWh, 2)}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.energyPercentOfReference, 1)}</td>
-                <td className="px-2 py-1 text-right">{fmt(r.meanVoltageV, 3)}</td>
-                <td className={`px-2 py-1 ${r.aboveRating ? "font-medium text-deviates" : ""}`}>
+                </Cell>
+                <Cell dense className="text-right">{r.count}</Cell>
+                <Cell dense className="text-right">{fmt(r.capacityMAh, 0)}</Cell>
+                <Cell dense className="text-right">{fmt(r.capacityPercentOfReference, 1)}</Cell>
+                <Cell dense className="text-right">{fmt(r.capacityPercentOfRated, 1)}</Cell>
+                <Cell dense className="text-right">{fmt(r.energyWh, 2)}</Cell>
+                <Cell dense className="text-right">{fmt(r.energyPercentOfReference, 1)}</Cell>
+                <Cell dense className="text-right">{fmt(r.meanVoltageV, 3)}</Cell>
+                <Cell dense className={r.aboveRating ? "font-medium text-deviates" : ""}>
                   {r.aboveRating ? (
                     <span data-testid="above-rating">
                       <span aria-hidden="true">⚠ </span>above the rating
@@ -56,7 +56,7 @@ export function RateCapabilityTableView({ table, emptyWords }: { table: Analysis
                   ) : (
                     "within"
                   )}
-                </td>
+                </Cell>
               </tr>
               {r.aboveRating && (
                 <Row>

@@ -1,5 +1,5 @@
 import { Notice } from "@/components/ui/notice";
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, RowHeaderCell, Table, TableHead } from "@/components/ui/table";
 import type { AnalysisResult } from "@/lib/analysis/analysis-result";
 import type { CurrentSummary, StatisticsSummary } from "@/lib/lots/results/summarise-results";
 import { cplFormula, cplSource, type ResultsDescription } from "@/lib/statistics";
@@ -32,28 +32,28 @@ function QuantityRow({ label, result, decimals }: { label: string; result: Analy
   if (!result.ok) {
     return (
       <Row>
-        <th scope="row" className="px-2 py-1 text-left font-normal">
+        <RowHeaderCell dense>
           {label}
-        </th>
-        <td colSpan={7} className="px-2 py-1 text-ink-soft">
+        </RowHeaderCell>
+        <Cell colSpan={7} dense className="text-ink-soft">
           {result.error.message}
-        </td>
+        </Cell>
       </Row>
     );
   }
   const d = result.value;
   return (
     <Row>
-      <th scope="row" className="px-2 py-1 text-left font-normal">
+      <RowHeaderCell dense>
         {label}
-      </th>
-      <td className="px-2 py-1 text-right">{d.count}</td>
-      <td className="px-2 py-1 text-right">{fmt(d.mean, decimals)}</td>
-      <td className="px-2 py-1 text-right">{fmt(d.standardDeviation, decimals + 1)}</td>
-      <td className="px-2 py-1 text-right">{fmt(d.min, decimals)}</td>
-      <td className="px-2 py-1 text-right">{fmt(d.max, decimals)}</td>
-      <td className="px-2 py-1">{describeShare(d, decimals)}</td>
-      <td className="px-2 py-1">{describeCapability(d)}</td>
+      </RowHeaderCell>
+      <Cell dense className="text-right">{d.count}</Cell>
+      <Cell dense className="text-right">{fmt(d.mean, decimals)}</Cell>
+      <Cell dense className="text-right">{fmt(d.standardDeviation, decimals + 1)}</Cell>
+      <Cell dense className="text-right">{fmt(d.min, decimals)}</Cell>
+      <Cell dense className="text-right">{fmt(d.max, decimals)}</Cell>
+      <Cell dense>{describeShare(d, decimals)}</Cell>
+      <Cell dense>{describeCapability(d)}</Cell>
     </Row>
   );
 }
@@ -88,9 +88,9 @@ function CurrentSection({ group, summary }: { group: CurrentSummary; summary: St
       <Table data-testid="statistics-table" className="min-w-[44rem]">
         <TableHead>
           {["Quantity", "n", "Mean", "s", "Min", "Max", "At or above rated", "Cpl against the minimum"].map((h) => (
-            <th key={h} scope="col" className={`px-2 py-1 ${["n", "Mean", "s", "Min", "Max"].includes(h) ? "text-right" : ""}`}>
+            <HeaderCell key={h} dense className={["n", "Mean", "s", "Min", "Max"].includes(h) ? "text-right" : ""}>
               {h}
-            </th>
+            </HeaderCell>
           ))}
         </TableHead>
         <tbody>

@@ -6,10 +6,11 @@ import { Button } from "@/components/ui/button";
 import { acceptanceCriterionKinds, type AcceptanceCriterionKind } from "@/protocols";
 import { createCriterion, type CriterionValue, type StepValue } from "./draft-values";
 import { fieldId } from "./field-paths";
-import { inputClass, PathErrors } from "./field-shell";
+import { PathErrors } from "./field-shell";
 import { CRITERION_WORDS, CriterionCard } from "./criterion-card";
 import { DecisionRuleField } from "./decision-rule-field";
 import { useDraftValue, usePathErrors, useRevalidate } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const PATH = "definition.acceptance";
 
@@ -55,17 +56,15 @@ export function AcceptanceEditor() {
         );
       })}
       <div className="flex flex-wrap items-end gap-2 rounded border border-dashed border-rule p-3">
-        <div className="flex min-w-0 flex-col gap-1">
-          <label htmlFor="new-criterion-kind" className="text-sm font-medium">
-            Kind of the new criterion
-          </label>
-          <select id="new-criterion-kind" value={newKind} onChange={(e) => setNewKind(e.target.value as AcceptanceCriterionKind)} className={inputClass}>
-            {acceptanceCriterionKinds.map((kind) => (
-              <option key={kind} value={kind}>
-                {CRITERION_WORDS[kind]}
-              </option>
-            ))}
-          </select>
+        <div className="min-w-0">
+          <SelectField
+            id="new-criterion-kind"
+            label="Kind of the new criterion"
+            value={newKind}
+            onChange={(e) => setNewKind(e.target.value as AcceptanceCriterionKind)}
+            className="w-full"
+            options={acceptanceCriterionKinds.map((kind) => ({ value: kind, label: CRITERION_WORDS[kind] }))}
+          />
         </div>
         <Button
           type="button"

@@ -1,13 +1,11 @@
 "use client";
 
+import { ChargeEndChoice, useChargeTermination } from "./charge-end-choice";
 import { createDuration } from "./draft-values";
 import { DurationInput } from "./duration-input";
-import { fieldId } from "./field-paths";
-import { inputClass } from "./field-shell";
 import { NumberInput } from "./number-input";
 import { OptionalPart } from "./optional-part";
 import { QuantityReferenceInput } from "./quantity-reference-input";
-import { useDraftValue, useUpdateDraft } from "./use-draft-field";
 
 function Part({ title, children }: { title: string; children: React.ReactNode }) {
   return (
@@ -34,36 +32,14 @@ function RestSpan({ path, words }: { path: string; words: string }) {
  * stop and acceptance shares of the rated capacity. The operator records the block once; the log carries the cycles.
  */
 export function CycleBlockFields({ path }: { path: string }) {
-  const termination = useDraftValue<{ kind?: string } | undefined>(`${path}.charge.termination`);
-  const update = useUpdateDraft();
-  const endsId = fieldId(`${path}.charge.termination.kind`);
+  const termination = useChargeTermination(`${path}.charge.termination`);
   return (
     <div className="flex flex-col gap-4">
       <Part title="Charge of each cycle (CC-CV)">
         <QuantityReferenceInput path={`${path}.charge.current`} label="Charge current" quantity="current" />
         <QuantityReferenceInput path={`${path}.charge.voltage`} label="Charge voltage" quantity="voltage" />
-        <div className="flex flex-col gap-1 sm:w-72">
-          <label htmlFor={endsId} className="text-sm font-medium">
-            The charge ends
-          </label>
-          <select
-            id={endsId}
-            value={termination?.kind ?? "current"}
-            onChange={(e) =>
-              update(
-                `${path}.charge.termination`,
-                e.target.value === "time"
-                  ? { kind: "time", duration: createDuration("h") }
-                  : { kind: "current", current: { spec: "chargeTerminationCurrent" } },
-              )
-            }
-            className={inputClass}
-          >
-            <option value="current">when the current falls to a limit</option>
-            <option value="time">after a set time</option>
-          </select>
-        </div>
-        {termination?.kind === "time" ? (
+        <ChargeEndChoice path={`${path}.charge.termination`} />
+        {termination === "time" ? (
           <DurationInput path={`${path}.charge.termination.duration`} label="Charge time" />
         ) : (
           <QuantityReferenceInput path={`${path}.charge.termination.current`} label="Termination current" quantity="current" />

@@ -2,10 +2,10 @@
 
 import { frequencyUnits, type MeasurementQuantity } from "@/protocols";
 import { fieldId } from "./field-paths";
-import { inputClass } from "./field-shell";
 import { NumberInput } from "./number-input";
 import { SelectInput } from "./select-input";
 import { useDraftValue, useUpdateDraft } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const QUANTITIES: { value: MeasurementQuantity; label: string }[] = [
   { value: "openCircuitVoltage", label: "open-circuit voltage" },
@@ -21,25 +21,18 @@ export function MeasureFields({ path }: { path: string }) {
   const id = fieldId(`${path}.measurement.quantity`);
   return (
     <div className="grid gap-4 lg:grid-cols-2">
-      <div className="flex flex-col gap-1 sm:w-72">
-        <label htmlFor={id} className="text-sm font-medium">
-          Measure
-        </label>
-        <select
+      <div className="sm:w-72">
+        <SelectField
           id={id}
+          label="Measure"
           value={measurement?.quantity ?? "openCircuitVoltage"}
           onChange={(e) => {
             const quantity = e.target.value;
             update(`${path}.measurement`, quantity === "acResistance" ? { quantity, frequency: { value: undefined, unit: "kHz" } } : { quantity });
           }}
-          className={inputClass}
-        >
-          {QUANTITIES.map((q) => (
-            <option key={q.value} value={q.value}>
-              {q.label}
-            </option>
-          ))}
-        </select>
+          className="w-full"
+          options={QUANTITIES}
+        />
       </div>
       {measurement?.quantity === "acResistance" && (
         <fieldset className="grid grid-cols-[minmax(0,1fr)_5.5rem] gap-2 sm:w-80">

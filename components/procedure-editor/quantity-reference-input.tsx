@@ -10,10 +10,11 @@ import {
   type ReferenceQuantity,
 } from "./reference-values";
 import { errorId, fieldId } from "./field-paths";
-import { inputClass, PathErrors } from "./field-shell";
+import { PathErrors } from "./field-shell";
 import { NumberInput } from "./number-input";
 import { SelectInput } from "./select-input";
 import { useDraftValue, usePathErrors, useUpdateDraft } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const MODE_WORDS: Record<ReferenceMode, string> = {
   it: "multiple of It",
@@ -39,16 +40,14 @@ export function QuantityReferenceInput({ path, label, quantity }: { path: string
     <fieldset id={fieldId(path)} tabIndex={-1} aria-describedby={errorId(path)} className="min-w-0">
       <legend className="text-sm font-medium">{label}</legend>
       <div className="grid grid-cols-[minmax(0,13rem)_minmax(0,18rem)] gap-2">
-        <div className="flex flex-col gap-1">
-          <label htmlFor={modeId}>{renderSubLabel("Given as")}</label>
-          <select id={modeId} value={mode} onChange={(e) => update(path, createReference(quantity, e.target.value as ReferenceMode))} className={inputClass}>
-            {modes.map((m) => (
-              <option key={m} value={m}>
-                {MODE_WORDS[m]}
-              </option>
-            ))}
-          </select>
-        </div>
+        <SelectField
+          id={modeId}
+          label={renderSubLabel("Given as")}
+          value={mode}
+          onChange={(e) => update(path, createReference(quantity, e.target.value as ReferenceMode))}
+          className="w-full"
+          options={modes.map((m) => ({ value: m, label: MODE_WORDS[m] }))}
+        />
         {mode === "it" && <NumberInput path={`${path}.multipleOfIt`} label={renderSubLabel("Multiple of It")} hint="e.g. 0.2 for 0.2 It" />}
         {mode === "spec" && (
           <SelectInput

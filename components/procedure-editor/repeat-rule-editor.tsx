@@ -3,12 +3,13 @@
 import { useFormContext } from "react-hook-form";
 import { createRepeatRule, listStepRange, type CriterionValue, type RepeatRuleValue, type StepValue } from "./draft-values";
 import { errorId, fieldId } from "./field-paths";
-import { inputClass, PathErrors } from "./field-shell";
+import { PathErrors } from "./field-shell";
 import { NumberInput } from "./number-input";
 import { OptionalPart } from "./optional-part";
 import { SelectInput } from "./select-input";
 import { TextInput } from "./text-input";
 import { useDraftValue, useSubtreeErrors, useUpdateDraft } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const PATH = "definition.repeat";
 
@@ -29,24 +30,20 @@ function BlockPicker({ steps, rule }: { steps: readonly StepValue[]; rule: Repea
   return (
     <fieldset aria-describedby={errorId(`${PATH}.stepIds`)} className="grid gap-2 sm:grid-cols-2">
       <legend className="text-sm font-medium">Repeated steps (consecutive, in procedure order)</legend>
-      <div className="flex flex-col gap-1">
-        <label htmlFor={firstId} className="text-xs text-ink-soft">
-          From step
-        </label>
-        <select id={firstId} value={first} onChange={(e) => pick(e.target.value, last)} className={inputClass}>
-          {first === "" && <option value="">Choose…</option>}
-          {steps.map(renderOption)}
-        </select>
-      </div>
-      <div className="flex flex-col gap-1">
-        <label htmlFor={`${firstId}-last`} className="text-xs text-ink-soft">
-          To step
-        </label>
-        <select id={`${firstId}-last`} value={last} onChange={(e) => pick(first || e.target.value, e.target.value)} className={inputClass}>
-          {last === "" && <option value="">Choose…</option>}
-          {steps.map(renderOption)}
-        </select>
-      </div>
+      <SelectField id={firstId} label={<span className="text-xs text-ink-soft">From step</span>} value={first} onChange={(e) => pick(e.target.value, last)} className="w-full">
+        {first === "" && <option value="">Choose…</option>}
+        {steps.map(renderOption)}
+      </SelectField>
+      <SelectField
+        id={`${firstId}-last`}
+        label={<span className="text-xs text-ink-soft">To step</span>}
+        value={last}
+        onChange={(e) => pick(first || e.target.value, e.target.value)}
+        className="w-full"
+      >
+        {last === "" && <option value="">Choose…</option>}
+        {steps.map(renderOption)}
+      </SelectField>
       <p className="figures text-xs text-ink-soft sm:col-span-2">
         {rule.stepIds.length > 0 ? `Repeats: ${rule.stepIds.join(", ")}` : "No steps chosen yet (the last step must not come before the first)."}
       </p>

@@ -1,8 +1,9 @@
 "use client";
 
 import type { ReactNode } from "react";
-import { FieldShell, inputClass } from "./field-shell";
+import { FieldShell } from "./field-shell";
 import { useDraftValue, usePathErrors, useUpdateDraft } from "./use-draft-field";
+import { Select } from "@/components/ui/select-field";
 
 export interface SelectOption {
   value: string;
@@ -35,7 +36,7 @@ export function SelectInput({
   return (
     <FieldShell path={path} label={label} hint={hint} errors={errors} className={className}>
       {(control) => (
-        <select {...control} value={value} onChange={(e) => update(path, e.target.value)} className={inputClass}>
+        <Select {...control} value={value} onChange={(e) => update(path, e.target.value)} className="w-full">
           {value === "" && <option value="">{placeholder ?? "Choose…"}</option>}
           {!isKnown && value !== "" && <option value={value}>“{value}” (not found)</option>}
           {options.map((option) => (
@@ -43,7 +44,7 @@ export function SelectInput({
               {option.label}
             </option>
           ))}
-        </select>
+        </Select>
       )}
     </FieldShell>
   );

@@ -6,9 +6,10 @@ import { Button } from "@/components/ui/button";
 import { stepKinds, type StepKind } from "@/protocols";
 import { createStep, describeStepKind, type StepValue } from "./draft-values";
 import { fieldId } from "./field-paths";
-import { inputClass, PathErrors } from "./field-shell";
+import { PathErrors } from "./field-shell";
 import { StepCard } from "./step-card";
 import { useDraftValue, usePathErrors, useRevalidate } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const PATH = "definition.steps";
 
@@ -77,18 +78,14 @@ export function StepsEditor() {
         })}
       </ol>
       <div className="flex flex-wrap items-end gap-2 rounded border border-dashed border-rule p-3">
-        <div className="flex flex-col gap-1">
-          <label htmlFor="new-step-kind" className="text-sm font-medium">
-            Kind of the new step
-          </label>
-          <select id="new-step-kind" value={newKind} onChange={(e) => setNewKind(e.target.value as StepKind)} className={inputClass}>
-            {stepKinds.map((kind) => (
-              <option key={kind} value={kind}>
-                {describeStepKind(kind)}
-              </option>
-            ))}
-          </select>
-        </div>
+        <SelectField
+          id="new-step-kind"
+          label="Kind of the new step"
+          value={newKind}
+          onChange={(e) => setNewKind(e.target.value as StepKind)}
+          className="w-full"
+          options={stepKinds.map((kind) => ({ value: kind, label: describeStepKind(kind) }))}
+        />
         <Button
           type="button"
           variant="secondary"

@@ -1,10 +1,11 @@
 "use client";
 
 import { errorId, fieldId } from "./field-paths";
-import { inputClass, PathErrors } from "./field-shell";
+import { PathErrors } from "./field-shell";
 import { readTemperatureMode, switchTemperatureMode, type TemperatureMode } from "./reference-values";
 import { NumberInput } from "./number-input";
 import { useDraftValue, usePathErrors, useUpdateDraft } from "./use-draft-field";
+import { SelectField } from "@/components/ui/select-field";
 
 const renderSubLabel = (text: string) => <span className="text-xs text-ink-soft">{text}</span>;
 
@@ -19,18 +20,17 @@ export function TemperatureRangeInput({ path, label }: { path: string; label: st
     <fieldset id={fieldId(path)} tabIndex={-1} aria-describedby={errorId(path)} className="min-w-0">
       <legend className="text-sm font-medium">{label}</legend>
       <div className="grid grid-cols-[minmax(0,13rem)_minmax(0,9rem)_minmax(0,9rem)] gap-2">
-        <div className="flex flex-col gap-1">
-          <label htmlFor={modeId}>{renderSubLabel("Given as")}</label>
-          <select
-            id={modeId}
-            value={mode}
-            onChange={(e) => update(path, switchTemperatureMode(range, e.target.value as TemperatureMode))}
-            className={inputClass}
-          >
-            <option value="nominal">nominal ± tolerance</option>
-            <option value="bounds">lowest to highest</option>
-          </select>
-        </div>
+        <SelectField
+          id={modeId}
+          label={renderSubLabel("Given as")}
+          value={mode}
+          onChange={(e) => update(path, switchTemperatureMode(range, e.target.value as TemperatureMode))}
+          className="w-full"
+          options={[
+            { value: "nominal", label: "nominal ± tolerance" },
+            { value: "bounds", label: "lowest to highest" },
+          ]}
+        />
         {mode === "nominal" ? (
           <>
             <NumberInput path={`${path}.nominalC`} label={renderSubLabel("Nominal, °C")} />

@@ -2,6 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { getJson } from "./post-json";
+import { Select } from "@/components/ui/select-field";
 
 interface SpecificationOption {
   id: string;
@@ -27,21 +28,18 @@ export function SpecPicker({ id, value, onChange }: { id: string; value: string 
       <label htmlFor={id} className="text-sm font-medium">
         Cell specification
       </label>
-      <select
+      <Select
         id={id}
         value={value ?? ""}
         onChange={(event) => onChange(event.target.value || null)}
         disabled={specs.isPending}
         aria-describedby={`${id}-status`}
-        className="max-w-full rounded border border-rule bg-white px-2 py-1.5 sm:w-96"
-      >
-        <option value="">{specs.isPending ? "Loading the cell specifications…" : "Choose a cell specification…"}</option>
-        {options.map((spec) => (
-          <option key={spec.id} value={spec.id}>
-            {nameSpecification(spec)}
-          </option>
-        ))}
-      </select>
+        className="max-w-full sm:w-96"
+        options={[
+          { value: "", label: specs.isPending ? "Loading the cell specifications…" : "Choose a cell specification…" },
+          ...options.map((spec) => ({ value: spec.id, label: nameSpecification(spec) })),
+        ]}
+      />
       <p id={`${id}-status`} className="text-xs text-ink-soft" aria-live="polite">
         {specs.isError
           ? `The cell specifications could not be loaded: ${specs.error.message}`

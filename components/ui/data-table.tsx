@@ -36,6 +36,8 @@ export function DataTable<T, S extends string>({
   noun,
   rowProps,
   testId,
+  pageParam = "page",
+  pagerLabel = "Pages",
 }: {
   rows: readonly T[];
   rowKey: (row: T) => string;
@@ -51,6 +53,10 @@ export function DataTable<T, S extends string>({
   noun?: [string, string];
   rowProps?: (row: T) => Record<string, string | undefined>;
   testId?: string;
+  /** The address parameter that holds this list's page: several lists on one page each page by their own. */
+  pageParam?: string;
+  /** The pager's name for a screen reader, distinct when one page holds several lists. */
+  pagerLabel?: string;
 }) {
   return (
     <div data-testid={testId}>
@@ -73,7 +79,7 @@ export function DataTable<T, S extends string>({
         </tbody>
       </Table>
       {rows.length === 0 && <EmptyState>{empty}</EmptyState>}
-      {page && page.total > 0 && <Pager page={page} path={path} kept={kept} noun={noun} />}
+      {page && page.total > 0 && <Pager page={page} path={path} kept={kept} noun={noun} param={pageParam} label={pagerLabel} />}
     </div>
   );
 }
@@ -107,12 +113,12 @@ function SortableHeader<T, S extends string>({
   );
 }
 
-function Pager({ page, path, kept, noun }: { page: DataPage; path: string; kept: Record<string, string>; noun?: [string, string] }) {
+function Pager({ page, path, kept, noun, param, label }: { page: DataPage; path: string; kept: Record<string, string>; noun?: [string, string]; param: string; label: string }) {
   const count = noun ? `${page.total} ${page.total === 1 ? noun[0] : noun[1]}` : `${page.total} in all`;
   return (
-    <nav aria-label="Pages" className="mt-3 flex flex-wrap items-center gap-4 text-sm" data-testid="pager">
+    <nav aria-label={label} className="mt-3 flex flex-wrap items-center gap-4 text-sm" data-testid="pager">
       {page.page > 1 ? (
-        <Link href={listHref(path, kept, { page: page.page - 1 })} className="text-copper-deep underline" rel="prev">
+        <Link href={listHref(path, kept, { [param]: page.page - 1 })} className="text-copper-deep underline" rel="prev">
           ← Previous page
         </Link>
       ) : (
@@ -122,7 +128,7 @@ function Pager({ page, path, kept, noun }: { page: DataPage; path: string; kept:
         Page {page.page} of {page.pageCount}
       </span>
       {page.page < page.pageCount ? (
-        <Link href={listHref(path, kept, { page: page.page + 1 })} className="text-copper-deep underline" rel="next">
+        <Link href={listHref(path, kept, { [param]: page.page + 1 })} className="text-copper-deep underline" rel="next">
           Next page →
         </Link>
       ) : (

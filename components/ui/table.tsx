@@ -21,9 +21,23 @@ export function TableHead({ children }: { children: ReactNode }) {
   );
 }
 
-export function HeaderCell({ className, children, ...props }: ThHTMLAttributes<HTMLTableCellElement>) {
+/** Cell spacing: a list's roomy rows, or a results table's dense ones (many figures side by side). */
+const PADDING = { list: "py-2 pr-3", dense: "px-2 py-1" } as const;
+
+type Spacing = { dense?: boolean };
+
+export function HeaderCell({ className, dense, children, ...props }: ThHTMLAttributes<HTMLTableCellElement> & Spacing) {
   return (
-    <th scope="col" {...props} className={clsx("py-2 pr-3", className)}>
+    <th scope="col" {...props} className={clsx(PADDING[dense ? "dense" : "list"], className)}>
+      {children}
+    </th>
+  );
+}
+
+/** The first cell of a row that names it (a step, a result, a source): a row header in plain weight. */
+export function RowHeaderCell({ className, dense, children, ...props }: ThHTMLAttributes<HTMLTableCellElement> & Spacing) {
+  return (
+    <th scope="row" {...props} className={clsx(PADDING[dense ? "dense" : "list"], "text-left font-normal", className)}>
       {children}
     </th>
   );
@@ -38,9 +52,9 @@ export function Row({ className, top, children, ...props }: HTMLAttributes<HTMLT
   );
 }
 
-export function Cell({ className, children, ...props }: TdHTMLAttributes<HTMLTableCellElement>) {
+export function Cell({ className, dense, children, ...props }: TdHTMLAttributes<HTMLTableCellElement> & Spacing) {
   return (
-    <td {...props} className={clsx("py-2 pr-3", className)}>
+    <td {...props} className={clsx(PADDING[dense ? "dense" : "list"], className)}>
       {children}
     </td>
   );

@@ -137,9 +137,9 @@ function toView(r: Row): CertificateView {
   };
 }
 
-/** Newest first. Every filter narrows; dates are UTC calendar days. */
+/** Every matching certificate, newest first (a list for people or the API reads a page: listCertificatesPage). Every filter narrows; dates are UTC calendar days. */
 export async function listCertificates(db: Executor, filter: CertificateFilter = {}): Promise<CertificateView[]> {
-  const q = filteredCertificates(db, filter).orderBy("c.issued_at", "desc").orderBy("c.number", "desc").limit(500);
+  const q = filteredCertificates(db, filter).orderBy("c.issued_at", "desc").orderBy("c.number", "desc");
   return (await q.execute()).map(toView);
 }
 

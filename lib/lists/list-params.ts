@@ -3,6 +3,9 @@ import { z } from "zod";
 /** Rows on one page of every list. */
 export const PAGE_SIZE = 25;
 
+/** Rows on one page of a JSON list (`/api/runs`, `/api/certificates`): `?page=` reads the next. */
+export const API_PAGE_SIZE = 100;
+
 export type SortDirection = "asc" | "desc";
 
 /** What a list page reads from its address: which page, sorted by which column, which way. */
@@ -31,13 +34,22 @@ export function parseListParams<S extends string>(
   const defaultDirection = options.defaultDirection ?? "asc";
   const sort = z.enum(options.sorts).safeParse(first(raw.sort));
   const direction = z.enum(["asc", "desc"]).safeParse(first(raw.dir));
-  const page = z.coerce.number().int().min(1).max(1_000_000).safeParse(first(raw.page));
-  if (!sort.success) return { page: page.success ? page.data : 1, sort: options.defaultSort, direction: defaultDirection };
+  const page = parsePageNumber(raw);
+  if (!sort.success) return { page, sort: options.defaultSort, direction: defaultDirection };
   return {
-    page: page.success ? page.data : 1,
+    page,
     sort: sort.data as S,
     direction: direction.success ? direction.data : defaultDirection,
   };
+}
+
+/**
+ * The page number in `raw[param]`: a whole number ≥ 1, else page 1 (a page past the end is clamped once
+ * the count is known). A page with several lists gives each its own parameter.
+ */
+export function parsePageNumber(raw: RawSearchParams, param = "page"): number {
+  const page = z.coerce.number().int().min(1).max(1_000_000).safeParse(first(raw[param]));
+  return page.success ? page.data : 1;
 }
 
 /** The current address's plain parameters (first value of each, empty ones dropped), to keep filters in links. */

@@ -64,8 +64,14 @@ test("home pages show each role what waits for it, and a version waiting for rel
   await expect(authorPage.getByTestId("release-queue")).not.toContainText(code);
   await expect(authorPage.getByText("Not built yet")).toHaveCount(0);
   await expect(authorPage.getByTestId("certify-queue")).toBeVisible();
-  const submitted = await withDb(async (c) => (await c.query<{ number: string }>("select number from run where status = 'submitted' order by number")).rows.map((r) => r.number));
-  for (const n of submitted) await expect(authorPage.getByTestId("review-queue")).toContainText(n);
+  // The review queue pages 25 at a time, the longest-waiting run first: page 1 holds the first 25 in that order.
+  const submitted = await withDb(async (c) => (await c.query<{ number: string }>("select number from run where status = 'submitted' order by submitted_at, number")).rows.map((r) => r.number));
+  expect(submitted.length, "the seed leaves runs waiting for review").toBeGreaterThan(0);
+  const reviewQueue = authorPage.getByTestId("review-queue");
+  await expect(reviewQueue.getByRole("heading")).toContainText(`(${submitted.length})`);
+  await expect(reviewQueue.locator("tbody tr")).toHaveCount(Math.min(submitted.length, 25));
+  expect(await reviewQueue.locator("tbody tr td:first-child").allInnerTexts()).toEqual(submitted.slice(0, 25));
+  await expect(reviewQueue.getByTestId("pager")).toContainText(`Page 1 of ${Math.ceil(submitted.length / 25)}`);
 
   // The second engineer releases it from the queue, after reading its caution and its changes.
   const second = await browser.newContext();

@@ -96,3 +96,62 @@ test("the run list pages 25 at a time, sorts by a header and keeps the filter, a
   await expect(pager).toContainText("Page 1 of 2");
   await expect(rows.first().locator("td").last()).toHaveText("2020-01-31");
 });
+
+test("a home queue pages in place by its own address parameter", async ({ page, context, baseURL }) => {
+  await signInAsUser(context, baseURL!, FILLER.email);
+  await page.goto("/");
+  const open = page.getByTestId("open-runs-queue");
+  const rows = open.locator("tbody tr");
+  await expect(open.getByRole("heading")).toContainText(`(${RUNS})`);
+  await expect(rows).toHaveCount(25);
+  await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
+  // Each queue's pager has a name of its own for a screen reader, not one "Pages" landmark per queue.
+  await expect(open.getByRole("navigation", { name: "Pages of your runs in progress" })).toBeVisible();
+  // The returned queue beside it is empty and shows no pager of its own.
+  await expect(page.getByTestId("returned-queue")).toContainText("No run of yours has been returned.");
+  await expect(page.getByTestId("returned-queue").getByTestId("pager")).toHaveCount(0);
+
+  const firstPage = await rows.locator("td:first-child").allInnerTexts();
+  await open.getByRole("link", { name: "Next page →" }).click();
+  await expect(open.getByTestId("pager")).toContainText("Page 2 of 2");
+  await expect(rows).toHaveCount(RUNS - 25);
+  const secondPage = await rows.locator("td:first-child").allInnerTexts();
+  expect(secondPage.filter((n) => firstPage.includes(n)), "no run is on both pages").toEqual([]);
+  const url = new URL(page.url());
+  expect(url.pathname).toBe("/");
+  expect(url.searchParams.get("open-runs-queue")).toBe("2");
+  expect(url.searchParams.has("page")).toBe(false);
+
+  await open.getByRole("link", { name: "← Previous page" }).click();
+  await expect(open.getByTestId("pager")).toContainText("Page 1 of 2");
+  expect(await rows.locator("td:first-child").allInnerTexts()).toEqual(firstPage);
+});
+
+test("the JSON run list answers 100 runs a page with the page, the page count and the total", async ({ page, context, baseURL }) => {
+  // 100 more planned runs of the filler operator (the clean-up above removes them with the others).
+  await asOwner((c) =>
+    c.query(
+      `insert into run (procedure_version_id, specimen_id, operator_id, resolution, cell_rating, procedure_source, created_at)
+       select r.procedure_version_id, r.specimen_id, $1, r.resolution, r.cell_rating, r.procedure_source, timestamptz '2019-01-01 09:00Z' + g * interval '1 hour'
+       from (select * from run order by created_at limit 1) r, generate_series(1, 100) g`,
+      [FILLER.id],
+    ),
+  );
+  const planned = await asOwner(async (c) => (await c.query<{ id: string }>("select id from run where status = 'planned' order by created_at desc, id")).rows.map((r) => r.id));
+  expect(planned.length).toBeGreaterThan(100);
+  await signInAsUser(context, baseURL!, FILLER.email);
+  const read = async (query: string) => {
+    const res = await page.request.get(`/api/runs?status=planned${query}`);
+    expect(res.status()).toBe(200);
+    return (await res.json()) as { page: number; pageCount: number; total: number; runs: { id: string; status: string }[] };
+  };
+  const first = await read("");
+  expect({ page: first.page, pageCount: first.pageCount, total: first.total }).toEqual({ page: 1, pageCount: Math.ceil(planned.length / 100), total: planned.length });
+  expect(first.runs.map((r) => r.id)).toEqual(planned.slice(0, 100));
+  const second = await read("&page=2");
+  expect(second.page).toBe(2);
+  expect(second.runs.map((r) => r.id)).toEqual(planned.slice(100, 200));
+  // A page past the end answers the last page; a page that is not a number answers the first.
+  expect((await read("&page=999")).page).toBe(first.pageCount);
+  expect((await read("&page=x")).runs.map((r) => r.id)).toEqual(planned.slice(0, 100));
+});

@@ -18,10 +18,16 @@ test("an engineer drafts an endurance procedure; the demo endurance run shows it
   await page.locator('.ProseMirror[contenteditable="true"]').first().waitFor();
 
   const block = page.getByRole("region", { name: /Step 2/ });
-  // The editor may already show the block's fields ("Hide fields of step 2"); open them only if not.
-  await expect(block.getByRole("button", { name: /(Edit|Hide) fields of step 2/ })).toBeVisible();
-  const edit = block.getByRole("button", { name: "Edit fields of step 2" });
-  if ((await edit.count()) > 0) await edit.click();
+  // A draft of two steps opens with every step's fields shown (steps-editor: startOpen up to two steps).
+  await expect(block.getByRole("button", { name: "Hide fields of step 2" })).toHaveAttribute("aria-expanded", "true");
+  // How each cycle's charge ends: after a set time asks for the time; back to a current limit asks for the current.
+  const chargeEnds = block.getByLabel("The charge ends");
+  await expect(chargeEnds).toHaveValue("current");
+  await chargeEnds.selectOption({ label: "after a set time" });
+  await expect(block.getByRole("group", { name: "Charge time", exact: true })).toBeVisible();
+  await expect(block.getByRole("group", { name: "Termination current", exact: true })).toHaveCount(0);
+  await chargeEnds.selectOption({ label: "when the current falls to a limit" });
+  await expect(block.getByRole("group", { name: "Termination current", exact: true })).toBeVisible();
   const cycles = block.getByLabel("Number of cycles");
   await expect(cycles).toHaveValue("400");
   await cycles.fill("120");

@@ -2,7 +2,8 @@ import { sql } from "kysely";
 import { beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
-import { listReviewQueue, listRunReviews, listRunSignatures } from "@/db/reviews";
+import { listReviewQueue, listRunSignatures } from "@/db/reviews";
+import { listRunReviews } from "@/lib/reviews/run-reviews";
 import { getRun, listStepRecords } from "@/db/runs";
 import { formatLogCsv, type LogColumns } from "@/lib/analysis";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
@@ -21,6 +22,9 @@ import { createCellSpecification } from "@/lib/specs/cell-specifications";
 import { buildRatedCapacityRun, inventedCell } from "@/scenarios/rated-capacity-run";
 import { makeUser, ELAPSED_LOG_MAPPING as MAPPING, chunksOf, setPassword, releaseRatedCapacityProcedure } from "./fixtures";
 import { withOwnerClient } from "../support/test-database";
+
+// The queues page; these tests' few rows all fit on the first.
+const FIRST_PAGE = { page: 1, pageSize: 100 };
 
 const TODAY = "2026-12-01";
 const PASSWORD = "reviewer's own passphrase";
@@ -216,14 +220,14 @@ describe("review of submitted runs", () => {
     const deviating = listFindings(evaluation).filter((f) => f.outcome === "deviates");
     const notes = deviating.map((f) => ({ findingId: f.id, note: "chamber door left open for 10 min; capacity unaffected" }));
 
-    const queueBefore = await listReviewQueue(getDb(), lab.operator.id);
+    const queueBefore = (await listReviewQueue(getDb(), lab.operator.id, FIRST_PAGE)).rows;
     expect(queueBefore.find((q) => q.runId === run.id)).toMatchObject({ runNumber: run.number, operatorName: "Oda Operator", operatedByYou: true });
-    expect((await listReviewQueue(getDb(), lab.reviewer.id)).find((q) => q.runId === run.id)?.operatedByYou).toBe(false);
+    expect((await listReviewQueue(getDb(), lab.reviewer.id, FIRST_PAGE)).rows.find((q) => q.runId === run.id)?.operatedByYou).toBe(false);
 
     const accepted = await acceptRun(lab.reviewer, run.id, { password: PASSWORD, acknowledgements: notes, evaluationId });
     expect(accepted.signature).toMatchObject({ printedName: "Rhea Reviewer", meaning: "reviewed" });
     expect((await getRun(getDb(), run.id))?.status).toBe("accepted");
-    expect((await listReviewQueue(getDb(), lab.reviewer.id)).some((q) => q.runId === run.id)).toBe(false);
+    expect((await listReviewQueue(getDb(), lab.reviewer.id, FIRST_PAGE)).rows.some((q) => q.runId === run.id)).toBe(false);
 
     const signature = await getDb().selectFrom("electronic_signature").selectAll().where("entity_id", "=", run.id).executeTakeFirstOrThrow();
     expect(signature).toMatchObject({ signer_id: lab.reviewer.id, printed_name: "Rhea Reviewer", meaning: "reviewed", entity_type: "run" });

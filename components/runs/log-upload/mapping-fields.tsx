@@ -1,23 +1,22 @@
 "use client";
 
 import { useId, type ReactNode } from "react";
+import { SelectField } from "@/components/ui/select-field";
 import type { MappingDraft } from "@/lib/analysis/log-import";
 
-function Select({ label, value, options, onChange, testId }: { label: string; value: string; options: [string, string][]; onChange: (v: string) => void; testId?: string }) {
+/** One choice of the mapping: the lab's labelled drop-down, options as [value, words] pairs. */
+function MappingChoice({ label, value, options, onChange, testId }: { label: string; value: string; options: [string, string][]; onChange: (v: string) => void; testId?: string }) {
   const id = useId();
   return (
-    <div className="flex flex-col">
-      <label htmlFor={id} className="text-sm font-semibold">
-        {label}
-      </label>
-      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} data-testid={testId} className="rounded border border-rule bg-paper px-2 py-1 text-sm">
-        {options.map(([v, text]) => (
-          <option key={v} value={v}>
-            {text}
-          </option>
-        ))}
-      </select>
-    </div>
+    <SelectField
+      id={id}
+      label={label}
+      value={value}
+      onChange={(e) => onChange(e.target.value)}
+      data-testid={testId}
+      className="text-sm"
+      options={options.map(([v, words]) => ({ value: v, label: words }))}
+    />
   );
 }
 
@@ -39,8 +38,8 @@ export function MappingFields({ columns, draft, onChange }: { columns: string[];
   return (
     <div className="flex flex-col gap-3" data-testid="mapping-fields">
       <Row title="Time">
-        <Select label="Time column" testId="map-time" value={draft.time?.column ?? ""} options={pick} onChange={(column) => set({ time: timeForm === "timestamp" ? { form: "timestamp", column } : { form: "elapsed", column, unit: timeForm } })} />
-        <Select
+        <MappingChoice label="Time column" testId="map-time" value={draft.time?.column ?? ""} options={pick} onChange={(column) => set({ time: timeForm === "timestamp" ? { form: "timestamp", column } : { form: "elapsed", column, unit: timeForm } })} />
+        <MappingChoice
           label="Time is written as"
           testId="map-time-form"
           value={timeForm}
@@ -52,19 +51,19 @@ export function MappingFields({ columns, draft, onChange }: { columns: string[];
         />
       </Row>
       <Row title="Voltage">
-        <Select label="Voltage column" testId="map-voltage" value={draft.voltage?.column ?? ""} options={pick} onChange={(column) => set({ voltage: { column, unit: draft.voltage?.unit ?? "V" } })} />
-        <Select label="Unit" value={draft.voltage?.unit ?? "V"} options={[["V", "V"], ["mV", "mV"]]} onChange={(unit) => set({ voltage: { column: draft.voltage?.column ?? "", unit: unit as "V" | "mV" } })} />
+        <MappingChoice label="Voltage column" testId="map-voltage" value={draft.voltage?.column ?? ""} options={pick} onChange={(column) => set({ voltage: { column, unit: draft.voltage?.unit ?? "V" } })} />
+        <MappingChoice label="Unit" value={draft.voltage?.unit ?? "V"} options={[["V", "V"], ["mV", "mV"]]} onChange={(unit) => set({ voltage: { column: draft.voltage?.column ?? "", unit: unit as "V" | "mV" } })} />
       </Row>
       <Row title="Current">
-        <Select
+        <MappingChoice
           label="Current column"
           testId="map-current"
           value={draft.current?.column ?? ""}
           options={pick}
           onChange={(column) => set({ current: { column, unit: draft.current?.unit ?? "A", dischargeSign: draft.current?.dischargeSign ?? "negative" } })}
         />
-        <Select label="Unit" value={draft.current?.unit ?? "A"} options={[["A", "A"], ["mA", "mA"]]} onChange={(unit) => set({ current: { column: draft.current?.column ?? "", unit: unit as "A" | "mA", dischargeSign: draft.current?.dischargeSign ?? "negative" } })} />
-        <Select
+        <MappingChoice label="Unit" value={draft.current?.unit ?? "A"} options={[["A", "A"], ["mA", "mA"]]} onChange={(unit) => set({ current: { column: draft.current?.column ?? "", unit: unit as "A" | "mA", dischargeSign: draft.current?.dischargeSign ?? "negative" } })} />
+        <MappingChoice
           label="A discharging current is written"
           testId="map-discharge-sign"
           value={draft.current?.dischargeSign ?? "negative"}
@@ -73,16 +72,16 @@ export function MappingFields({ columns, draft, onChange }: { columns: string[];
         />
       </Row>
       <Row title="Optional columns">
-        <Select label="Temperature (°C)" value={draft.temperature?.column ?? ""} options={optional} onChange={(column) => set({ temperature: column ? { column } : undefined })} />
-        <Select label="Cycler step index" value={draft.step?.column ?? ""} options={optional} onChange={(column) => set({ step: column ? { column } : undefined })} />
-        <Select label="Cycler capacity" value={draft.capacity?.column ?? ""} options={optional} onChange={(column) => set({ capacity: column ? { column, unit: draft.capacity?.unit ?? "Ah" } : undefined })} />
+        <MappingChoice label="Temperature (°C)" value={draft.temperature?.column ?? ""} options={optional} onChange={(column) => set({ temperature: column ? { column } : undefined })} />
+        <MappingChoice label="Cycler step index" value={draft.step?.column ?? ""} options={optional} onChange={(column) => set({ step: column ? { column } : undefined })} />
+        <MappingChoice label="Cycler capacity" value={draft.capacity?.column ?? ""} options={optional} onChange={(column) => set({ capacity: column ? { column, unit: draft.capacity?.unit ?? "Ah" } : undefined })} />
         {draft.capacity && (
-          <Select label="Capacity unit" value={draft.capacity.unit} options={[["Ah", "Ah"], ["mAh", "mAh"]]} onChange={(unit) => set({ capacity: { column: draft.capacity?.column ?? "", unit: unit as "Ah" | "mAh" } })} />
+          <MappingChoice label="Capacity unit" value={draft.capacity.unit} options={[["Ah", "Ah"], ["mAh", "mAh"]]} onChange={(unit) => set({ capacity: { column: draft.capacity?.column ?? "", unit: unit as "Ah" | "mAh" } })} />
         )}
       </Row>
       <Row title="Layout of the file">
-        <Select label="Cells separated by" value={draft.delimiter} options={[[",", "commas"], [";", "semicolons"], ["\t", "tabs"]]} onChange={(d) => set({ delimiter: d as MappingDraft["delimiter"] })} />
-        <Select label="Decimal mark" value={draft.decimalSeparator} options={[[".", "point (3.7)"], [",", "comma (3,7)"]]} onChange={(d) => set({ decimalSeparator: d as MappingDraft["decimalSeparator"] })} />
+        <MappingChoice label="Cells separated by" value={draft.delimiter} options={[[",", "commas"], [";", "semicolons"], ["\t", "tabs"]]} onChange={(d) => set({ delimiter: d as MappingDraft["delimiter"] })} />
+        <MappingChoice label="Decimal mark" value={draft.decimalSeparator} options={[[".", "point (3.7)"], [",", "comma (3,7)"]]} onChange={(d) => set({ decimalSeparator: d as MappingDraft["decimalSeparator"] })} />
         <p className="text-sm text-ink-soft">
           Header on line {draft.headerLine}
           {draft.dataStartLine ? `, data from line ${draft.dataStartLine}` : ""}

@@ -4,7 +4,7 @@ import { useMemo } from "react";
 import type uPlot from "uplot";
 import { Notice } from "@/components/ui/notice";
 import { UplotChart } from "@/components/runs/results/uplot-chart";
-import { Row, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import type { MappingPreview } from "./read-mapping-preview";
 
 const SHOWN_ROWS = 8;
@@ -37,24 +37,24 @@ export function MappingPreviewView({ preview }: { preview: MappingPreview }) {
       <p className="text-sm">
         The first {preview.rows.toLocaleString("en-GB")} rows read with this mapping (first {shown} shown; current positive while charging):
       </p>
-      <table className="text-sm">
+      <Table>
         <TableHead>
-          <th className="px-2">Time (s)</th>
-          <th className="px-2">Voltage (V)</th>
-          <th className="px-2">Current (A)</th>
-          {c.temperatureC && <th className="px-2">Temperature (°C)</th>}
+          <HeaderCell>Time (s)</HeaderCell>
+          <HeaderCell>Voltage (V)</HeaderCell>
+          <HeaderCell>Current (A)</HeaderCell>
+          {c.temperatureC && <HeaderCell>Temperature (°C)</HeaderCell>}
         </TableHead>
         <tbody>
           {Array.from({ length: shown }, (_, k) => (
             <Row key={k}>
-              <td className="px-2">{c.timeS[k]}</td>
-              <td className="px-2">{c.voltageV[k]}</td>
-              <td className="px-2">{c.currentA[k]}</td>
-              {c.temperatureC && <td className="px-2">{c.temperatureC[k]}</td>}
+              <Cell>{c.timeS[k]}</Cell>
+              <Cell>{c.voltageV[k]}</Cell>
+              <Cell>{c.currentA[k]}</Cell>
+              {c.temperatureC && <Cell>{c.temperatureC[k]}</Cell>}
             </Row>
           ))}
         </tbody>
-      </table>
+      </Table>
       {chart && <UplotChart options={chart.options} data={chart.data} label="Plot check of the first rows: voltage and current against time" />}
     </div>
   );

@@ -1,4 +1,4 @@
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, RowHeaderCell, Table, TableHead } from "@/components/ui/table";
 import { formatValue, type AcceptanceResult, type ConformityOutcome, type CriterionConformity } from "@/lib/conformance";
 import { explainDecisionRule, nameDecisionRule, type StoredDecisionRule } from "@/protocols";
 
@@ -58,9 +58,9 @@ export function ConformityTable({
       <Table data-testid="conformity-table">
         <TableHead>
           {["Criterion", "Cycle", "Limit", "Measured", "Expanded uncertainty U (k = 2)", "Outcome"].map((h) => (
-            <th key={h} scope="col" className="px-2 py-1">
+            <HeaderCell key={h} dense>
               {h}
-            </th>
+            </HeaderCell>
           ))}
         </TableHead>
         <tbody>
@@ -70,20 +70,20 @@ export function ConformityTable({
             const limits = showLimit(result);
             return (
               <Row key={entry.criterionId} top>
-                <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+                <RowHeaderCell dense className="whitespace-nowrap">
                   {entry.criterionId}
-                </th>
-                <td className="px-2 py-1">{entry.cycle ?? "—"}</td>
-                <td className="whitespace-nowrap px-2 py-1">
+                </RowHeaderCell>
+                <Cell dense>{entry.cycle ?? "—"}</Cell>
+                <Cell dense className="whitespace-nowrap">
                   {limits.limit}
                   {limits.acceptance && <span className="block text-xs text-ink-soft">{limits.acceptance}</span>}
-                </td>
-                <td className="whitespace-nowrap px-2 py-1">{result?.measured?.value !== undefined && result.measured.unit ? formatValue(result.measured.value, result.measured.unit) : "—"}</td>
-                <td className="whitespace-nowrap px-2 py-1">{showExpanded(result)}</td>
-                <td className={`whitespace-nowrap px-2 py-1 font-semibold ${o.tone}`}>
+                </Cell>
+                <Cell dense className="whitespace-nowrap">{result?.measured?.value !== undefined && result.measured.unit ? formatValue(result.measured.value, result.measured.unit) : "—"}</Cell>
+                <Cell dense className="whitespace-nowrap">{showExpanded(result)}</Cell>
+                <Cell dense className={`whitespace-nowrap font-semibold ${o.tone}`}>
                   <span aria-hidden="true">{o.mark} </span>
                   {entry.outcome}
-                </td>
+                </Cell>
               </Row>
             );
           })}

@@ -1,3 +1,4 @@
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import type { FindingOutcome } from "@/lib/conformance";
 import type { FindingLine } from "@/lib/runs/group-findings";
 
@@ -10,40 +11,28 @@ const OUTCOME: Record<FindingOutcome, { words: string; mark: string; tone: strin
 /** The findings of one step (or of the run as a whole): drawn on the server for an open group, in the browser for one opened later. */
 export function FindingLinesTable({ lines }: { lines: FindingLine[] }) {
   return (
-    <table className="w-full border-collapse text-sm">
-      <thead>
-        <tr className="border-b border-rule text-left">
-          <th scope="col" className="px-2 py-1 font-semibold">
-            Check
-          </th>
-          <th scope="col" className="px-2 py-1 font-semibold">
-            Outcome
-          </th>
-          <th scope="col" className="px-2 py-1 font-semibold">
-            Expected
-          </th>
-          <th scope="col" className="px-2 py-1 font-semibold">
-            Observed
-          </th>
-          <th scope="col" className="px-2 py-1 font-semibold">
-            Clause
-          </th>
-        </tr>
-      </thead>
+    <Table>
+      <TableHead>
+        <HeaderCell>Check</HeaderCell>
+        <HeaderCell>Outcome</HeaderCell>
+        <HeaderCell>Expected</HeaderCell>
+        <HeaderCell>Observed</HeaderCell>
+        <HeaderCell>Clause</HeaderCell>
+      </TableHead>
       <tbody>
         {lines.map((f) => (
-          <tr key={f.id} className="border-b border-rule align-top">
-            <td className="px-2 py-1">{f.title}</td>
-            <td className="px-2 py-1">
+          <Row key={f.id} top>
+            <Cell>{f.title}</Cell>
+            <Cell>
               <FindingOutcomeWords line={f} />
-            </td>
-            <td className="px-2 py-1">{f.expected}</td>
-            <td className="px-2 py-1">{f.observed}</td>
-            <td className="px-2 py-1">{f.clause}</td>
-          </tr>
+            </Cell>
+            <Cell>{f.expected}</Cell>
+            <Cell>{f.observed}</Cell>
+            <Cell>{f.clause}</Cell>
+          </Row>
         ))}
       </tbody>
-    </table>
+    </Table>
   );
 }
 

@@ -1,3 +1,4 @@
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { describeObservedValues, type ObservationsResult } from "@/lib/conformance";
 
 const OUTCOME_CLASS: Record<string, string> = {
@@ -9,21 +10,21 @@ const OUTCOME_CLASS: Record<string, string> = {
 export function ObservationsSection({ observations }: { observations: ObservationsResult }) {
   return (
     <div className="flex flex-col gap-4" data-testid="observations">
-      <table className="w-full text-sm">
+      <Table>
         <caption className="sr-only">Observations recorded</caption>
-        <thead>
-          <tr className="border-b border-rule text-left">
-            <th scope="col" className="py-1 pr-3 font-semibold">Step</th>
-            <th scope="col" className="py-1 pr-3 font-semibold">Recorded</th>
-          </tr>
-        </thead>
+        <TableHead>
+          <HeaderCell>Step</HeaderCell>
+          <HeaderCell>Recorded</HeaderCell>
+        </TableHead>
         <tbody>
           {observations.records.map((record) => {
             const rows = describeObservedValues(record.observed);
             return (
-              <tr key={record.stepId} className="border-b border-rule align-top">
-                <th scope="row" className="py-1 pr-3 text-left font-medium">{record.label}</th>
-                <td className="figures py-1 pr-3">
+              <Row key={record.stepId} top>
+                <HeaderCell scope="row" className="font-medium">
+                  {record.label}
+                </HeaderCell>
+                <Cell>
                   {rows.length === 0 ? (
                     <span className="text-ink-soft">nothing recorded</span>
                   ) : (
@@ -35,40 +36,38 @@ export function ObservationsSection({ observations }: { observations: Observatio
                       ))}
                     </ul>
                   )}
-                </td>
-              </tr>
+                </Cell>
+              </Row>
             );
           })}
         </tbody>
-      </table>
+      </Table>
       {observations.criteria.length > 0 && (
         <>
-          <table className="w-full text-sm">
+          <Table>
             <caption className="sr-only">Observation criteria</caption>
-            <thead>
-              <tr className="border-b border-rule text-left">
-                <th scope="col" className="py-1 pr-3 font-semibold">Criterion</th>
-                <th scope="col" className="py-1 pr-3 font-semibold">Rule</th>
-                <th scope="col" className="py-1 pr-3 font-semibold">Observed</th>
-                <th scope="col" className="py-1 pr-3 font-semibold">Outcome</th>
-              </tr>
-            </thead>
+            <TableHead>
+              <HeaderCell>Criterion</HeaderCell>
+              <HeaderCell>Rule</HeaderCell>
+              <HeaderCell>Observed</HeaderCell>
+              <HeaderCell>Outcome</HeaderCell>
+            </TableHead>
             <tbody>
               {observations.criteria.map((criterion) => (
-                <tr key={`${criterion.stepId}-${criterion.kind}`} className="border-b border-rule align-top" data-testid="observation-criterion">
-                  <th scope="row" className="py-1 pr-3 text-left font-medium">
+                <Row key={`${criterion.stepId}-${criterion.kind}`} top data-testid="observation-criterion">
+                  <HeaderCell scope="row" className="font-medium">
                     {criterion.kind} on “{criterion.label}”
-                  </th>
-                  <td className="py-1 pr-3">
+                  </HeaderCell>
+                  <Cell>
                     {criterion.rule}
                     {criterion.source && <span className="block text-xs text-ink-soft">Source: {criterion.source}</span>}
-                  </td>
-                  <td className="figures py-1 pr-3">{criterion.observed}</td>
-                  <td className={`py-1 pr-3 font-medium ${OUTCOME_CLASS[criterion.outcome] ?? ""}`}>{criterion.outcome}</td>
-                </tr>
+                  </Cell>
+                  <Cell>{criterion.observed}</Cell>
+                  <Cell className={`font-medium ${OUTCOME_CLASS[criterion.outcome] ?? ""}`}>{criterion.outcome}</Cell>
+                </Row>
               ))}
             </tbody>
-          </table>
+          </Table>
           <p className="text-xs text-ink-soft">Decision rule for these criteria: {observations.decisionRule}</p>
         </>
       )}

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { postJson } from "@/components/procedure-preview/post-json";
 import { Button } from "@/components/ui/button";
+import { SelectField } from "@/components/ui/select-field";
 
 /** Evaluates the run again from what is stored, then shows the new evaluation. */
 export function ReEvaluateButton({
@@ -32,17 +33,14 @@ export function ReEvaluateButton({
   return (
     <div className="flex flex-col items-end gap-1">
       {otherVersions.length > 0 && (
-        <label className="flex flex-col text-sm">
-          Judge against
-          <select value={against} onChange={(e) => setAgainst(e.target.value)} className="rounded border border-rule bg-white px-2 py-1">
-            <option value="">the version the run was carried out under</option>
-            {otherVersions.map((v) => (
-              <option key={v.id} value={v.id}>
-                {v.label}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField
+          filter
+          id="judge-against"
+          label="Judge against"
+          value={against}
+          onChange={(e) => setAgainst(e.target.value)}
+          options={[{ value: "", label: "the version the run was carried out under" }, ...otherVersions.map((v) => ({ value: v.id, label: v.label }))]}
+        />
       )}
       <Button variant="secondary" onClick={evaluate} disabled={busy}>
         {busy ? "Evaluating…" : "Evaluate again"}

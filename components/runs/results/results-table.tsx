@@ -1,4 +1,4 @@
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, RowHeaderCell, Table, TableHead } from "@/components/ui/table";
 import type { ResultRow } from "@/lib/runs/list-result-rows";
 
 function fixed(v: number | null, digits: number): string {
@@ -11,26 +11,26 @@ export function ResultsTable({ rows }: { rows: ResultRow[] }) {
     <Table data-testid="results-table">
       <TableHead>
         {["Step", "Duration (h)", "Q (mAh)", "Q (Ah)", "E (Wh)", "Mean U (V)", "End U (V)", "Max T (°C)", "R (mΩ)"].map((h) => (
-          <th key={h} scope="col" className="px-2 py-1">
+          <HeaderCell key={h} dense>
             {h}
-          </th>
+          </HeaderCell>
         ))}
       </TableHead>
       <tbody>
         {rows.map((r) => (
           <Row key={`${r.stepId}#${r.cycle}`}>
-            <th scope="row" className="px-2 py-1 text-left font-normal">
+            <RowHeaderCell dense>
               {r.label}
               {r.cycle > 1 ? ` (cycle ${r.cycle})` : ""}
-            </th>
-            <td className="px-2 py-1">{r.durationS === null ? "—" : (r.durationS / 3600).toFixed(3)}</td>
-            <td className="px-2 py-1">{fixed(r.capacityMAh, 1)}</td>
-            <td className="px-2 py-1">{fixed(r.capacityAh, 4)}</td>
-            <td className="px-2 py-1">{fixed(r.energyWh, 3)}</td>
-            <td className="px-2 py-1">{fixed(r.meanVoltageV, 3)}</td>
-            <td className="px-2 py-1">{fixed(r.endVoltageV, 3)}</td>
-            <td className="px-2 py-1">{fixed(r.maxTemperatureC, 1)}</td>
-            <td className="px-2 py-1">{fixed(r.resistanceMOhm, 1)}</td>
+            </RowHeaderCell>
+            <Cell dense>{r.durationS === null ? "—" : (r.durationS / 3600).toFixed(3)}</Cell>
+            <Cell dense>{fixed(r.capacityMAh, 1)}</Cell>
+            <Cell dense>{fixed(r.capacityAh, 4)}</Cell>
+            <Cell dense>{fixed(r.energyWh, 3)}</Cell>
+            <Cell dense>{fixed(r.meanVoltageV, 3)}</Cell>
+            <Cell dense>{fixed(r.endVoltageV, 3)}</Cell>
+            <Cell dense>{fixed(r.maxTemperatureC, 1)}</Cell>
+            <Cell dense>{fixed(r.resistanceMOhm, 1)}</Cell>
           </Row>
         ))}
       </tbody>

@@ -1,4 +1,4 @@
-import { Row, Table, TableHead } from "@/components/ui/table";
+import { Cell, HeaderCell, Row, RowHeaderCell, Table, TableHead } from "@/components/ui/table";
 import { formatRetentionBasis, formatRetentionReference, formatValue, listRetentionRows, type ChargeRetentionResult } from "@/lib/conformance";
 import { formatNumber } from "@/protocols";
 
@@ -15,23 +15,25 @@ export function RetentionTable({ retention }: { retention: ChargeRetentionResult
       <Table data-testid="retention-table" className="tabular-nums">
         <TableHead>
           {["Result", "Discharge", "Capacity", "Percentage", "Of"].map((h) => (
-            <th key={h} scope="col" className="px-2 py-1">
+            <HeaderCell key={h} dense>
               {h}
-            </th>
+            </HeaderCell>
           ))}
         </TableHead>
         <tbody>
           {listRetentionRows(retention).map(({ name, share }) => (
             <Row key={name} top>
-              <th scope="row" className="whitespace-nowrap px-2 py-1 text-left font-normal">
+              <RowHeaderCell dense className="whitespace-nowrap">
                 {name}
-              </th>
-              <td className="px-2 py-1">{share.label}</td>
-              <td className="whitespace-nowrap px-2 py-1">{share.capacityAh === null ? "—" : formatValue(share.capacityAh, "Ah")}</td>
-              <td className="whitespace-nowrap px-2 py-1">
+              </RowHeaderCell>
+              <Cell dense>{share.label}</Cell>
+              <Cell dense className="whitespace-nowrap">
+                {share.capacityAh === null ? "—" : formatValue(share.capacityAh, "Ah")}
+              </Cell>
+              <Cell dense className="whitespace-nowrap">
                 {share.percent === null ? "—" : `${formatNumber(share.percent, { minDecimals: 1, maxDecimals: 1 })} %`}
-              </td>
-              <td className="px-2 py-1">{share.percent === null ? share.statement : formatRetentionReference(retention)}</td>
+              </Cell>
+              <Cell dense>{share.percent === null ? share.statement : formatRetentionReference(retention)}</Cell>
             </Row>
           ))}
         </tbody>

@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
-import { Table } from "@/components/ui/table";
+import { TextLink } from "@/components/ui/text-link";
+import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
 import { requirePageAccess } from "@/lib/auth/guards";
@@ -12,7 +13,6 @@ import { verifyStoredFiles } from "@/lib/integrity/verify-stored-files";
 export const metadata: Metadata = { title: "Integrity" };
 
 const FAULTS_SHOWN = 100;
-const cell = "border-b border-rule px-2 py-1.5 align-top";
 
 function faultDetail(detail: unknown): { record: string; problem: string; during: string } {
   const d = (detail ?? {}) as Record<string, unknown>;
@@ -95,33 +95,37 @@ export default async function IntegrityPage({ searchParams }: { searchParams: Pr
         <p className="mb-3 text-sm text-ink-soft">
           Each refusal is an entry in the audit trail. A refused file is never handed out; restore it from a backup (<code>npm run restore</code>) or find out who changed the file store. Times in UTC.
         </p>
+        {faults.length === FAULTS_SHOWN && (
+          <p className="mb-3 text-sm" data-testid="integrity-faults-cut">
+            The latest {FAULTS_SHOWN} are shown;{" "}
+            <TextLink href={`/audit?action=${encodeURIComponent(INTEGRITY_FAULT_ACTION)}`}>the audit trail lists every refusal</TextLink>.
+          </p>
+        )}
         {faults.length === 0 ? (
           <p className="text-sm" data-testid="no-integrity-faults">
             No stored file has been refused.
           </p>
         ) : (
           <Table data-testid="integrity-faults">
-            <thead>
-              <tr className="text-left text-ink-soft">
-                <th className={cell}>When</th>
-                <th className={cell}>File</th>
-                <th className={cell}>What was wrong</th>
-                <th className={cell}>Asked for by</th>
-              </tr>
-            </thead>
+            <TableHead>
+              <HeaderCell>When</HeaderCell>
+              <HeaderCell>File</HeaderCell>
+              <HeaderCell>What was wrong</HeaderCell>
+              <HeaderCell>Asked for by</HeaderCell>
+            </TableHead>
             <tbody>
               {faults.map((e) => {
                 const d = faultDetail(e.detail);
                 return (
-                  <tr key={e.id}>
-                    <td className={`${cell} whitespace-nowrap`}>{e.at.toISOString().slice(0, 19).replace("T", " ")}</td>
-                    <td className={cell}>{d.record}</td>
-                    <td className={cell}>{d.problem}</td>
-                    <td className={cell}>
+                  <Row key={e.id} top>
+                    <Cell className="whitespace-nowrap">{e.at.toISOString().slice(0, 19).replace("T", " ")}</Cell>
+                    <Cell>{d.record}</Cell>
+                    <Cell>{d.problem}</Cell>
+                    <Cell>
                       {e.actorLabel}
                       {d.during && <span className="block text-ink-soft">{d.during}</span>}
-                    </td>
-                  </tr>
+                    </Cell>
+                  </Row>
                 );
               })}
             </tbody>

@@ -5,6 +5,7 @@ import { Button } from "@/components/ui/button";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/permissions";
 import { initialActionState } from "@/lib/forms/action-state";
 import { changeRoleAction, setActiveAction } from "./actions";
+import { Select } from "@/components/ui/select-field";
 
 export function UserRowControls({ userId, name, role, active, isSelf }: { userId: string; name: string; role: Role; active: boolean; isSelf: boolean }) {
   const [roleState, roleAction, rolePending] = useActionState(changeRoleAction, initialActionState);
@@ -19,13 +20,7 @@ export function UserRowControls({ userId, name, role, active, isSelf }: { userId
           <label className="sr-only" htmlFor={`role-${userId}`}>
             Role of {name}
           </label>
-          <select id={`role-${userId}`} name="role" defaultValue={role} className="rounded border border-rule bg-white px-1 py-1 text-sm">
-            {ROLES.map((r) => (
-              <option key={r} value={r}>
-                {ROLE_LABELS[r]}
-              </option>
-            ))}
-          </select>
+          <Select id={`role-${userId}`} name="role" defaultValue={role} className="text-sm" options={ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))} />
           <Button type="submit" variant="secondary" disabled={rolePending} aria-label={`Save role of ${name}`}>
             Save role
           </Button>

@@ -7,7 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
 import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
-import { listRunsPage, RUN_SORTS, type RunSort, type RunView } from "@/db/runs";
+import { listRunsPage, RUN_SORTS, type RunSort, type RunSummary } from "@/db/runs";
 import type { RunStatus } from "@/db/schema";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
@@ -22,7 +22,7 @@ const filterSchema = z.object({
   mine: z.literal("1").optional().catch(undefined),
 });
 
-const COLUMNS: DataColumn<RunView, RunSort>[] = [
+const COLUMNS: DataColumn<RunSummary, RunSort>[] = [
   { header: "Run", sort: "number", className: "whitespace-nowrap", cell: (r) => <TextLink href={`/runs/${r.id}`} className="font-medium">{r.number}</TextLink> },
   {
     header: "Procedure",

@@ -7,7 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { getDb } from "@/db";
 import { getInstrument } from "@/db/instruments";
 import { getProcedureVersionById } from "@/db/procedures";
-import { getLatestRunReview } from "@/db/reviews";
+import { getLatestRunReview } from "@/lib/reviews/run-reviews";
 import { getRun, listRunInstrumentIds, listStepRecords } from "@/db/runs";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";

@@ -5,7 +5,7 @@ import { SignatureManifestation } from "@/components/signatures/signature-manife
 import { Cell, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
 import { getDb } from "@/db";
 import { listAuditEvents } from "@/db/audit";
-import { listRunReviews, type RunReviewView } from "@/db/reviews";
+import { listRunReviews, type RunReviewView } from "@/lib/reviews/run-reviews";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { describeAuditAction, summariseAuditChange } from "@/lib/audit-labels";
 import { formatDateTime } from "@/lib/format-date-time";

@@ -1,7 +1,7 @@
 import { SignatureManifestation } from "@/components/signatures/signature-manifestation";
 import { Notice } from "@/components/ui/notice";
 import { TextLink } from "@/components/ui/text-link";
-import type { RunReviewView } from "@/db/reviews";
+import type { RunReviewView } from "@/lib/reviews/run-reviews";
 import type { RunView } from "@/db/runs";
 import type { SignedInUser } from "@/lib/auth/signed-in-user";
 import { formatDateTime } from "@/lib/format-date-time";

@@ -6,19 +6,22 @@ import { SpecimenRuns } from "@/components/runs/specimen-runs";
 import { PageHeader } from "@/components/ui/page-header";
 import { TextLink } from "@/components/ui/text-link";
 import { getDb } from "@/db";
-import { listRuns } from "@/db/runs";
+import { listRunsPage, RUN_SORTS } from "@/db/runs";
 import { getSpecimen } from "@/db/specimens";
 import { requirePageAccess } from "@/lib/auth/guards";
 import { can } from "@/lib/auth/permissions";
+import { keptParams, PAGE_SIZE, parseListParams, type RawSearchParams } from "@/lib/lists/list-params";
 
 export const metadata: Metadata = { title: "Specimen" };
 
-export default async function SpecimenPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function SpecimenPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<RawSearchParams> }) {
   const user = await requirePageAccess("/specimens/[id]");
   const id = z.uuid().safeParse((await params).id);
   const specimen = id.success ? await getSpecimen(getDb(), id.data) : null;
   if (!specimen) notFound();
-  const runs = await listRuns(getDb(), { specimenId: specimen.id });
+  const raw = await searchParams;
+  const list = parseListParams(raw, { sorts: RUN_SORTS, defaultSort: "planned", defaultDirection: "desc" });
+  const runs = await listRunsPage(getDb(), { specimenId: specimen.id }, { ...list, pageSize: PAGE_SIZE });
   const { specification: spec, lot } = specimen;
   return (
     <>
@@ -69,7 +72,7 @@ export default async function SpecimenPage({ params }: { params: Promise<{ id: s
           Rate capability: its reviewed discharges at each current
         </TextLink>
       </p>
-      <SpecimenRuns runs={runs} />
+      <SpecimenRuns runs={runs} path={`/specimens/${specimen.id}`} kept={keptParams(raw)} sort={{ key: list.sort, direction: list.direction }} />
     </>
   );
 }
