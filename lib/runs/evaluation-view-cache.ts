@@ -1,5 +1,6 @@
 import { LRUCache } from "lru-cache";
 import type { RunEvaluation } from "@/lib/conformance";
+import { parseStoredEvaluation } from "@/lib/conformance/stored-evaluation";
 import type { StoredDecisionRule } from "@/protocols";
 import { groupFindings, type FindingGroup } from "./group-findings";
 import { listResultRows, type ResultRow } from "./list-result-rows";
@@ -23,14 +24,13 @@ export interface StoredEvaluation {
 }
 
 export function buildEvaluationView(stored: StoredEvaluation): EvaluationView {
-  // Written only by evaluateStoredRun. Evaluations stored before budgets and the procedure's decision
-  // rule were recorded lack those fields: they were judged by simple acceptance, without budgets.
-  const evaluation = stored.evaluation as RunEvaluation;
+  // Older formats are upgraded where every stored evaluation is read (lib/conformance/stored-evaluation.ts).
+  const evaluation = parseStoredEvaluation(stored.evaluation);
   return {
     evaluationId: stored.id,
     runId: stored.runId,
     evaluation,
-    decisionRule: evaluation.decisionRule ?? evaluation.acceptance[0]?.rule ?? "simple acceptance",
+    decisionRule: evaluation.statedDecisionRule,
     groups: groupFindings(evaluation),
     resultRows: listResultRows(evaluation),
   };

@@ -201,12 +201,12 @@ describe('other clauses of IEC 61960-3 (docs/references.md §2, last item) [memo
       'recovery-discharge',
     ]);
     const resolution = resolutionOf(procedure);
-    // 0.2 It of the 3 000 mAh cell = 0.6 A (REFERENCES.md §1, published) for both measured discharges.
+    // 0.2 It of the 3 000 mAh cell = 0.6 A (docs/references.md §1, published) for both measured discharges.
     for (const id of ['discharge', 'recovery-discharge']) {
       expect(resolvedStepOf(resolution, id)).toMatchObject({ kind: 'discharge', purpose: 'measure', current: { value: 0.6 } });
     }
     expect(resolvedStepOf(resolution, 'recovery-charge')).toMatchObject({ kind: 'charge', voltage: { value: 4.2 } });
-    // Rest 1 h to 4 h after charge as for the rated capacity (REFERENCES.md §2, memory).
+    // Rest 1 h to 4 h after charge as for the rated capacity (docs/references.md §2, memory).
     expect(resolvedStepOf(resolution, 'recovery-rest')).toMatchObject({ kind: 'rest', minDuration: { value: 3600 }, maxDuration: { value: 14400 } });
     expectRecalledNote(procedure, /Recovery: charge again/);
     // Both percentages of the rated capacity: a parameter of the template, recalled.
