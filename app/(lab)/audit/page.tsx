@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { FilterBar, FilterInput } from "@/components/ui/filter-bar";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
 import { Cell, EmptyState, HeaderCell, Row, Table, TableHead } from "@/components/ui/table";
@@ -27,8 +28,6 @@ const AREAS: [string, string][] = [
   ["certificate.", "certificates"],
 ];
 
-const control = "rounded border border-rule bg-white px-2 py-1.5";
-
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePageAccess("/audit");
   const search = auditTrailSearchSchema.parse(await searchParams);
@@ -45,7 +44,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           </PlainLink>
         }
       />
-      <form className="mb-4 grid gap-3 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter the audit trail">
+      <FilterBar grid label="Filter the audit trail" clear={{ href: "/audit", words: "Clear filters" }}>
         <SelectField filter label="What happened" name="action" defaultValue={search.action ?? ""}>
           <option value="">everything</option>
           {AREAS.map(([code, words]) => (
@@ -75,27 +74,10 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             </option>
           ))}
         </SelectField>
-        <label className="flex flex-col text-sm">
-          Record name contains
-          <input name="record" defaultValue={search.record ?? ""} placeholder="e.g. R-00012, TPL-RC20, KV48" className={control} />
-        </label>
-        <label className="flex flex-col text-sm">
-          From (UTC day)
-          <input type="date" name="from" defaultValue={search.from ?? ""} className={control} />
-        </label>
-        <label className="flex flex-col text-sm">
-          To (UTC day, included)
-          <input type="date" name="to" defaultValue={search.to ?? ""} className={control} />
-        </label>
-        <div className="flex items-end gap-3">
-          <button type="submit" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper">
-            Show
-          </button>
-          <TextLink href="/audit" className="text-sm">
-            Clear filters
-          </TextLink>
-        </div>
-      </form>
+        <FilterInput label="Record name contains" name="record" defaultValue={search.record ?? ""} placeholder="e.g. R-00012, TPL-RC20, KV48" />
+        <FilterInput type="date" label="From (UTC day)" name="from" defaultValue={search.from ?? ""} />
+        <FilterInput type="date" label="To (UTC day, included)" name="to" defaultValue={search.to ?? ""} />
+      </FilterBar>
       <Table data-testid="audit-trail">
         <TableHead>
           <HeaderCell>When (UTC)</HeaderCell>
@@ -118,9 +100,9 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
                 {describeAuditAction(e.action)}
                 {e.entityType && <span className="block text-xs text-ink-soft">{describeAuditRecord(e.entityType, e.entityLabel)}</span>}
               </Cell>
-              <td className="min-w-[12rem] py-2 text-xs [overflow-wrap:anywhere]">
+              <Cell className="min-w-[12rem] text-xs [overflow-wrap:anywhere]">
                 <ChangeLines lines={summariseAuditChange(e.before, e.after, e.detail)} />
-              </td>
+              </Cell>
             </Row>
           ))}
         </tbody>

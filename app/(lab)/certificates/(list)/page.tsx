@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { CertificateStatusWords } from "@/components/certificates/certificate-status";
 import { VerdictWords } from "@/components/certificates/verdict-words";
+import { FilterBar, FilterInput } from "@/components/ui/filter-bar";
 import { DataTable, type DataColumn } from "@/components/ui/data-table";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
@@ -16,7 +17,6 @@ import { keptParams, PAGE_SIZE, parseListParams } from "@/lib/lists/list-params"
 
 export const metadata: Metadata = { title: "Certificates" };
 
-const dateClass = "rounded border border-rule bg-white px-2 py-1.5 text-sm";
 
 const VERDICTS = ["conforms", "does not conform", "conditional pass", "conditional fail", "not decided"];
 
@@ -81,9 +81,7 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
         title="Certificates"
         lead="Signed reports of accepted runs. Each states its own number on every page and can be checked by anyone on its public page."
       />
-      <form method="get" className="mb-4 flex flex-wrap items-end gap-3" aria-label="Filter certificates">
-        {kept.sort && <input type="hidden" name="sort" value={kept.sort} />}
-        {kept.dir && <input type="hidden" name="dir" value={kept.dir} />}
+      <FilterBar label="Filter certificates" keep={{ sort: kept.sort, dir: kept.dir }} clear={filtered ? { href: "/certificates", words: "Clear the filter" } : undefined}>
         <SelectField
           filter
           label="Lot"
@@ -98,14 +96,8 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
           defaultValue={filter.spec ?? ""}
           options={[{ value: "", label: "any cell" }, ...specs.map((s) => ({ value: s.id, label: `${s.maker} ${s.model}` }))]}
         />
-        <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium">Issued from</span>
-          <input type="date" name="from" defaultValue={filter.from ?? ""} className={dateClass} />
-        </label>
-        <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium">Issued to</span>
-          <input type="date" name="to" defaultValue={filter.to ?? ""} className={dateClass} />
-        </label>
+        <FilterInput type="date" label="Issued from" name="from" defaultValue={filter.from ?? ""} />
+        <FilterInput type="date" label="Issued to" name="to" defaultValue={filter.to ?? ""} />
         <SelectField
           filter
           label="Statement of conformity"
@@ -113,15 +105,7 @@ export default async function CertificatesPage({ searchParams }: { searchParams:
           defaultValue={filter.verdict ?? ""}
           options={[{ value: "", label: "any" }, ...VERDICTS.map((v) => ({ value: v, label: v }))]}
         />
-        <button type="submit" className="rounded border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper-deep">
-          Show
-        </button>
-        {filtered && (
-          <TextLink href="/certificates" className="py-1.5 text-sm">
-            Clear the filter
-          </TextLink>
-        )}
-      </form>
+      </FilterBar>
       <DataTable
         rows={certificates.rows}
         rowKey={(c) => c.id}

@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function CertificateNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such certificate</h1>
-      <TextLink href="/certificates">
-        All certificates
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such certificate" back={{ href: "/certificates", words: "All certificates" }} />
   );
 }

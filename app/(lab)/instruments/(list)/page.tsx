@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { z } from "zod";
 import { InstrumentRow } from "@/components/instruments/instrument-row";
+import { FilterBar, FilterCheck } from "@/components/ui/filter-bar";
 import { Notice } from "@/components/ui/notice";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
@@ -57,7 +58,7 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
           </Notice>
         )}
       </div>
-      <form className="mb-4 flex flex-wrap items-end gap-3" role="search">
+      <FilterBar label="Filter instruments">
         <SelectField filter label="Kind" name="kind" defaultValue={kind ?? ""}>
           <option value="">every kind</option>
           {INSTRUMENT_KINDS.map((k) => (
@@ -66,14 +67,8 @@ export default async function InstrumentsPage({ searchParams }: { searchParams: 
             </option>
           ))}
         </SelectField>
-        <label className="flex items-center gap-2 py-1.5 text-sm">
-          <input type="checkbox" name="inuse" value="1" defaultChecked={inuse === "1"} />
-          Only instruments in use
-        </label>
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
-      </form>
+        <FilterCheck label="Only instruments in use" name="inuse" checked={inuse === "1"} />
+      </FilterBar>
       <Table>
         <TableHead>
           <HeaderCell>Calibration</HeaderCell>

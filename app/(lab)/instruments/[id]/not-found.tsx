@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function InstrumentNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such instrument</h1>
-      <TextLink href="/instruments">
-        The instrument register
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such instrument" back={{ href: "/instruments", words: "The instrument register" }} />
   );
 }

@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function LotNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such lot</h1>
-      <TextLink href="/lots">
-        All lots
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such lot" back={{ href: "/lots", words: "All lots" }} />
   );
 }

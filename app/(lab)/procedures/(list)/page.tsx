@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { z } from "zod";
 import { StatusBadge } from "@/components/procedures/status-badge";
+import { FilterBar, FilterInput } from "@/components/ui/filter-bar";
 import { ActionLink } from "@/components/ui/action-link";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
@@ -40,11 +41,8 @@ export default async function ProceduresPage({ searchParams }: { searchParams: P
           )
         }
       />
-      <form className="mb-4 flex flex-wrap items-end gap-2" role="search">
-        <label className="flex flex-col text-sm">
-          Code, title or standard
-          <input name="q" defaultValue={q ?? ""} className="rounded border border-rule bg-white px-2 py-1.5" />
-        </label>
+      <FilterBar label="Filter procedures">
+        <FilterInput label="Code, title or standard" name="q" defaultValue={q ?? ""} />
         {author && (
           <SelectField filter label="Newest version is" name="status" defaultValue={status ?? ""}>
             <option value="">any status</option>
@@ -54,10 +52,7 @@ export default async function ProceduresPage({ searchParams }: { searchParams: P
             <option value="withdrawn">withdrawn</option>
           </SelectField>
         )}
-        <button type="submit" className="rounded border border-rule bg-white px-3 py-1.5 text-sm hover:border-copper">
-          Show
-        </button>
-      </form>
+      </FilterBar>
       <Table>
         <TableHead>
           <HeaderCell>Code</HeaderCell>

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { z } from "zod";
 import { ActionLink } from "@/components/ui/action-link";
 import { DataTable, type DataColumn } from "@/components/ui/data-table";
-import { FilterBar } from "@/components/ui/filter-bar";
+import { FilterBar, FilterCheck } from "@/components/ui/filter-bar";
 import { PageHeader } from "@/components/ui/page-header";
 import { SelectField } from "@/components/ui/select-field";
 import { TextLink } from "@/components/ui/text-link";
@@ -71,10 +71,7 @@ export default async function RunsPage({ searchParams }: { searchParams: Promise
           options={[{ value: "", label: "any" }, ...STATUSES.map((s) => ({ value: s, label: RUN_STATUS_WORDS[s].words }))]}
         />
         {can(user.role, "run.operate") && (
-          <label className="flex min-h-9 items-center gap-2 text-sm">
-            <input type="checkbox" name="mine" value="1" defaultChecked={filter.mine === "1"} className="size-4 accent-copper" />
-            Only runs I operated
-          </label>
+          <FilterCheck label="Only runs I operated" name="mine" checked={filter.mine === "1"} />
         )}
       </FilterBar>
       <DataTable

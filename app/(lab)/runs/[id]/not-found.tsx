@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function RunNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such run</h1>
-      <TextLink href="/runs">
-        All runs
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such run" back={{ href: "/runs", words: "All runs" }} />
   );
 }

@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function SpecimenNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such specimen</h1>
-      <TextLink href="/specimens">
-        All specimens
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such specimen" back={{ href: "/specimens", words: "All specimens" }} />
   );
 }

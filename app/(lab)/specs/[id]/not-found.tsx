@@ -1,12 +1,7 @@
-import { TextLink } from "@/components/ui/text-link";
+import { NotFoundNote } from "@/components/ui/not-found-note";
 
 export default function SpecNotFound() {
   return (
-    <div>
-      <h1 className="mb-2 text-2xl font-bold">No such cell specification</h1>
-      <TextLink href="/specs">
-        All cell specifications
-      </TextLink>
-    </div>
+    <NotFoundNote title="No such cell specification" back={{ href: "/specs", words: "All cell specifications" }} />
   );
 }
